@@ -1,0 +1,10 @@
+import nextCoreWebVitals from "eslint-config-next/core-web-vitals";
+import nextTypescript from "eslint-config-next/typescript";
+
+const config = [
+  ...nextCoreWebVitals,
+  ...nextTypescript,
+  { ignores: [".next/**", "node_modules/**", ".data/**", "tmp/**", "drizzle/**", "next-env.d.ts"] },
+];
+
+export default config;

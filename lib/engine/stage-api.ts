@@ -1,0 +1,2 @@
+// Public surface of the analog stage models (owned by the stage-model work).
+export {};

@@ -1,0 +1,15 @@
+import { defineConfig } from "vitest/config";
+
+// Browser tests: playwright-core drives Debian's chromium against a production
+// server that scripts/test.sh has started. They run one file at a time because
+// they share the server and the database.
+export default defineConfig({
+  resolve: { tsconfigPaths: true },
+  test: {
+    include: ["tests/browser/**/*.test.ts"],
+    environment: "node",
+    testTimeout: 180_000,
+    hookTimeout: 180_000,
+    fileParallelism: false,
+  },
+});
