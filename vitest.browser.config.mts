@@ -4,7 +4,11 @@ import { defineConfig } from "vitest/config";
 // server that scripts/test.sh has started. They run one file at a time because
 // they share the server and the database.
 export default defineConfig({
-  resolve: { tsconfigPaths: true },
+  resolve: {
+    tsconfigPaths: true,
+    // "server-only" throws outside a React Server bundle; tests import server modules directly.
+    alias: { "server-only": new URL("./tests/setup/empty-module.ts", import.meta.url).pathname },
+  },
   test: {
     include: ["tests/browser/**/*.test.ts"],
     environment: "node",

@@ -1,0 +1,44 @@
+// Wrapper for route handlers: any throw becomes the public error shape.
+// Handlers still read top to bottom: validate -> authenticate -> load ->
+// authorise -> act.
+import { ApiError, toResponse } from "./errors";
+
+type Ctx<P> = { params: Promise<P> };
+
+export function apiRoute<P = Record<string, string>>(
+  handler: (req: Request, ctx: Ctx<P>) => Promise<Response>,
+): (req: Request, ctx: Ctx<P>) => Promise<Response> {
+  return async (req, ctx) => {
+    try {
+      return await handler(req, ctx);
+    } catch (err) {
+      return toResponse(err);
+    }
+  };
+}
+
+const MAX_JSON_BYTES = 1024 * 1024;
+
+/** The request body as JSON, with clear 400/413 errors for what cannot be read. */
+export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
+  const length = Number(req.headers.get("content-length") ?? "0");
+  if (length > maxBytes) throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
+  const text = await req.text();
+  if (Buffer.byteLength(text) > maxBytes) {
+    throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
+  }
+  if (!text.trim()) throw new ApiError("bad_request", "The request body is empty; send JSON.");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new ApiError("bad_request", "The request body is not valid JSON.");
+  }
+}
+
+/** A positive integer id from a URL segment, or 404. */
+export function parseId(raw: string, what: string): number {
+  if (!/^[1-9][0-9]{0,9}$/.test(raw) || Number(raw) > 2147483647) {
+    throw new ApiError("not_found", `${what} was not found.`);
+  }
+  return Number(raw);
+}

@@ -1,0 +1,61 @@
+// The one server-side gate. Every route handler, server action and page asks
+// it for the user and the roles allowed; nothing relies on hidden buttons.
+import { and, eq, isNull } from "drizzle-orm";
+import { getServerSession } from "next-auth";
+import { db } from "@/db/client";
+import { apiTokens, users, type Role } from "@/db/schema";
+import { ApiError } from "@/lib/api/errors";
+import { authOptions } from "./options";
+import { hashToken, TOKEN_PREFIX } from "./tokens";
+
+export type AuthUser = {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  site: string | null;
+  via: "session" | "token";
+};
+
+async function loadUser(id: number, via: AuthUser["via"]): Promise<AuthUser | null> {
+  const [u] = await db.select().from(users).where(eq(users.id, id));
+  if (!u || u.disabled) return null;
+  return { id: u.id, email: u.email, name: u.name, role: u.role, site: u.site, via };
+}
+
+/** The signed-in user from the session cookie, re-read from the database so a
+ *  role change or a disabled account takes effect at once. */
+export async function sessionUser(): Promise<AuthUser | null> {
+  const session = await getServerSession(authOptions);
+  const id = session?.user?.id;
+  return typeof id === "number" ? loadUser(id, "session") : null;
+}
+
+async function tokenUser(header: string): Promise<AuthUser | null> {
+  const secret = header.slice("Bearer ".length).trim();
+  if (!secret.startsWith(TOKEN_PREFIX)) return null;
+  const [row] = await db
+    .select()
+    .from(apiTokens)
+    .where(and(eq(apiTokens.tokenHash, hashToken(secret)), isNull(apiTokens.revokedAt)));
+  if (!row) return null;
+  await db.update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
+  return loadUser(row.userId, "token");
+}
+
+/** Bearer token when the request carries one, else the session. */
+export async function requestUser(req?: Request): Promise<AuthUser | null> {
+  const header = req?.headers.get("authorization");
+  if (header?.startsWith("Bearer ")) return tokenUser(header);
+  return sessionUser();
+}
+
+/** Throws 401 when nobody is signed in, 403 when the role is not in `roles`. */
+export async function requireUser(opts: { roles: readonly Role[]; req?: Request }): Promise<AuthUser> {
+  const user = await requestUser(opts.req);
+  if (!user) throw new ApiError("unauthenticated", "Sign in first, or send a valid API token.");
+  if (!opts.roles.includes(user.role)) {
+    throw new ApiError("forbidden", `The ${user.role} role may not do this.`);
+  }
+  return user;
+}

@@ -1,0 +1,17 @@
+#!/usr/bin/env bash
+# One command from a fresh Debian machine with Node.js: installs what is
+# missing, starts PostgreSQL and the mail catcher on loopback, migrates, seeds
+# the demo data, builds and serves the product on http://localhost:3000.
+set -euo pipefail
+source "$(dirname "$0")/common.sh"
+
+install_node_modules
+apt_ensure postgresql curl
+bash scripts/env-file.sh
+set -a && source .env.local && set +a
+prepare_database
+npx tsx scripts/seed.ts
+start_bg mail-catcher npx tsx scripts/mail-catcher.ts --smtp "${SMTP_PORT:-1025}" --http 1080
+npx next build
+echo "Clockgraft: http://localhost:3000  (mail: http://127.0.0.1:1080)  stop with: npm run stop"
+exec node node_modules/next/dist/bin/next start -p 3000

@@ -1,0 +1,42 @@
+#!/usr/bin/env bash
+# One command that does all set-up and runs every test: type-check, lint,
+# format check, unit and integration tests against a fresh PostgreSQL test
+# database, then browser tests in Debian's chromium against a production build.
+set -euo pipefail
+source "$(dirname "$0")/common.sh"
+
+install_node_modules
+bash scripts/ensure-tools.sh
+
+export DATABASE_URL=postgres://postgres@127.0.0.1:54329/clockgraft_test
+export TEST_PORT=${TEST_PORT:-3100}
+export NEXTAUTH_URL=http://127.0.0.1:$TEST_PORT
+export TEST_BASE_URL=$NEXTAUTH_URL
+export NEXTAUTH_SECRET=test-secret-not-for-production-000000000000
+export SMTP_HOST=127.0.0.1 SMTP_PORT=2525 MAIL_HTTP_URL=http://127.0.0.1:2580
+export MAIL_FROM="Clockgraft <clockgraft@localhost>"
+
+echo "== type-check, lint, format"
+npx tsc --noEmit -p .
+npx eslint . --max-warnings=0
+npx prettier --check . --log-level=warn
+
+echo "== database"
+prepare_database --fresh
+npx tsx scripts/seed.ts
+
+echo "== build and serve on $TEST_BASE_URL"
+npx next build >/tmp/clockgraft-build.log 2>&1 || { cat /tmp/clockgraft-build.log; exit 1; }
+stop_bg test-server
+stop_bg test-mail
+start_bg test-mail npx tsx scripts/mail-catcher.ts --smtp 2525 --http 2580
+start_bg test-server node node_modules/next/dist/bin/next start -p "$TEST_PORT"
+trap 'stop_bg test-server; stop_bg test-mail' EXIT
+wait_for_url "$TEST_BASE_URL/api/health"
+wait_for_url "$MAIL_HTTP_URL/messages.json"
+
+echo "== unit and integration tests"
+npx vitest run
+
+echo "== browser tests"
+npx vitest run --config vitest.browser.config.mts

@@ -1,0 +1,17 @@
+import type { Role } from "@/db/schema";
+
+declare module "next-auth" {
+  interface Session {
+    user: { id: number; role: Role; name?: string | null; email?: string | null };
+  }
+  interface User {
+    role: Role;
+  }
+}
+
+declare module "next-auth/jwt" {
+  interface JWT {
+    uid: number;
+    role: Role;
+  }
+}
