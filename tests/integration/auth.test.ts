@@ -1,0 +1,78 @@
+// Sign-in, session and the role gate, against the running server and the real
+// test database.
+import { describe, expect, it } from "vitest";
+import { Session, signedIn } from "../helpers/server";
+import { makeToken, makeUser, TEST_PASSWORD } from "../helpers/users";
+
+describe("sign-in and roles", () => {
+  it("answers an unauthenticated API call with 401 JSON in the error shape", async () => {
+    const res = await new Session().json<{ error: { code: string; message: string } }>("/api/v1/users");
+    expect(res.status).toBe(401);
+    expect(res.body.error.code).toBe("unauthenticated");
+    expect(res.body.error.message).toMatch(/sign in/i);
+  });
+
+  it("answers a wrong role with 403 JSON", async () => {
+    const tech = await makeUser("technician");
+    const s = await signedIn(tech.email, TEST_PASSWORD);
+    const res = await s.json<{ error: { code: string } }>("/api/v1/users");
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe("forbidden");
+  });
+
+  it("lets an admin list users without password hashes", async () => {
+    const admin = await makeUser("admin");
+    const s = await signedIn(admin.email, TEST_PASSWORD);
+    const res = await s.json<{ users: Record<string, unknown>[] }>("/api/v1/users");
+    expect(res.status).toBe(200);
+    expect(res.body.users.some((u) => u.email === admin.email)).toBe(true);
+    expect(JSON.stringify(res.body)).not.toMatch(/password|\$2[aby]\$/);
+  });
+
+  it("refuses a wrong password with a clear message and no session", async () => {
+    const eng = await makeUser("engineer");
+    const s = new Session();
+    const error = await s.signIn(eng.email, "not-the-password");
+    expect(error).toBe("Wrong e-mail or password.");
+    expect(await s.user()).toBeNull();
+  });
+
+  it("gives an unknown e-mail the same message as a wrong password", async () => {
+    const error = await new Session().signIn("nobody-here@test.invalid", "whatever-1");
+    expect(error).toBe("Wrong e-mail or password.");
+  });
+
+  it("carries the role in the session", async () => {
+    const rev = await makeUser("reviewer");
+    const s = await signedIn(rev.email, TEST_PASSWORD);
+    expect(await s.user()).toMatchObject({ email: rev.email, role: "reviewer" });
+  });
+
+  it("refuses a disabled account", async () => {
+    const u = await makeUser("engineer", { disabled: true });
+    expect(await new Session().signIn(u.email, TEST_PASSWORD)).toMatch(/disabled/);
+  });
+
+  it("locks an address after repeated failures, even with the right password", async () => {
+    const u = await makeUser("engineer");
+    for (let i = 0; i < 5; i++) await new Session().signIn(u.email, "wrong-" + i);
+    expect(await new Session().signIn(u.email, TEST_PASSWORD)).toMatch(/Too many failed attempts/);
+  });
+
+  it("accepts a personal API token as Bearer and refuses a made-up one", async () => {
+    const admin = await makeUser("admin");
+    const token = await makeToken(admin.id);
+    const ok = await fetch(new Session().base + "/api/v1/users", { headers: { authorization: `Bearer ${token}` } });
+    expect(ok.status).toBe(200);
+    const bad = await fetch(new Session().base + "/api/v1/users", {
+      headers: { authorization: `Bearer cgt_${"x".repeat(43)}` },
+    });
+    expect(bad.status).toBe(401);
+  });
+
+  it("sends signed-out page visits to the sign-in page", async () => {
+    const res = await new Session().fetch("/retrofits");
+    expect(res.status).toBe(307);
+    expect(res.headers.get("location")).toMatch(/\/sign-in/);
+  });
+});
