@@ -1,0 +1,127 @@
+// spec -> files. Data flows one way: stage -> analysis -> plans -> files.
+// Nothing here reads the clock, a random source or object key order.
+import * as engine from "@/lib/engine";
+import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError } from "@/lib/engine";
+import { DEVICES } from "./devices";
+import { targetFolders } from "./folders";
+import { sha256Hex } from "./hash";
+import { checklistLimits, limitBasis } from "./limits";
+import { oldOutputNote } from "./old-output";
+import { stableJson } from "./plan-json";
+import { render } from "./render";
+import { cautionLines } from "./safety";
+import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
+
+export type Planner = (request: BundleTargetRequest) => BundlePlan;
+
+const byPath = (a: BundleFile, b: BundleFile) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0);
+
+function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
+  return spec.targets.map((request, index) => {
+    try {
+      return planner(request);
+    } catch (e) {
+      const why = e instanceof Error ? e.message : String(e);
+      const code = isEngineError(e) ? e.code : "invalid-request";
+      throw new EngineError(
+        code,
+        `target ${index + 1} (${request.device}) cannot be planned: ${why}`,
+        `targets.${index}`,
+      );
+    }
+  });
+}
+
+function analyze(spec: BundleSpec): StageAnalysis | null {
+  try {
+    return analyzeStage(spec.stage);
+  } catch {
+    return null;
+  }
+}
+
+export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): BundleFile[] {
+  const plans = planAll(spec, planner);
+  const analysis = analyze(spec);
+  const folders = targetFolders(spec.targets.map((t) => t.device));
+  const cautions = cautionLines(spec.retrofit);
+  const retrofit = {
+    name: spec.retrofit.name,
+    site: spec.retrofit.site ?? "",
+    assetTag: spec.retrofit.assetTag ?? "",
+    mainsPowered: spec.retrofit.mainsPowered === true,
+    drivesThyristor: spec.retrofit.drivesThyristor === true,
+  };
+  const files: BundleFile[] = [];
+  const targets = plans.map((plan, i) => {
+    const entry = DEVICES[plan.device];
+    if (!entry)
+      throw new EngineError(
+        "unknown-device",
+        `target ${i + 1}: no bundle templates for ${plan.device}`,
+        `targets.${i}`,
+      );
+    const view = entry.view(plan);
+    const limits = checklistLimits(plan, analysis);
+    const ctx = {
+      retrofit,
+      revision: spec.revision,
+      engineVersion: ENGINE_VERSION,
+      device: plan.device,
+      deviceName: entry.name,
+      folder: folders[i],
+      targetNumber: i + 1,
+      plan: { ...plan, notes: plan.notes ?? [], jitterS: plan.jitterS ?? 0 },
+      request: spec.targets[i],
+      writes: view.writes,
+      pin: view.pin,
+      x: view.extra,
+      soft: { wide: plan.softwareDivider > 65535 },
+      cautions,
+      hasCautions: cautions.length > 0,
+      limits,
+      basis: limitBasis(plan),
+      stage: analysis ?? { periodS: NaN, highS: NaN, outputLabel: "the old stage's output" },
+      oldDrove: oldOutputNote(spec.retrofit, analysis),
+    };
+    for (const [out, tpl] of Object.entries(entry.files)) {
+      files.push({ path: `${folders[i]}/${out}`, content: render(`${plan.device}/${tpl}`, ctx) });
+    }
+    for (const name of ["PINMAP.md", "pinmap.csv", "CHECKLIST.md"]) {
+      files.push({ path: `${folders[i]}/${name}`, content: render(`common/${name}.hbs`, ctx) });
+    }
+    return { folder: folders[i], deviceName: entry.name, plan, limits };
+  });
+  files.push({
+    path: "plan.json",
+    content: stableJson({
+      engineVersion: ENGINE_VERSION,
+      retrofit,
+      revision: spec.revision,
+      stage: spec.stage,
+      analysis,
+      targets: targets.map((t, i) => ({
+        folder: t.folder,
+        request: spec.targets[i],
+        plan: t.plan,
+        limits: t.limits,
+      })),
+    }),
+  });
+  files.sort(byPath);
+  const readme = render("common/README.md.hbs", {
+    retrofit,
+    revision: spec.revision,
+    engineVersion: ENGINE_VERSION,
+    cautions,
+    hasCautions: cautions.length > 0,
+    targets,
+    files: files.map((f) => ({ path: f.path, sha256: sha256Hex(f.content) })),
+  });
+  files.push({ path: "README.md", content: readme });
+  return files.sort(byPath);
+}
+
+export function buildBundleFiles(spec: BundleSpec): BundleFile[] {
+  return buildBundleFilesWith(spec, (request) => engine.planTarget(request) as BundlePlan);
+}

@@ -1,0 +1,17 @@
+// Bundle contract (engine.md section 5): spec -> sorted files -> zip.
+export { buildBundleFiles, buildBundleFilesWith } from "./build";
+export type { Planner } from "./build";
+export { zipBundle } from "./zip";
+export { sha256Hex } from "./hash";
+export { checklistLimits, withinLimit, limitBasis, DEFAULT_CLOCK_ACCURACY_PPM } from "./limits";
+export type { ChecklistLimit, ChecklistBasis, LimitId } from "./limits";
+export { cautionLines, needsCautions } from "./safety";
+export { stableJson, sortKeysDeep } from "./plan-json";
+export type {
+  BundleFile,
+  BundlePlan,
+  BundleSpec,
+  BundleRetrofit,
+  BundleTargetRequest,
+  BundlePin,
+} from "./types";

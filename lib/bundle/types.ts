@@ -1,0 +1,72 @@
+// Shapes of the bundle contract (engine.md section 5). `BundlePlan` lists the
+// TimerPlan fields the generator reads, so a hand-built plan and the solver's
+// plan are interchangeable here.
+import type { Stage, StageAnalysis } from "@/lib/engine/stage-types";
+
+export type PlanMode = "pwm" | "toggle" | "isr";
+
+export interface BundleTargetRequest {
+  device: string;
+  clockHz: number;
+  periodS: number;
+  highS: number;
+  mode?: PlanMode;
+  timer?: string;
+}
+
+export interface BundleRetrofit {
+  name: string;
+  site?: string;
+  assetTag?: string;
+  mainsPowered?: boolean;
+  drivesThyristor?: boolean;
+}
+
+export interface BundleSpec {
+  retrofit: BundleRetrofit;
+  revision: number;
+  stage: Stage;
+  targets: BundleTargetRequest[];
+}
+
+export interface BundleFile {
+  path: string;
+  content: string;
+}
+
+export interface BundlePin {
+  port: string;
+  function: string;
+  packagePin: number | string;
+  package: string;
+  portName?: string;
+  bit?: number;
+  alternateFunction?: number;
+  gpio?: number;
+  slice?: number;
+  channel?: "A" | "B";
+  fromMemory?: boolean;
+}
+
+export interface BundlePlan {
+  device: string;
+  timer: string;
+  mode: PlanMode;
+  clockHz: number;
+  divider: number;
+  periodCounts: number;
+  modeFactor: number;
+  softwareDivider: number;
+  highCounts: number;
+  periodS: number;
+  highS: number;
+  periodErrorPpm: number;
+  highErrorPpm: number;
+  registers: Record<string, number>;
+  pin: BundlePin;
+  notes?: string[];
+  jitterS?: number;
+  clockAccuracyPpm?: number;
+}
+
+export type { Stage, StageAnalysis };
