@@ -1,0 +1,186 @@
+// Streams an export into two growing Float64Arrays (time and the measured
+// voltage). Lines are read one at a time and dropped; only the first
+// WINDOW_LINES are held, to work out the format.
+
+import { detectLayout, type Layout } from "./detect-format";
+import { CaptureError } from "./errors";
+import { readNumber } from "./fields";
+import { LineSplitter } from "./line-splitter";
+import { MAX_CAPTURE_BYTES, textChunks } from "./text-source";
+import type { CaptureOptions, CaptureTrace } from "./types";
+
+/** Lines looked at before the format is fixed; header blocks are shorter. */
+export const WINDOW_LINES = 200;
+
+class Series {
+  private buf = new Float64Array(1 << 16);
+  length = 0;
+
+  push(x: number): void {
+    if (this.length === this.buf.length) {
+      const grown = new Float64Array(this.buf.length * 2);
+      grown.set(this.buf);
+      this.buf = grown;
+    }
+    this.buf[this.length++] = x;
+  }
+
+  values(): Float64Array {
+    return this.buf.subarray(0, this.length);
+  }
+}
+
+const HAS_DIGIT = /\d/;
+
+class RowReader {
+  private readonly t = new Series();
+  private readonly v = new Series();
+  private prevT = -Infinity;
+  private prevLine = 0;
+  private minStep = Infinity;
+  private maxStep = 0;
+  private firstLine = 0;
+  private readonly trailing: RegExp;
+
+  constructor(private readonly layout: Layout) {
+    this.trailing = layout.delimiter === "\t" ? /^\s*$/ : new RegExp(`^[\\s${layout.delimiter}]*$`);
+  }
+
+  row(line: string, lineNo: number): void {
+    if (line.length === 0 || (line.charCodeAt(0) <= 32 && line.trim() === "")) return;
+    const { delimiter, fieldCount, timeIndex, measuredIndex } = this.layout;
+    let pos = 0;
+    let tRaw = 0;
+    let vRaw = 0;
+    for (let c = 0; c < fieldCount; c++) {
+      let end = line.indexOf(delimiter, pos);
+      if (end === -1) {
+        if (c < fieldCount - 1) {
+          throw new CaptureError(
+            "column-count",
+            lineNo,
+            `${c + 1} value(s) where the data has ${fieldCount} columns`,
+          );
+        }
+        end = line.length;
+      }
+      const x = this.number(line.slice(pos, end), c, lineNo);
+      if (c === timeIndex) tRaw = x;
+      if (c === measuredIndex) vRaw = x;
+      pos = end + 1;
+    }
+    if (pos < line.length && !this.trailing.test(line.slice(pos))) {
+      throw new CaptureError(
+        "column-count",
+        lineNo,
+        `more values than the ${fieldCount} columns of the data`,
+      );
+    }
+    if (this.firstLine === 0) this.firstLine = lineNo;
+    if (timeIndex >= 0) this.pushTime(tRaw * this.layout.scales[timeIndex], lineNo);
+    this.v.push(vRaw * this.layout.scales[measuredIndex]);
+  }
+
+  private number(field: string, column: number, lineNo: number): number {
+    let x = Number(field);
+    // Number() reads "" and blanks as 0 and fails on decimal commas and quotes.
+    if (x !== x || (x === 0 && !HAS_DIGIT.test(field))) {
+      x = readNumber(field, this.layout.decimalComma);
+    }
+    if (Number.isFinite(x)) return x;
+    const name = this.layout.columns[column].name;
+    const text = field.trim();
+    throw new CaptureError(
+      "not-a-number",
+      lineNo,
+      text === ""
+        ? `column ${column + 1} ("${name}") is empty`
+        : `"${text.slice(0, 40)}" in column ${column + 1} ("${name}") is not a finite number`,
+    );
+  }
+
+  private pushTime(t: number, lineNo: number): void {
+    if (t < this.prevT) {
+      throw new CaptureError(
+        "non-monotonic-time",
+        lineNo,
+        `time ${t} s is earlier than ${this.prevT} s on line ${this.prevLine}; time must not go backwards`,
+      );
+    }
+    if (this.prevLine > 0) {
+      const step = t - this.prevT;
+      if (step < this.minStep) this.minStep = step;
+      if (step > this.maxStep) this.maxStep = step;
+    }
+    this.prevT = t;
+    this.prevLine = lineNo;
+    this.t.push(t);
+  }
+
+  finish(): CaptureTrace {
+    const { layout } = this;
+    const v = this.v.values();
+    const n = v.length;
+    const warnings = [...layout.warnings];
+    let t: Float64Array;
+    if (layout.timeIndex >= 0) {
+      t = this.t.values();
+      if (n >= 2 && t[n - 1] <= t[0]) {
+        throw new CaptureError(
+          "non-monotonic-time",
+          this.firstLine,
+          `time stays at ${t[0]} s over all ${n} rows; it must advance`,
+        );
+      }
+      const mean = n >= 2 ? (t[n - 1] - t[0]) / (n - 1) : 0;
+      if (n >= 3 && (this.maxStep > 1.5 * mean || this.minStep < 0.5 * mean)) {
+        warnings.push({
+          code: "uneven-sampling",
+          message: `time steps range from ${this.minStep} s to ${this.maxStep} s around a mean of ${mean} s`,
+        });
+      }
+    } else {
+      const dt = layout.sampleIntervalS ?? 1;
+      t = new Float64Array(n);
+      for (let i = 0; i < n; i++) t[i] = layout.startS + i * dt;
+    }
+    return {
+      t,
+      v,
+      columns: layout.columns,
+      measuredColumn: layout.measuredIndex,
+      header: layout.header,
+      firstDataLine: this.firstLine,
+      warnings,
+    };
+  }
+}
+
+/** Reads an export into a trace of the chosen voltage column. */
+export async function parseCapture(
+  source: string | AsyncIterable<Uint8Array | string>,
+  options: CaptureOptions = {},
+): Promise<CaptureTrace> {
+  const maxBytes = options.maxBytes ?? MAX_CAPTURE_BYTES;
+  const window: string[] = [];
+  let reader: RowReader | null = null;
+  const startRows = (): RowReader => {
+    const layout = detectLayout(window, options.voltageColumn ?? 0);
+    const r = new RowReader(layout);
+    for (let i = layout.dataStart; i < window.length; i++) r.row(window[i], i + 1);
+    window.length = 0;
+    return r;
+  };
+  const splitter = new LineSplitter((line, lineNo) => {
+    if (reader) reader.row(line, lineNo);
+    else {
+      window.push(line);
+      if (window.length >= WINDOW_LINES) reader = startRows();
+    }
+  });
+  for await (const text of textChunks(source, maxBytes, () => splitter.lines + 1)) {
+    splitter.push(text);
+  }
+  splitter.end();
+  return (reader ?? startRows()).finish();
+}
