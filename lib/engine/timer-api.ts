@@ -1,2 +1,20 @@
-// Public surface of the devices and the timer solver (owned by the solver work).
-export {};
+// Public surface of the devices and the timer solver (engine.md sections 2-4).
+import { DEVICES, deviceInfo } from "./devices";
+import type { DeviceInfo } from "./plan-types";
+
+export type {
+  ClockKind,
+  ClockOption,
+  DeviceId,
+  DeviceInfo,
+  PinAssignment,
+  PlanRequest,
+  TimerInfo,
+  TimerMode,
+  TimerPlan,
+} from "./plan-types";
+export { planTarget } from "./solver";
+
+export function listDevices(): DeviceInfo[] {
+  return DEVICES.map(deviceInfo);
+}

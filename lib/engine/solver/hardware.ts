@@ -1,0 +1,65 @@
+// Exact best hardware setting (engine.md section 3): for each legal divider
+// d and mode factor m the best counter value is floor or ceil of
+// T*f/(d*m), clamped to the counter range, so enumerating dividers finds the
+// optimum over every legal (d, n, m). Errors are kept in divider quanta
+// (1/16 clock for the RP2040) so that ties compare exactly.
+import type { TimerSpec } from "../devices/spec";
+
+export interface HardwareChoice {
+  /** Divider in clock cycles per count. */
+  divider: number;
+  periodCounts: number;
+  modeFactor: 1 | 2;
+  /** |achieved - target| in divider quanta (clock cycles / dividerQuantum). */
+  errorQuanta: number;
+  /** The target lies within half a count of the counter range for this divider. */
+  inRange: boolean;
+}
+
+/**
+ * Ordering: least error, then an integer divider (a fractional RP2040 divider
+ * makes single periods jitter by one clock), then most counts per period,
+ * then smallest divider, then smaller mode factor.
+ */
+export function betterHardware(a: HardwareChoice, b: HardwareChoice): boolean {
+  if (a.errorQuanta !== b.errorQuanta) return a.errorQuanta < b.errorQuanta;
+  const ai = Number.isInteger(a.divider);
+  if (ai !== Number.isInteger(b.divider)) return ai;
+  if (a.periodCounts !== b.periodCounts) return a.periodCounts > b.periodCounts;
+  if (a.divider !== b.divider) return a.divider < b.divider;
+  return a.modeFactor < b.modeFactor;
+}
+
+/**
+ * @param targetQuanta target period * clockHz * dividerQuantum
+ */
+export function bestHardware(
+  timer: TimerSpec,
+  mode: "pwm" | "toggle",
+  targetQuanta: number,
+): HardwareChoice | null {
+  const range = timer.counts[mode];
+  const factors = timer.modeFactors[mode];
+  if (!range || !factors) return null;
+  const q = timer.dividerQuantum;
+  let best: HardwareChoice | null = null;
+  for (const m of factors) {
+    for (const d of timer.dividers) {
+      const step = Math.round(d * q) * m; // quanta per count
+      const x = targetQuanta / step;
+      const lo = Math.min(range.max, Math.max(range.min, Math.floor(x)));
+      const hi = Math.min(range.max, Math.max(range.min, Math.ceil(x)));
+      for (const n of lo === hi ? [lo] : [lo, hi]) {
+        const c: HardwareChoice = {
+          divider: d,
+          periodCounts: n,
+          modeFactor: m,
+          errorQuanta: Math.abs(step * n - targetQuanta),
+          inRange: x >= range.min - 0.5 && x <= range.max + 0.5,
+        };
+        if (!best || betterHardware(c, best)) best = c;
+      }
+    }
+  }
+  return best;
+}
