@@ -18,3 +18,11 @@ export { planTarget } from "./solver";
 export function listDevices(): DeviceInfo[] {
   return DEVICES.map(deviceInfo);
 }
+export {
+  accuracyBudget,
+  type AccuracyBudget,
+  type BudgetInput,
+  type BudgetTerm,
+  type ClockVerdict,
+} from "./budget";
+export { COMMON_CRYSTALS_HZ, suggestCrystals, type CrystalSuggestion } from "./crystals";
