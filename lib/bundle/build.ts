@@ -1,7 +1,6 @@
 // spec -> files. Data flows one way: stage -> analysis -> plans -> files.
 // Nothing here reads the clock, a random source or object key order.
-import * as engine from "@/lib/engine";
-import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError } from "@/lib/engine";
+import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } from "@/lib/engine";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { sha256Hex } from "./hash";
@@ -123,5 +122,5 @@ export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): Bundle
 }
 
 export function buildBundleFiles(spec: BundleSpec): BundleFile[] {
-  return buildBundleFilesWith(spec, (request) => engine.planTarget(request) as BundlePlan);
+  return buildBundleFilesWith(spec, (request) => planTarget(request));
 }

@@ -79,6 +79,12 @@ export function pic12f1840View(plan: BundlePlan): DeviceView {
   return {
     writes,
     pin: pinFacts(plan),
-    extra: { isr, bit, osc: picOsccon(plan.clockHz), crystalHs: plan.clockHz > 4e6 },
+    extra: {
+      isr,
+      bit,
+      osc: (plan.clockSource ?? "crystal").startsWith("hfintosc") ? picOsccon(plan.clockHz) : null,
+      crystalPll: plan.clockSource === "crystal-pll",
+      crystalHs: plan.clockHz > 4e6,
+    },
   };
 }

@@ -12,6 +12,8 @@ const HSI16 = 16e6;
 
 export interface StmClock {
   kind: "hsi" | "pll" | "hse";
+  /** PLL input: HSI16, or an 8 MHz HSE crystal (common practice, no source) */
+  pllFromHse?: boolean;
   hsidiv?: number;
   pllN?: number;
   pllR?: number;
@@ -30,7 +32,7 @@ export function stmClock(clockHz: number): StmClock {
         return { kind: "pll", pllN: n, pllR: r, flashLatency: latency };
     }
   if (clockHz >= 4e6 && clockHz <= 48e6) return { kind: "hse", flashLatency: latency };
-  throw new EngineError("clock-out-of-range", `stm32g031: no clock set-up for ${clockHz} Hz`);
+  throw new EngineError("clock-out-of-range", `stm32g031: no clock set-up for ${clockHz} Hz from ${source}`);
 }
 
 export function stm32g031View(plan: BundlePlan): DeviceView {
@@ -102,7 +104,7 @@ export function stm32g031View(plan: BundlePlan): DeviceView {
       afr: portBit < 8 ? 0 : 1,
       afShift: (portBit % 8) * 4,
       modeShift: portBit * 2,
-      clock: stmClock(plan.clockHz),
+      clock: stmClock(plan.clockHz, plan.clockSource),
     },
   };
 }

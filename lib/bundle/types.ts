@@ -67,6 +67,7 @@ export interface BundlePlan {
   notes?: string[];
   jitterS?: number;
   clockAccuracyPpm?: number;
+  clockSource?: string;
 }
 
 export type { Stage, StageAnalysis };
