@@ -188,13 +188,19 @@ export function monteCarloSpread<P extends object>(
   if (!Number.isInteger(seed)) throw new EngineError("invalid-stage", "The seed must be an integer.", "seed");
   const list = entries(nominal, tolerances);
   const z = truncatedNormal(seededRandom(seed));
+  // All deviates first, sample-major, so the same seed gives the same numbers
+  // whatever the model does with them.
+  const k = list.length;
+  const dev = new Float64Array(samples * k);
+  for (let i = 0; i < dev.length; i++) dev[i] = z();
   const p = { ...nominal } as Record<string, unknown>;
   const period = new Float64Array(samples);
   const high = new Float64Array(samples);
   let ok = 0;
   for (let n = 0; n < samples; n++) {
-    for (const e of list) {
-      const d = z();
+    for (let j = 0; j < k; j++) {
+      const e = list[j];
+      const d = dev[n * k + j];
       p[e.key] = d < 0 ? e.base + ((e.base - e.low) * d) / 3 : e.base + ((e.high - e.base) * d) / 3;
     }
     const t = fn(p as P);

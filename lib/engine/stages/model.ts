@@ -13,7 +13,7 @@ export interface StageTiming {
 export interface ModelResult extends StageTiming {
   oscillates: boolean;
   /** error-level checks found while computing; empty when the stage runs */
-  checks: StageCheck[];
+  checks: readonly StageCheck[];
 }
 
 /** One exponential segment of the capacitor voltage: v(t) = toward + (from - toward) e^(-t/tau). */
@@ -43,14 +43,17 @@ export interface StageModel<S extends Stage> {
   segments(stage: S, result: ModelResult): { unit: "V" | "relative"; segments: RcSegment[] } | null;
 }
 
+/** Shared empty list: the fast path allocates nothing for checks. */
+export const NO_CHECKS: readonly StageCheck[] = Object.freeze([]);
+
 export const NO_OSCILLATION: StageTiming = { periodS: NaN, highS: NaN, lowS: NaN };
 
-export function stopped(checks: StageCheck[]): ModelResult {
+export function stopped(checks: readonly StageCheck[]): ModelResult {
   return { ...NO_OSCILLATION, oscillates: false, checks };
 }
 
 export function running(highS: number, lowS: number): ModelResult {
-  return { periodS: highS + lowS, highS, lowS, oscillates: true, checks: [] };
+  return { periodS: highS + lowS, highS, lowS, oscillates: true, checks: NO_CHECKS };
 }
 
 export const fmt = (value: number, unit: EngUnit) => formatEng(value, unit, 3);

@@ -4,7 +4,7 @@
 // (striking / extinction voltage), DIAC/SIDAC and light-coupled trip stages.
 // Source: first-order RC step response, any circuit-analysis textbook
 // (e.g. Hayt & Kemmerly, Engineering Circuit Analysis, first-order circuits).
-import type { StageCheck, ThresholdStage } from "../stage-types";
+import type { ThresholdStage } from "../stage-types";
 import {
   errorCheck,
   fmt,
@@ -41,37 +41,33 @@ export function relaxation(
   x: RelaxationInput,
   fields = { supply: "supplyV", r: "timingR", peak: "peakV", valley: "valleyV", discharge: "dischargeR" },
 ): ModelResult {
-  const checks: StageCheck[] = [];
   if (x.peakV <= x.valleyV) {
-    checks.push(
+    return stopped([
       errorCheck(
         "trip-below-release",
         `The trip voltage (${fmt(x.peakV, "V")}) is not above the release voltage (${fmt(x.valleyV, "V")}): the element never switches off and on in turn. Check the device data.`,
         fields.peak,
       ),
-    );
-    return stopped(checks);
+    ]);
   }
   if (x.supplyV <= x.peakV) {
-    checks.push(
+    return stopped([
       errorCheck(
         "supply-below-trip",
         `The capacitor can charge at most to the supply (${fmt(x.supplyV, "V")}), which does not exceed the trip voltage (${fmt(x.peakV, "V")}): the stage never fires. Raise the supply or lower the trip voltage.`,
         fields.supply,
       ),
-    );
-    return stopped(checks);
+    ]);
   }
   const { vinf, tau } = dischargeEndpoint(x);
   if (vinf >= x.valleyV) {
-    checks.push(
+    return stopped([
       errorCheck(
         "latches",
         `With the timing resistor still feeding, the discharge settles at ${fmt(vinf, "V")}, not below the release voltage (${fmt(x.valleyV, "V")}): the element stays on (latch-up). Make the timing resistor larger or the discharge resistor smaller.`,
         fields.r,
       ),
-    );
-    return stopped(checks);
+    ]);
   }
   const lowS = x.r * x.c * Math.log((x.supplyV - x.valleyV) / (x.supplyV - x.peakV));
   const highS = tau * Math.log((x.peakV - vinf) / (x.valleyV - vinf));

@@ -6,7 +6,7 @@
 // UJT section (T ~= RC ln(1/(1 - eta)) when Vs >> VD, Vv; from memory).
 import type { StageCheck, UjtStage } from "../stage-types";
 import { relaxation, relaxationSegments, type RelaxationInput } from "./threshold";
-import { errorCheck, fmt, stopped, type ModelResult, type StageModel } from "./model";
+import { NO_CHECKS, errorCheck, fmt, stopped, type ModelResult, type StageModel } from "./model";
 
 export const UJT_DEFAULTS = {
   diodeV: 0.6,
@@ -44,9 +44,11 @@ export function ujtPeakV(s: UjtStage): number {
 export function loadLineChecks(
   x: { supplyV: number; r: number; peakV: number; valleyV: number; peakA: number; valleyA: number },
   device: string,
-): StageCheck[] {
+): readonly StageCheck[] {
   const rMin = (x.supplyV - x.valleyV) / x.valleyA;
   const rMax = (x.supplyV - x.peakV) / x.peakA;
+  if (x.r > rMin && x.r < rMax) return NO_CHECKS;
+  // Messages are built only on failure: this runs for every Monte Carlo sample.
   const range = `${fmt(rMin, "Ω")} to ${fmt(rMax, "Ω")}`;
   if (x.r <= rMin) {
     return [
@@ -57,16 +59,13 @@ export function loadLineChecks(
       ),
     ];
   }
-  if (x.r >= rMax) {
-    return [
-      errorCheck(
-        "load-line-no-fire",
-        `Timing resistor ${fmt(x.r, "Ω")} cannot supply the peak-point current (${fmt(x.peakA, "A")}) at the trip voltage: the ${device} never fires. Use a timing resistor between ${range}.`,
-        "timingR",
-      ),
-    ];
-  }
-  return [];
+  return [
+    errorCheck(
+      "load-line-no-fire",
+      `Timing resistor ${fmt(x.r, "Ω")} cannot supply the peak-point current (${fmt(x.peakA, "A")}) at the trip voltage: the ${device} never fires. Use a timing resistor between ${range}.`,
+      "timingR",
+    ),
+  ];
 }
 
 export function ujtInput(s: UjtStage): RelaxationInput {

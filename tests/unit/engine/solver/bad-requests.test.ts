@@ -29,7 +29,8 @@ describe("bad plan requests", () => {
   });
 
   it("NaN, Infinity, zero and negative numbers", () => {
-    for (const v of [NaN, Infinity, -Infinity, 0, -1, "1e-3", undefined]) refuse({ periodS: v }, "invalid-request", "periodS");
+    for (const v of [NaN, Infinity, -Infinity, 0, -1, "1e-3", undefined])
+      refuse({ periodS: v }, "invalid-request", "periodS");
     for (const v of [NaN, Infinity, 0, -5]) refuse({ clockHz: v }, "invalid-request", "clockHz");
     refuse({ highS: NaN }, "invalid-request", "highS");
     refuse({ mode: "burst" }, "invalid-request", "mode");

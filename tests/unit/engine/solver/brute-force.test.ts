@@ -6,7 +6,8 @@ import { describe, expect, it } from "vitest";
 import { DEVICES, type TimerSpec } from "@/lib/engine/devices";
 import { bestHardware, bestIsr, bruteForceBestIsr, bruteForceBestPeriod } from "@/lib/engine/solver";
 
-const timer = (device: string, name: string) => DEVICES.find((d) => d.id === device)!.timers.find((t) => t.name === name)!;
+const timer = (device: string, name: string) =>
+  DEVICES.find((d) => d.id === device)!.timers.find((t) => t.name === name)!;
 
 function agree(t: TimerSpec, mode: "pwm" | "toggle", clockHz: number, periodS: number) {
   const fast = bestHardware(t, mode, periodS * clockHz * t.dividerQuantum)!;
@@ -43,16 +44,25 @@ describe("hardware modes: fast solver equals exhaustive enumeration", () => {
   for (const [dev, name, mode, hz] of small)
     it(`${dev} ${name} ${mode} (full space)`, () => {
       const t = timer(dev, name);
-      fc.assert(fc.property(period(t, mode, hz), (p) => agree(t, mode, hz, p)), { numRuns: t.bits > 8 ? 15 : 60, seed: 4 });
+      fc.assert(
+        fc.property(period(t, mode, hz), (p) => agree(t, mode, hz, p)),
+        { numRuns: t.bits > 8 ? 15 : 60, seed: 4 },
+      );
     });
 
   it("stm32g031 TIM3 on sampled prescalers, TIM2 on a sampled counter range", () => {
     const t3 = timer("stm32g031", "TIM3");
     const sampled: TimerSpec = { ...t3, dividers: [1, 2, 3, 7, 10, 64, 99, 1000, 4096, 65535, 65536] };
-    fc.assert(fc.property(period(sampled, "pwm", 64e6), (p) => agree(sampled, "pwm", 64e6, p)), { numRuns: 15, seed: 5 });
+    fc.assert(
+      fc.property(period(sampled, "pwm", 64e6), (p) => agree(sampled, "pwm", 64e6, p)),
+      { numRuns: 15, seed: 5 },
+    );
     const t2 = timer("stm32g031", "TIM2");
     const narrow: TimerSpec = { ...t2, dividers: [1, 5, 16, 333], counts: { pwm: { min: 2, max: 200000 } } };
-    fc.assert(fc.property(period(narrow, "pwm", 48e6), (p) => agree(narrow, "pwm", 48e6, p)), { numRuns: 10, seed: 6 });
+    fc.assert(
+      fc.property(period(narrow, "pwm", 48e6), (p) => agree(narrow, "pwm", 48e6, p)),
+      { numRuns: 10, seed: 6 },
+    );
   });
 
   it("rp2040 slice on sampled fractional dividers, both edge-aligned and phase-correct", () => {
@@ -62,7 +72,10 @@ describe("hardware modes: fast solver equals exhaustive enumeration", () => {
       dividers: [1, 1.0625, 2.5, 9.8125, 100, 195.3125, 255.9375],
       counts: { pwm: { min: 2, max: 20000 } },
     };
-    fc.assert(fc.property(period(sampled, "pwm", 125e6), (p) => agree(sampled, "pwm", 125e6, p)), { numRuns: 20, seed: 7 });
+    fc.assert(
+      fc.property(period(sampled, "pwm", 125e6), (p) => agree(sampled, "pwm", 125e6, p)),
+      { numRuns: 20, seed: 7 },
+    );
   });
 });
 
@@ -77,7 +90,10 @@ describe("interrupt plans: factorisation search equals exhaustive enumeration", 
     it(`${dev} ${name}`, () => {
       const t = timer(dev, name);
       const target = fc
-        .tuple(fc.double({ min: Math.log(2e-3), max: Math.log(20), noNaN: true }), fc.double({ min: 0.01, max: 0.99, noNaN: true }))
+        .tuple(
+          fc.double({ min: Math.log(2e-3), max: Math.log(20), noNaN: true }),
+          fc.double({ min: 0.01, max: 0.99, noNaN: true }),
+        )
         .map(([lp, duty]) => [Math.exp(lp), Math.exp(lp) * duty] as const);
       fc.assert(
         fc.property(target, ([p, h]) => {

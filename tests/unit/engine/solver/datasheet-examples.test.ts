@@ -1,13 +1,21 @@
 import { describe, expect, it } from "vitest";
 import { planTarget } from "@/lib/engine";
 
-const near = (a: number, b: number, rel = 1e-12) => expect(Math.abs(a - b)).toBeLessThanOrEqual(rel * Math.abs(b));
+const near = (a: number, b: number, rel = 1e-12) =>
+  expect(Math.abs(a - b)).toBeLessThanOrEqual(rel * Math.abs(b));
 
 describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
   it("prescaler 64, OCR1A = 249 at 16 MHz is a 1 kHz compare rate", () => {
     // 16 MHz / (64 * (1 + 249)) = 1000 Hz: each compare match (CTC mode 4) is 1 ms apart, so the
     // OC1A toggle output has f = f_clk / (2 N (1 + OCR1A)) = 500 Hz (datasheet CTC frequency formula).
-    const p = planTarget({ device: "atmega328p", clockHz: 16e6, periodS: 2e-3, highS: 1e-3, mode: "toggle", timer: "TIMER1" });
+    const p = planTarget({
+      device: "atmega328p",
+      clockHz: 16e6,
+      periodS: 2e-3,
+      highS: 1e-3,
+      mode: "toggle",
+      timer: "TIMER1",
+    });
     expect(p.periodErrorPpm).toBe(0);
     near(p.periodS, (2 * p.divider * (1 + p.registers.OCR1A)) / 16e6);
     // most counts per period wins: prescaler 1 with OCR1A = 15999 beats 64 x 250
@@ -18,7 +26,14 @@ describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
 
   it("8-bit Timer0 reaches 1 kHz compare rate only as prescaler 64, OCR0A = 249", () => {
     // 16 MHz / (64 * (1 + 249)) = 1000 compare matches per second (datasheet CTC formula, f_OC0A = 500 Hz).
-    const p = planTarget({ device: "atmega328p", clockHz: 16e6, periodS: 2e-3, highS: 1e-3, mode: "toggle", timer: "TIMER0" });
+    const p = planTarget({
+      device: "atmega328p",
+      clockHz: 16e6,
+      periodS: 2e-3,
+      highS: 1e-3,
+      mode: "toggle",
+      timer: "TIMER0",
+    });
     expect([p.divider, p.registers.OCR0A]).toEqual([64, 249]);
     expect(p.registers.TCCR0B & 7).toBe(3); // CS01 | CS00: clk/64
     expect(p.registers.TCCR0A).toBe(0x42); // COM0A0 | WGM01
@@ -27,7 +42,14 @@ describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
 
   it("isr plan at 1 kHz interrupt rate uses the CTC compare with OCIE1A", () => {
     // 1 s period, 0.5 s high: 1000 interrupts of 1 ms; datasheet example 16 MHz / 64 / 250 = 1 kHz.
-    const p = planTarget({ device: "atmega328p", clockHz: 16e6, periodS: 1, highS: 0.5, mode: "isr", timer: "TIMER1" });
+    const p = planTarget({
+      device: "atmega328p",
+      clockHz: 16e6,
+      periodS: 1,
+      highS: 0.5,
+      mode: "isr",
+      timer: "TIMER1",
+    });
     expect(p.mode).toBe("isr");
     expect(p.periodErrorPpm).toBe(0);
     expect(p.highErrorPpm).toBe(0);
@@ -39,7 +61,14 @@ describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
 
   it("fast PWM mode 14: f = f_clk / (N (1 + TOP)), high for OCR1A + 1 counts", () => {
     // 16 MHz / (8 * (1 + 39999)) = 50 Hz (datasheet fast PWM frequency formula); 1.5 ms high.
-    const p = planTarget({ device: "atmega328p", clockHz: 16e6, periodS: 20e-3, highS: 1.5e-3, mode: "pwm", timer: "TIMER1" });
+    const p = planTarget({
+      device: "atmega328p",
+      clockHz: 16e6,
+      periodS: 20e-3,
+      highS: 1.5e-3,
+      mode: "pwm",
+      timer: "TIMER1",
+    });
     expect(p.registers.TCCR1A).toBe(0x82); // COM1A1 (bit 7) | WGM11 (bit 1)
     expect(p.registers.TCCR1B & 0x18).toBe(0x18); // WGM13 | WGM12
     near(1 / p.periodS, 16e6 / (p.divider * (1 + p.registers.ICR1)));
@@ -52,7 +81,13 @@ describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
 
 describe("STM32G031 TIM3 (RM0444 update event rate f_TIM / ((PSC+1)(ARR+1)))", () => {
   it("64 MHz, 1 kHz PWM with 25 % duty in PWM mode 1", () => {
-    const p = planTarget({ device: "stm32g031", clockHz: 64e6, periodS: 1e-3, highS: 0.25e-3, timer: "TIM3" });
+    const p = planTarget({
+      device: "stm32g031",
+      clockHz: 64e6,
+      periodS: 1e-3,
+      highS: 0.25e-3,
+      timer: "TIM3",
+    });
     near(1 / p.periodS, 64e6 / ((p.registers.PSC + 1) * (p.registers.ARR + 1)));
     expect(p.periodErrorPpm).toBe(0);
     // PWM mode 1 upcounting: active while CNT < CCR1
