@@ -143,9 +143,9 @@ describe("register values from the datasheet bit positions", () => {
   });
 
   it("MSP430 TACTL: TASSEL_2 = 0x0200, ID_3 = 0x00C0, MC_1 = 0x0010 (SLAU144 Timer_A registers)", () => {
-    // 0.1 s at 16 MHz = 1.6e6 cycles: needs ID = 8 (TACCR0 + 1 = 200000 is too large for /1, /2, /4)
-    const p = planTarget({ device: "msp430g2553", clockHz: 16e6, periodS: 0.1, highS: 0.01 });
+    // 30 ms at 16 MHz = 480000 cycles: only ID = 8 fits 16 bits (TACCR0 + 1 = 60000)
+    const p = planTarget({ device: "msp430g2553", clockHz: 16e6, periodS: 0.03, highS: 0.01 });
     expect(p.registers.TACTL).toBe(0x0200 | 0x00c0 | 0x0010);
-    expect(p.registers.TACCR0).toBe(199999 / 1 > 65535 ? 49999 : -1);
+    expect(p.registers.TACCR0).toBe(59999);
   });
 });
