@@ -1,7 +1,4 @@
 // Debian's chromium driven by playwright-core (never a downloaded browser).
-import { mkdtempSync } from "node:fs";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { BASE_URL } from "./server";
 
@@ -19,7 +16,8 @@ const ARGS = [
 export async function launch(): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
-    args: [...ARGS, `--user-data-dir=${mkdtempSync(path.join(tmpdir(), "cg-chromium-"))}`],
+    // playwright gives each launch a fresh temporary profile of its own.
+    args: ARGS,
   });
 }
 

@@ -29,7 +29,7 @@ export function SignInForm() {
   }
 
   return (
-    <form onSubmit={onSubmit} className="panel mt-6 space-y-4" noValidate>
+    <form method="post" onSubmit={onSubmit} className="panel mt-6 space-y-4" noValidate>
       <div>
         <label htmlFor="email" className="field-label">
           E-mail
