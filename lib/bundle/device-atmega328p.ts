@@ -94,7 +94,7 @@ export function atmega328pView(plan: BundlePlan): DeviceView {
           ? avrTimer8(plan, { n: 2, cs: CS2, timsk: "TIMSK2", ocieBit: 1 })
           : null;
   if (!r) throw new EngineError("unknown-timer", `atmega328p: no timer ${plan.timer}`);
-  const pin = avrPin(plan, "ATmega328P");
+  const pin = avrPin(plan);
   return {
     writes: r.writes,
     pin,

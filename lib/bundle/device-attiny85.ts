@@ -82,7 +82,7 @@ export function attiny85View(plan: BundlePlan): DeviceView {
   const t = plan.timer.toUpperCase();
   const r = t === "TIMER0" ? timer0(plan) : t === "TIMER1" ? timer1(plan) : null;
   if (!r) throw new EngineError("unknown-timer", `attiny85: no timer ${plan.timer}`);
-  const pin = avrPin(plan, "ATtiny85");
+  const pin = avrPin(plan);
   return {
     writes: r.writes,
     pin,

@@ -20,18 +20,31 @@ export interface StmClock {
   flashLatency: number;
 }
 
-/** How the reset clock tree reaches clockHz (RM0444 RCC chapter). */
-export function stmClock(clockHz: number): StmClock {
+/** 8 MHz HSE crystal behind the PLL (common practice, no source). */
+export const HSE_PLL_CRYSTAL_HZ = 8e6;
+
+/** How the clock tree reaches clockHz from the plan's clock source (RM0444 RCC chapter). */
+export function stmClock(clockHz: number, source = "hsi16"): StmClock {
   const latency = clockHz > 48e6 ? 2 : clockHz > 24e6 ? 1 : 0;
-  for (let k = 0; k <= 7; k++)
-    if (HSI16 / 2 ** k === clockHz) return { kind: "hsi", hsidiv: k, flashLatency: latency };
-  for (let r = 2; r <= 8; r++)
-    for (let n = 8; n <= 86; n++) {
-      const vco = HSI16 * n;
-      if (vco >= 64e6 && vco <= 344e6 && vco / r === clockHz && clockHz <= 64e6)
-        return { kind: "pll", pllN: n, pllR: r, flashLatency: latency };
+  const hsi = source.startsWith("hsi");
+  if (hsi) {
+    for (let k = 0; k <= 7; k++) {
+      if (HSI16 / 2 ** k === clockHz) return { kind: "hsi", hsidiv: k, flashLatency: latency };
     }
-  if (clockHz >= 4e6 && clockHz <= 48e6) return { kind: "hse", flashLatency: latency };
+  }
+  if (source === "hse") {
+    if (clockHz >= 4e6 && clockHz <= 48e6) return { kind: "hse", flashLatency: latency };
+  } else if (source !== "lse") {
+    const fin = hsi ? HSI16 : HSE_PLL_CRYSTAL_HZ;
+    for (let r = 2; r <= 8; r++) {
+      for (let n = 8; n <= 86; n++) {
+        const vco = fin * n;
+        if (vco >= 64e6 && vco <= 344e6 && vco / r === clockHz && clockHz <= 64e6) {
+          return { kind: "pll", pllN: n, pllR: r, pllFromHse: !hsi, flashLatency: latency };
+        }
+      }
+    }
+  }
   throw new EngineError("clock-out-of-range", `stm32g031: no clock set-up for ${clockHz} Hz from ${source}`);
 }
 

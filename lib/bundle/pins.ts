@@ -46,7 +46,7 @@ export function pinFacts(plan: BundlePlan, signal = "TIMING_OUT"): PinFacts {
 }
 
 /** Port letter and bit of an AVR/PIC-style port name such as "PB1" or "RA2". */
-export function avrPin(plan: BundlePlan, _name: string): PinFacts {
+export function avrPin(plan: BundlePlan): PinFacts {
   const facts = pinFacts(plan);
   if (!/^P[A-D][0-7]$/.test(facts.port)) {
     throw new Error(`${plan.device}: unexpected port name ${facts.port}`);
