@@ -1,1 +1,3 @@
-export default { plugins: { tailwindcss: {}, autoprefixer: {} } };
+const config = { plugins: { tailwindcss: {}, autoprefixer: {} } };
+
+export default config;
