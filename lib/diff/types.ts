@@ -1,0 +1,55 @@
+// Shapes of a revision comparison, shared by the API (JSON), the patch text
+// and the compare page.
+
+/** One number (or setting) that differs between two revisions. */
+export type NumberChange = {
+  /** Stable machine key, e.g. "stage.timingR", "target1.registers.OCR1A". */
+  key: string;
+  /** Plain label for people, e.g. "Stage timing R", "Target 1 OCR1A". */
+  what: string;
+  /** Display text with units; "—" when absent on that side. */
+  before: string;
+  after: string;
+  /** Raw values as stored (null when absent). */
+  beforeValue: number | string | boolean | null;
+  afterValue: number | string | boolean | null;
+};
+
+export type DiffLine =
+  | { kind: "context"; text: string; oldLine: number; newLine: number }
+  | { kind: "removed"; text: string; oldLine: number }
+  | { kind: "added"; text: string; newLine: number };
+
+/** A run of unchanged lines left out of the view. Lines are 1-based, inclusive. */
+export type FoldRow = { kind: "fold"; count: number; oldFrom: number; newFrom: number };
+
+export type DiffRow = DiffLine | FoldRow;
+
+export type FileStatus = "added" | "removed" | "modified" | "unchanged";
+
+export type FileDiff = {
+  path: string;
+  status: FileStatus;
+  added: number;
+  removed: number;
+  /** Changed lines with context; unchanged stretches between them folded. */
+  rows: DiffRow[];
+};
+
+export type RevisionRef = { id: number; number: number; state: string };
+
+export type RevisionComparison = {
+  retrofitId: number;
+  a: RevisionRef;
+  b: RevisionRef;
+  numbers: NumberChange[];
+  files: FileDiff[];
+};
+
+/** What the comparison reads from a revision row. */
+export type RevisionSnapshot = {
+  spec: unknown;
+  analysis: unknown;
+  plans: unknown;
+  files: { path: string; content: string }[];
+};
