@@ -84,7 +84,21 @@ export function flattenRevision(rev: Pick<RevisionSnapshot, "spec" | "analysis" 
   flattenStage(flat, obj(obj(rev.spec).stage));
   flattenAnalysis(flat, obj(rev.analysis));
   const plans = Array.isArray(rev.plans) ? rev.plans : [];
-  plans.forEach((plan, i) => flattenPlan(flat, obj(plan), i + 1));
+  plans.forEach((entry, i) => {
+    // Stored revisions keep { target, plan, budget } per target; a bare plan is accepted too.
+    const e = obj(entry);
+    const plan = "plan" in e ? obj(e.plan) : e;
+    flattenPlan(flat, plan, i + 1);
+    const target = obj(e.target);
+    put(
+      flat,
+      `target${i + 1}.requiredTolerancePct`,
+      `Target ${i + 1} required tolerance (%)`,
+      target.requiredTolerancePct,
+      "",
+      "plain",
+    );
+  });
   return flat;
 }
 

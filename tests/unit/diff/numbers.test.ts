@@ -17,7 +17,17 @@ function snapshot(rb: number) {
     highS: analysis.highS,
     mode: "pwm",
   });
-  return { spec: { stage, targets: [] }, analysis, plans: [plan] };
+  // Stored shape of revisions.plans (lib/revisions/types.ts StoredPlan).
+  const target = {
+    device: "atmega328p",
+    clockSource: "crystal",
+    clockHz: 16e6,
+    clockAccuracyPpm: null,
+    mode: "pwm",
+    timer: null,
+    requiredTolerancePct: 2,
+  };
+  return { spec: { stage, targets: [] }, analysis, plans: [{ target, plan, budget: null }] };
 }
 
 describe("changedNumbers", () => {
