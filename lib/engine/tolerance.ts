@@ -34,31 +34,25 @@ export function seededRandom(seed: number): () => number {
 }
 
 /**
- * Standard normal deviates truncated to |z| <= 3 (Marsaglia polar method: only
- * log and sqrt, so results do not depend on an engine's sin/cos).
+ * Fills `out` with standard normal deviates truncated to |z| <= 3 (Marsaglia
+ * polar method: only log and sqrt, so results do not depend on an engine's
+ * sin/cos). Both deviates of a pair are used, in order.
  */
-export function truncatedNormal(random: () => number): () => number {
-  let spare = NaN;
-  return () => {
-    for (;;) {
-      let z: number;
-      if (!Number.isNaN(spare)) {
-        z = spare;
-        spare = NaN;
-      } else {
-        let u: number, v: number, s: number;
-        do {
-          u = 2 * random() - 1;
-          v = 2 * random() - 1;
-          s = u * u + v * v;
-        } while (s >= 1 || s === 0);
-        const k = Math.sqrt((-2 * Math.log(s)) / s);
-        spare = v * k;
-        z = u * k;
-      }
-      if (z >= -3 && z <= 3) return z;
-    }
-  };
+export function fillTruncatedNormal(random: () => number, out: Float64Array): Float64Array {
+  let i = 0;
+  const n = out.length;
+  while (i < n) {
+    const u = 2 * random() - 1;
+    const v = 2 * random() - 1;
+    const s = u * u + v * v;
+    if (s >= 1 || s === 0) continue;
+    const k = Math.sqrt((-2 * Math.log(s)) / s);
+    const a = u * k;
+    const b = v * k;
+    if (a >= -3 && a <= 3) out[i++] = a;
+    if (i < n && b >= -3 && b <= 3) out[i++] = b;
+  }
+  return out;
 }
 
 function entries<P>(nominal: P, tolerances: Tolerances) {
@@ -187,12 +181,10 @@ export function monteCarloSpread<P extends object>(
   }
   if (!Number.isInteger(seed)) throw new EngineError("invalid-stage", "The seed must be an integer.", "seed");
   const list = entries(nominal, tolerances);
-  const z = truncatedNormal(seededRandom(seed));
   // All deviates first, sample-major, so the same seed gives the same numbers
   // whatever the model does with them.
   const k = list.length;
-  const dev = new Float64Array(samples * k);
-  for (let i = 0; i < dev.length; i++) dev[i] = z();
+  const dev = fillTruncatedNormal(seededRandom(seed), new Float64Array(samples * k));
   const p = { ...nominal } as Record<string, unknown>;
   const period = new Float64Array(samples);
   const high = new Float64Array(samples);

@@ -46,8 +46,8 @@ const PREFIXES = "TGMkKmuµμnpf";
 const PLAIN_RE = new RegExp(
   `^(${NUMBER})\\s*([${PREFIXES}]?)\\s*(\u03a9|\u2126|ohms?|Ohm|F|V|A|s|Hz|%|ppm)?$`,
 );
-// Letter-as-decimal-point code: 4k7, 2M2, R47, 4R7, 4u7, 1n5, p68.
-const CODE_RE = new RegExp(`^([+-]?)(\\d*)([${PREFIXES}Rr])(\\d+)\\s*(\u03a9|\u2126|ohms?|Ohm|F|V|A|s|Hz)?$`);
+// Letter-as-decimal-point code: 4k7, 2M2, R47, 4R7, 47R, 4u7, 1n5, p68.
+const CODE_RE = new RegExp(`^([+-]?)(\\d*)([${PREFIXES}Rr])(\\d*)\\s*(\u03a9|\u2126|ohms?|Ohm|F|V|A|s|Hz)?$`);
 
 // Scales by a power of ten in decimal, so "100n" is exactly the double nearest
 // 1e-7 (100 * 1e-9 would be 1.0000000000000001e-7).
@@ -81,12 +81,13 @@ export function parseEng(text: string, expect?: EngUnit): number {
     value = scaleDecimal(num, PREFIX[prefix]);
   } else if (code) {
     const [, sign, whole, letter, frac, unitWord] = code;
+    if (whole === "" && frac === "") fail(text, `"${letter}" needs digits`);
     if (whole === "" && !/[Rr]/.test(letter) && !/[pnuµμ]/.test(letter)) {
       fail(text, `a code needs digits before "${letter}"`);
     }
     unit = unitWord ? UNIT_WORDS[unitWord] : undefined;
     if (/[Rr]/.test(letter) && unit && unit !== "Ω") fail(text, `"R" codes are resistances`);
-    value = scaleDecimal(`${sign}${whole || "0"}.${frac}`, CODE_LETTER[letter]);
+    value = scaleDecimal(`${sign}${whole || "0"}.${frac || "0"}`, CODE_LETTER[letter]);
   } else {
     fail(text, "expected a number with an optional SI prefix and unit, e.g. 4k7, 100 nF, 2.34 ms");
   }
