@@ -1,6 +1,7 @@
 // Splits decoded text chunks into lines without ever holding an array of
-// lines: each complete line goes straight to the handler, only the unfinished
-// tail of the last chunk is kept.
+// lines: each complete line goes straight to the handler as a range of the
+// chunk text (no substring per line), only the unfinished tail of the last
+// chunk is kept.
 
 import { CaptureError } from "./errors";
 
@@ -18,7 +19,7 @@ export class LineSplitter {
   /** Number of lines handed to the handler so far. */
   lines = 0;
 
-  constructor(private readonly onLine: (line: string, lineNo: number) => void) {}
+  constructor(private readonly onLine: (text: string, start: number, end: number, lineNo: number) => void) {}
 
   push(chunk: string): void {
     let text = this.carry + chunk;
@@ -67,7 +68,7 @@ export class LineSplitter {
       );
     }
     this.lines++;
-    this.onLine(text.slice(start, end), this.lines);
+    this.onLine(text, start, end, this.lines);
   }
 
   /** Names the line holding the first control byte of the new chunk. */

@@ -4,6 +4,7 @@
 
 import { detectLayout, type Layout } from "./detect-format";
 import { CaptureError } from "./errors";
+import { fastNumber } from "./fast-number";
 import { readNumber } from "./fields";
 import { LineSplitter } from "./line-splitter";
 import { MAX_CAPTURE_BYTES, textChunks } from "./text-source";
@@ -41,20 +42,24 @@ class RowReader {
   private maxStep = 0;
   private firstLine = 0;
   private readonly trailing: RegExp;
+  private readonly decimalMark: number;
 
   constructor(private readonly layout: Layout) {
     this.trailing = layout.delimiter === "\t" ? /^\s*$/ : new RegExp(`^[\\s${layout.delimiter}]*$`);
+    this.decimalMark = layout.decimalComma ? 44 : 46;
   }
 
-  row(line: string, lineNo: number): void {
-    if (line.length === 0 || (line.charCodeAt(0) <= 32 && line.trim() === "")) return;
+  /** Reads the row text[start, end). */
+  row(text: string, start: number, end: number, lineNo: number): void {
+    if (start === end) return;
+    if (text.charCodeAt(start) <= 32 && text.slice(start, end).trim() === "") return;
     const { delimiter, fieldCount, timeIndex, measuredIndex } = this.layout;
-    let pos = 0;
+    let pos = start;
     let tRaw = 0;
     let vRaw = 0;
     for (let c = 0; c < fieldCount; c++) {
-      let end = line.indexOf(delimiter, pos);
-      if (end === -1) {
+      let fieldEnd = text.indexOf(delimiter, pos);
+      if (fieldEnd === -1 || fieldEnd > end) {
         if (c < fieldCount - 1) {
           throw new CaptureError(
             "column-count",
@@ -62,14 +67,15 @@ class RowReader {
             `${c + 1} value(s) where the data has ${fieldCount} columns`,
           );
         }
-        end = line.length;
+        fieldEnd = end;
       }
-      const x = this.number(line.slice(pos, end), c, lineNo);
+      let x = fastNumber(text, pos, fieldEnd, this.decimalMark);
+      if (x !== x) x = this.number(text.slice(pos, fieldEnd), c, lineNo);
       if (c === timeIndex) tRaw = x;
       if (c === measuredIndex) vRaw = x;
-      pos = end + 1;
+      pos = fieldEnd + 1;
     }
-    if (pos < line.length && !this.trailing.test(line.slice(pos))) {
+    if (pos < end && !this.trailing.test(text.slice(pos, end))) {
       throw new CaptureError(
         "column-count",
         lineNo,
@@ -167,14 +173,16 @@ export async function parseCapture(
   const startRows = (): RowReader => {
     const layout = detectLayout(window, options.voltageColumn ?? 0);
     const r = new RowReader(layout);
-    for (let i = layout.dataStart; i < window.length; i++) r.row(window[i], i + 1);
+    for (let i = layout.dataStart; i < window.length; i++) {
+      r.row(window[i], 0, window[i].length, i + 1);
+    }
     window.length = 0;
     return r;
   };
-  const splitter = new LineSplitter((line, lineNo) => {
-    if (reader) reader.row(line, lineNo);
+  const splitter = new LineSplitter((text, start, end, lineNo) => {
+    if (reader) reader.row(text, start, end, lineNo);
     else {
-      window.push(line);
+      window.push(text.slice(start, end));
       if (window.length >= WINDOW_LINES) reader = startRows();
     }
   });

@@ -10,8 +10,11 @@ export const MAX_CAPTURE_BYTES = 64 * 1024 * 1024;
 // the line splitter sees chunks of a bounded size.
 const STRING_SLICE = 1 << 20;
 
+const NON_ASCII = /[^\u0000-\u007f]/;
+
 /** UTF-8 length of a string without encoding it. */
 export function utf8Length(s: string): number {
+  if (!NON_ASCII.test(s)) return s.length;
   let bytes = 0;
   for (let i = 0; i < s.length; i++) {
     const c = s.charCodeAt(i);
