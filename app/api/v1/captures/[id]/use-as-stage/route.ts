@@ -1,0 +1,91 @@
+// POST: make a capture's measurement the retrofit's stage ("measured" kind:
+// mean period and mean pulse duration), keeping the link to the capture.
+import { eq, sql } from "drizzle-orm";
+import { z } from "zod";
+import { db } from "@/db/client";
+import { captures, retrofits, stages } from "@/db/schema";
+import { ApiError } from "@/lib/api/errors";
+import { apiRoute, parseId } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit";
+import { requireUser } from "@/lib/auth/guard";
+import { EDIT } from "@/lib/auth/roles";
+import type { CaptureMeasurement } from "@/lib/capture";
+import { analyzeStage } from "@/lib/engine";
+import { loadReadableCapture } from "@/lib/field/captures";
+import { getRetrofit } from "@/lib/field/queries";
+
+const bodySchema = z.object({ retrofitId: z.number().int().positive().optional() }).strict();
+
+/** The body may be empty (the capture already names its retrofit). */
+async function optionalJson(req: Request): Promise<unknown> {
+  const text = (await req.text()).trim();
+  if (!text) return {};
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new ApiError("bad_request", "The request body is not valid JSON.");
+  }
+}
+
+export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
+  const id = parseId((await ctx.params).id, "Capture");
+  const body = bodySchema.parse(await optionalJson(req));
+  const user = await requireUser({ roles: EDIT, req });
+  const capture = await loadReadableCapture({ id, user });
+
+  const retrofitId = body.retrofitId ?? capture.retrofitId;
+  if (retrofitId === null) {
+    throw new ApiError("bad_request", "Say which retrofit the stage is for.", {
+      retrofitId: "Choose a retrofit.",
+    });
+  }
+  if (capture.retrofitId !== null && capture.retrofitId !== retrofitId) {
+    throw new ApiError(
+      "conflict",
+      `This capture belongs to retrofit ${capture.retrofitId}; upload it again for another one.`,
+    );
+  }
+  const retrofit = await getRetrofit({ id: retrofitId });
+  if (!retrofit) throw new ApiError("not_found", "Retrofit was not found.");
+  if (retrofit.archivedAt)
+    throw new ApiError("conflict", "The retrofit is archived; restore it before changing its stage.");
+
+  const m = capture.measurement as CaptureMeasurement;
+  const stage = { kind: "measured" as const, periodS: m.periodS.mean, highS: m.highS.mean };
+  analyzeStage(stage); // a measurement the engine cannot use is a 422, not a broken stage
+
+  await db.transaction(async (tx) => {
+    const [previous] = await tx
+      .select({ kind: stages.kind })
+      .from(stages)
+      .where(eq(stages.retrofitId, retrofitId));
+    await tx
+      .insert(stages)
+      .values({ retrofitId, kind: stage.kind, values: stage, captureId: id })
+      .onConflictDoUpdate({
+        target: stages.retrofitId,
+        set: { kind: stage.kind, values: stage, captureId: id, updatedAt: sql`now()` },
+      });
+    await tx
+      .update(retrofits)
+      .set({ updatedAt: sql`now()` })
+      .where(eq(retrofits.id, retrofitId));
+    if (capture.retrofitId === null) await tx.update(captures).set({ retrofitId }).where(eq(captures.id, id));
+    await recordAudit(
+      {
+        actorId: user.id,
+        action: "stage.from-capture",
+        subjectType: "retrofit",
+        subjectId: retrofitId,
+        details: {
+          captureId: id,
+          periodS: stage.periodS,
+          highS: stage.highS,
+          previousKind: previous?.kind ?? null,
+        },
+      },
+      tx,
+    );
+  });
+  return Response.json({ stage: { retrofitId, captureId: id, ...stage } }, { status: 200 });
+});

@@ -1,0 +1,58 @@
+// POST: upload a scope capture (multipart "file" or a raw CSV/TSV body),
+// measured while it streams in and stored only once the measurement succeeds.
+// GET: captures the caller may read, optionally of one retrofit.
+import { ApiError } from "@/lib/api/errors";
+import { apiRoute, parseId } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit";
+import { requireUser } from "@/lib/auth/guard";
+import { CAPTURE } from "@/lib/auth/roles";
+import { env } from "@/lib/env";
+import { getCaptureRow, insertCapture, listCaptures, captureView } from "@/lib/field/captures";
+import { getRetrofit, technicianSeesRetrofit } from "@/lib/field/queries";
+import { readCaptureUpload } from "@/lib/field/upload";
+
+function retrofitParam(req: Request): number | null {
+  const raw = new URL(req.url).searchParams.get("retrofitId");
+  return raw ? parseId(raw, "Retrofit") : null;
+}
+
+export const POST = apiRoute(async (req) => {
+  const retrofitId = retrofitParam(req);
+  const user = await requireUser({ roles: CAPTURE, req });
+  if (retrofitId !== null) {
+    const retrofit = await getRetrofit({ id: retrofitId });
+    const visible =
+      retrofit && (user.role !== "technician" || (await technicianSeesRetrofit({ user, retrofitId })));
+    if (!visible) throw new ApiError("not_found", "Retrofit was not found.");
+  }
+  const upload = await readCaptureUpload(req, env().CAPTURE_MAX_BYTES);
+  const id = await insertCapture({
+    retrofitId,
+    uploadedBy: user.id,
+    fileName: upload.fileName,
+    content: upload.content,
+    sha256: upload.sha256,
+    measurement: upload.measurement,
+  });
+  await recordAudit({
+    actorId: user.id,
+    action: "capture.upload",
+    subjectType: "capture",
+    subjectId: id,
+    details: {
+      fileName: upload.fileName,
+      byteSize: upload.content.length,
+      sha256: upload.sha256,
+      retrofitId,
+    },
+  });
+  const row = await getCaptureRow({ id });
+  return Response.json({ capture: captureView(row!) }, { status: 201 });
+});
+
+export const GET = apiRoute(async (req) => {
+  const retrofitId = retrofitParam(req);
+  const user = await requireUser({ roles: ["admin", "engineer", "reviewer", "technician"], req });
+  const captures = await listCaptures({ user, retrofitId: retrofitId ?? undefined });
+  return Response.json({ captures });
+});

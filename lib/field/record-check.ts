@@ -1,0 +1,133 @@
+import "server-only";
+// Records a field check against an approved revision: the server computes the
+// checklist limits and the verdict; a failed check e-mails the revision's author.
+import { z } from "zod";
+import { db } from "@/db/client";
+import { ApiError } from "@/lib/api/errors";
+import { recordAudit } from "@/lib/audit";
+import type { AuthUser } from "@/lib/auth/guard";
+import type { CaptureMeasurement } from "@/lib/capture";
+import { formatEng } from "@/lib/engine";
+import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { assertCanReadRevision } from "@/lib/revisions/access";
+import { loadReadableCapture } from "./captures";
+import { judgeCheck, revisionPlans } from "./judge";
+import { getRevisionWithRetrofit, getUserEmail, insertFieldCheck, listFieldChecks } from "./queries";
+import type { CheckLine, FieldCheckView } from "./shapes";
+
+const seconds = z.number().finite().positive("Enter a time greater than zero.");
+
+export const fieldCheckSchema = z
+  .object({
+    revisionId: z.number().int().positive(),
+    target: z.number().int().min(0).default(0),
+    measuredPeriodS: seconds.optional(),
+    measuredHighS: seconds.optional(),
+    captureId: z.number().int().positive().optional(),
+    notes: z.string().max(4000).default(""),
+    signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
+  })
+  .strict();
+
+export type FieldCheckInput = z.infer<typeof fieldCheckSchema>;
+
+function lineText(l: CheckLine): string {
+  const f = (x: number) => (l.unit === "" ? formatEng(x, "%", 4) : formatEng(x, l.unit, 6));
+  return `${l.pass ? "pass" : "FAIL"}  ${l.label}: measured ${f(l.measured)}, limits ${f(l.min)} .. ${f(l.max)}`;
+}
+
+export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): Promise<FieldCheckView> {
+  const found = await getRevisionWithRetrofit({ id: input.revisionId });
+  if (!found) throw new ApiError("not_found", "Revision was not found.");
+  const { revision, retrofit } = found;
+  assertCanReadRevision(user, revision, retrofit);
+  if (revision.state !== "approved") {
+    throw new ApiError(
+      "conflict",
+      `r${revision.number} is ${revision.state.replace("_", " ")}; only approved revisions are checked in the field.`,
+    );
+  }
+
+  let periodS = input.measuredPeriodS;
+  let highS = input.measuredHighS;
+  if (input.captureId !== undefined) {
+    const capture = await loadReadableCapture({ id: input.captureId, user });
+    const m = capture.measurement as CaptureMeasurement;
+    periodS ??= m.periodS.mean;
+    highS ??= m.highS.mean;
+  }
+  if (periodS === undefined || highS === undefined) {
+    const fields: Record<string, string> = {};
+    if (periodS === undefined) fields.measuredPeriodS = "Enter the measured period, or pick a capture.";
+    if (highS === undefined) fields.measuredHighS = "Enter the measured high time, or pick a capture.";
+    throw new ApiError("bad_request", "The check needs a measured period and high time.", fields);
+  }
+
+  const plans = revisionPlans(revision.plans);
+  const plan = plans[input.target];
+  if (!plan) {
+    throw new ApiError(
+      "bad_request",
+      `r${revision.number} has ${plans.length} target(s); target ${input.target + 1} does not exist.`,
+      {
+        target: "Choose one of the revision's targets.",
+      },
+    );
+  }
+  const verdict = judgeCheck(plan, revision.analysis, { periodS, highS }, input.target);
+
+  const author = verdict.passed ? null : await getUserEmail({ id: revision.createdBy });
+  const id = await db.transaction(async (tx) => {
+    const row = await insertFieldCheck(
+      {
+        revisionId: revision.id,
+        technicianId: user.id,
+        measuredPeriodS: periodS,
+        measuredHighS: highS,
+        captureId: input.captureId ?? null,
+        lines: verdict.lines,
+        passed: verdict.passed,
+        notes: input.notes,
+        signedOffBy: input.signedOffBy,
+      },
+      tx,
+    );
+    await recordAudit(
+      {
+        actorId: user.id,
+        action: verdict.passed ? "field-check.passed" : "field-check.failed",
+        subjectType: "revision",
+        subjectId: revision.id,
+        details: { fieldCheckId: row.id, retrofitId: retrofit.id, target: input.target, periodS, highS },
+      },
+      tx,
+    );
+    if (author) {
+      await enqueueMail(
+        [
+          {
+            kind: "field-check-failed",
+            to: author.email,
+            subject: `Field check failed: ${retrofit.name} (${retrofit.assetTag}) r${revision.number}`,
+            body: [
+              `A field check of r${revision.number} of "${retrofit.name}" at ${retrofit.site}, asset ${retrofit.assetTag}, failed.`,
+              `Target ${input.target + 1}: ${plan.device}.`,
+              "",
+              ...verdict.lines.map(lineText),
+              "",
+              `Signed off by ${input.signedOffBy} (${user.name}).`,
+              input.notes ? `Notes: ${input.notes}` : "No notes.",
+              "",
+              `Field history: /field/retrofits/${retrofit.id}`,
+            ].join("\n"),
+          },
+        ],
+        tx,
+      );
+    }
+    return row.id;
+  });
+  if (author) kickOutbox();
+  const [view] = await listFieldChecks({ user, ids: [id] });
+  return view;
+}

@@ -1,0 +1,82 @@
+// JSON shapes of the field and capture API, shared by route handlers and the
+// browser components (no server imports here).
+import type { CaptureMeasurement, CaptureEdge, PlotPoint } from "@/lib/capture";
+
+export type CheckLine = {
+  target: number;
+  device: string;
+  id: "period" | "high" | "frequency" | "duty";
+  label: string;
+  unit: "s" | "Hz" | "";
+  expected: number;
+  min: number;
+  max: number;
+  measured: number;
+  pass: boolean;
+};
+
+export type FieldCheckView = {
+  id: number;
+  revisionId: number;
+  revisionNumber: number;
+  revisionState: string;
+  retrofitId: number;
+  retrofitName: string;
+  technician: { id: number; name: string };
+  measuredPeriodS: number | null;
+  measuredHighS: number | null;
+  captureId: number | null;
+  lines: CheckLine[];
+  passed: boolean;
+  notes: string;
+  signedOffBy: string;
+  createdAt: string;
+};
+
+/** The measurement without its display data (plot and edges come from /plot). */
+export type MeasurementSummary = Omit<CaptureMeasurement, "plot" | "edges">;
+
+export type CaptureView = {
+  id: number;
+  retrofitId: number | null;
+  uploadedBy: { id: number; name: string };
+  fileName: string;
+  byteSize: number;
+  sha256: string;
+  createdAt: string;
+  measurement: MeasurementSummary;
+};
+
+export type CapturePlot = {
+  captureId: number;
+  lowLevelV: number;
+  highLevelV: number;
+  referenceV: { p10: number; p50: number; p90: number };
+  startS: number;
+  durationS: number;
+  points: PlotPoint[];
+  edges: CaptureEdge[];
+  edgesTotal: number;
+  window: { fromS: number; toS: number } | null;
+};
+
+export type FieldBundle = {
+  revisionId: number;
+  number: number;
+  sha256: string;
+  byteSize: number;
+  approvedAt: string | null;
+  supersededAt: string | null;
+  devices: string[];
+};
+
+export type FieldAsset = {
+  retrofitId: number;
+  name: string;
+  site: string;
+  assetTag: string;
+  boardRef: string;
+  mainsPowered: boolean;
+  drivesThyristor: boolean;
+  bundles: FieldBundle[];
+};
