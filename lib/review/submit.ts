@@ -1,0 +1,52 @@
+// Submitting a draft for review. The state moves with a conditional UPDATE
+// (WHERE state = 'draft'), so a double click or two engineers at once submit
+// it exactly once; the audit event and the mail to the reviewers are written
+// in the same transaction and sent after it commits.
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { revisions } from "@/db/schema";
+import { ApiError } from "@/lib/api/errors";
+import { recordAudit } from "@/lib/audit";
+import type { AuthUser } from "@/lib/auth/guard";
+import { reviewRequestedMail } from "@/lib/mail/messages";
+import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { loadRevisionForReview } from "./load";
+import { activeReviewers } from "./recipients";
+import { STATE_LABELS, submitRefusal } from "./states";
+
+export async function submitRevision(user: AuthUser, revisionId: number, note = "") {
+  const result = await db.transaction(async (tx) => {
+    const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
+    const refusal = submitRefusal(user, revision);
+    if (refusal) throw refusal;
+    const now = new Date();
+    const [moved] = await tx
+      .update(revisions)
+      .set({ state: "in_review", submittedAt: now })
+      .where(and(eq(revisions.id, revisionId), eq(revisions.state, "draft")))
+      .returning({ id: revisions.id });
+    if (!moved) {
+      const fresh = await loadRevisionForReview(revisionId, tx);
+      throw new ApiError(
+        "conflict",
+        `r${revision.number} was submitted a moment ago by someone else; it is now ${STATE_LABELS[fresh.revision.state].toLowerCase()}.`,
+      );
+    }
+    await recordAudit(
+      {
+        actorId: user.id,
+        action: "revision.submit",
+        subjectType: "revision",
+        subjectId: revisionId,
+        details: { retrofitId: retrofit.id, number: revision.number, from: "draft", to: "in_review", note },
+      },
+      tx,
+    );
+    const reviewers = await activeReviewers(tx, revision.createdBy);
+    await enqueueMail(reviewRequestedMail({ revision, retrofit, author, reviewers, note }), tx);
+    return { id: revisionId, number: revision.number, state: "in_review" as const, submittedAt: now };
+  });
+  kickOutbox();
+  return result;
+}
