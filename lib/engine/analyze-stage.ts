@@ -15,9 +15,20 @@ import type { ModelResult } from "./stages/model";
 import { cornerSpread, monteCarloSpread, type MonteCarloOptions } from "./tolerance";
 import { fmt } from "./stages/model";
 
-export const STAGE_KINDS: readonly { kind: StageKind; label: string; outputLabel: string }[] = Object.values(
-  STAGE_MODELS,
-).map((m) => ({ kind: m.kind, label: m.label, outputLabel: m.outputLabel }));
+/** The stage kinds for pickers and forms: label, output, and the input fields. */
+export const STAGE_KINDS: readonly {
+  kind: StageKind;
+  label: string;
+  outputSignal: OutputSignal;
+  outputLabel: string;
+  fields: readonly StageField[];
+}[] = Object.values(STAGE_MODELS).map((m) => ({
+  kind: m.kind,
+  label: m.label,
+  outputSignal: m.outputSignal,
+  outputLabel: m.outputLabel,
+  fields: m.fields,
+}));
 
 export const STAGE_FIELDS = Object.fromEntries(
   Object.values(STAGE_MODELS).map((m) => [m.kind, m.fields]),

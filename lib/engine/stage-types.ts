@@ -1,7 +1,7 @@
 // Types of the analog stage models (engine contract, section 4 of the design).
 // All quantities are SI base units: ohm, farad, volt, ampere, second, hertz.
 
-/** Relative tolerance: symmetric (0.05 = ±5 %) or asymmetric [minus, plus]. */
+/** Relative tolerance: symmetric (0.05 = ±5 %) or asymmetric [minus, plus] ([0.2, 0.8] = −20 %/+80 %). */
 export type Tolerance = number | readonly [number, number];
 export type Tolerances = Partial<Record<string, Tolerance>>;
 
@@ -174,6 +174,7 @@ export interface StageAnalysis {
   duty: number;
   outputSignal: OutputSignal;
   outputLabel: string;
+  /** the model gives a timing (a one-shot counts: it gives its pulse per trigger) */
   oscillates: boolean;
   checks: StageCheck[];
   /** present when the stage carries tolerances and oscillates */

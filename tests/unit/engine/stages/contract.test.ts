@@ -108,3 +108,15 @@ describe("stage contract", () => {
     expect(back.spread.monteCarlo.histogram.counts).toHaveLength(40);
   });
 });
+
+describe("stage kinds for forms", () => {
+  it("each kind lists its fields with units, and the output it makes", () => {
+    for (const k of engine.STAGE_KINDS) {
+      expect(k.fields).toBe(engine.STAGE_FIELDS[k.kind]);
+      for (const f of k.fields) expect(["Ω", "F", "V", "A", "s", "", "bool"]).toContain(f.unit);
+    }
+    const ujt = engine.STAGE_KINDS.find((k) => k.kind === "ujt")!;
+    expect(ujt.outputSignal).toBe("pulse-base1");
+    expect(ujt.fields.find((f) => f.name === "timingC")).toMatchObject({ unit: "F", optional: false });
+  });
+});
