@@ -1,0 +1,28 @@
+import { z } from "zod";
+import { apiRoute } from "@/lib/api/route";
+import { requireUser } from "@/lib/auth/guard";
+import { ANY } from "@/lib/auth/roles";
+import { unifiedPatch } from "@/lib/diff";
+import { compareRevisions, loadPair } from "@/lib/diff/load";
+
+const id = z.coerce.number().int().positive().max(2147483647);
+const query = z.object({ a: id, b: id, format: z.enum(["json", "patch"]).default("json") });
+
+// GET /api/v1/diff?a=<revId>&b=<revId>[&format=patch]: what changed from a to b.
+// JSON: { retrofitId, a, b, numbers: [{ key, what, before, after, ... }], files: [...] }.
+// format=patch: one unified diff (text/x-diff), a/ = a, b/ = b.
+export const GET = apiRoute(async (req) => {
+  const params = Object.fromEntries(new URL(req.url).searchParams);
+  const q = query.parse(params);
+  const user = await requireUser({ roles: ANY, req });
+  if (q.format === "patch") {
+    const { a, b } = await loadPair(user, q.a, q.b);
+    return new Response(unifiedPatch(a, b, a.files, b.files), {
+      headers: {
+        "content-type": "text/x-diff; charset=utf-8",
+        "content-disposition": `inline; filename="r${a.number}-r${b.number}.diff"`,
+      },
+    });
+  }
+  return Response.json(await compareRevisions(user, q.a, q.b));
+});

@@ -1,0 +1,89 @@
+// Loading two revisions of one retrofit for comparison, with the read rule of
+// lib/revisions/access.ts applied to both, and the default pair for a retrofit.
+import "server-only";
+import { asc, desc, eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { retrofits, revisionFiles, revisions } from "@/db/schema";
+import { ApiError, notFound } from "@/lib/api/errors";
+import type { AuthUser } from "@/lib/auth/guard";
+import { assertCanReadRevision } from "@/lib/revisions/access";
+import { compareSnapshots } from "./index";
+import type { RevisionComparison, RevisionRef, RevisionSnapshot } from "./types";
+
+type Loaded = RevisionRef & RevisionSnapshot & { retrofitId: number };
+
+async function loadOne(id: number): Promise<Loaded & { site: string }> {
+  const [row] = await db
+    .select({
+      id: revisions.id,
+      number: revisions.number,
+      state: revisions.state,
+      retrofitId: revisions.retrofitId,
+      spec: revisions.spec,
+      analysis: revisions.analysis,
+      plans: revisions.plans,
+      site: retrofits.site,
+    })
+    .from(revisions)
+    .innerJoin(retrofits, eq(retrofits.id, revisions.retrofitId))
+    .where(eq(revisions.id, id));
+  if (!row) throw notFound(`Revision ${id}`);
+  const files = await db
+    .select({ path: revisionFiles.path, content: revisionFiles.content })
+    .from(revisionFiles)
+    .where(eq(revisionFiles.revisionId, id))
+    .orderBy(asc(revisionFiles.path));
+  return { ...row, files };
+}
+
+/** Both revisions, checked: same retrofit, readable by `user`. */
+export async function loadPair(user: AuthUser, aId: number, bId: number): Promise<{ a: Loaded; b: Loaded }> {
+  const [a, b] = await Promise.all([loadOne(aId), loadOne(bId)]);
+  assertCanReadRevision(user, a, { site: a.site });
+  assertCanReadRevision(user, b, { site: b.site });
+  if (a.retrofitId !== b.retrofitId) {
+    throw new ApiError("unprocessable", "Both revisions must belong to the same retrofit.", {
+      b: "Another retrofit.",
+    });
+  }
+  return { a, b };
+}
+
+export async function compareRevisions(
+  user: AuthUser,
+  aId: number,
+  bId: number,
+): Promise<RevisionComparison> {
+  const { a, b } = await loadPair(user, aId, bId);
+  return compareSnapshots(a.retrofitId, a, b);
+}
+
+export type RevisionChoice = { id: number; number: number; state: string; supersededAt: Date | null };
+
+export async function revisionsOf(retrofitId: number): Promise<RevisionChoice[]> {
+  return db
+    .select({
+      id: revisions.id,
+      number: revisions.number,
+      state: revisions.state,
+      supersededAt: revisions.supersededAt,
+    })
+    .from(revisions)
+    .where(eq(revisions.retrofitId, retrofitId))
+    .orderBy(desc(revisions.number));
+}
+
+/** Default pair: the newest revision in review (else the newest) against the
+ *  last approved revision before it (else the one just before it). */
+export async function defaultPair(
+  retrofitId: number,
+  bId?: number,
+): Promise<{ a: number; b: number } | null> {
+  const all = await revisionsOf(retrofitId);
+  const b =
+    (bId ? all.find((r) => r.id === bId) : undefined) ?? all.find((r) => r.state === "in_review") ?? all[0];
+  if (!b) return null;
+  const older = all.filter((r) => r.number < b.number);
+  const a = older.find((r) => r.state === "approved") ?? older[0];
+  return a ? { a: a.id, b: b.id } : null;
+}
