@@ -1,0 +1,41 @@
+// GET /api/v1/revisions/:id/bundle: the stored zip, byte for byte. ETag is the
+// zip's sha256, so If-None-Match answers 304 without sending it again; each
+// full download is audited.
+import { notFound } from "@/lib/api/errors";
+import { apiRoute, parseId } from "@/lib/api/route";
+import { recordAudit } from "@/lib/audit";
+import { requireUser } from "@/lib/auth/guard";
+import { ANY } from "@/lib/auth/roles";
+import { getRevisionBundle } from "@/lib/retrofits/revisions";
+import { bundleFileName, etagMatches } from "@/lib/revisions/bundle-http";
+import { loadReadableRevision } from "@/lib/revisions/load";
+
+export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
+  const id = parseId((await ctx.params).id, "Revision");
+  const user = await requireUser({ roles: ANY, req });
+  const { revision, retrofit } = await loadReadableRevision({ id, user });
+  const etag = `"${revision.bundleSha256}"`;
+  const common = { etag, "cache-control": "private, no-cache" };
+  if (etagMatches(req.headers.get("if-none-match"), revision.bundleSha256)) {
+    return new Response(null, { status: 304, headers: common });
+  }
+  const bundle = await getRevisionBundle({ id });
+  if (!bundle) throw notFound("Revision");
+  await recordAudit({
+    actorId: user.id,
+    action: "revision.download",
+    subjectType: "revision",
+    subjectId: id,
+    details: { sha256: revision.bundleSha256, via: user.via },
+  });
+  const name = bundleFileName(retrofit.assetTag, revision.number);
+  return new Response(new Uint8Array(bundle.bundle), {
+    headers: {
+      ...common,
+      "content-type": "application/zip",
+      "content-length": String(bundle.bundle.length),
+      "content-disposition": `attachment; filename="${name}"`,
+      "x-content-sha256": revision.bundleSha256,
+    },
+  });
+});

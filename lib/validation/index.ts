@@ -1,0 +1,6 @@
+export * from "./eng";
+export * from "./tolerance";
+export * from "./retrofit";
+export * from "./stage";
+export * from "./target";
+export * from "./workspace";

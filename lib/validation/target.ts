@@ -1,0 +1,101 @@
+// A target: device, clock source and frequency, mode, timer and the period
+// tolerance the new board must hold. Checked against the engine's device
+// catalogue so a wrong clock option or timer is a field error, not a 500.
+import { z } from "zod";
+import { listDevices, type DeviceInfo } from "@/lib/engine";
+import { engNumber, optionalEngNumber } from "./eng";
+
+const DEVICES = listDevices();
+export const DEVICE_IDS = DEVICES.map((d) => d.id) as [string, ...string[]];
+export const TIMER_MODES = ["pwm", "toggle", "isr"] as const;
+
+export function deviceById(id: string): DeviceInfo | undefined {
+  return DEVICES.find((d) => d.id === id);
+}
+
+const blankToUndefined = (v: unknown) => (v === "" || v === null ? undefined : v);
+
+export const targetSchema = z
+  .object({
+    device: z.enum(DEVICE_IDS, { error: `Choose a device: ${DEVICE_IDS.join(", ")}.` }),
+    clockSource: z.string({ error: "Choose a clock source." }).trim().min(1, "Choose a clock source."),
+    clockHz: engNumber("Hz", { positive: true }),
+    clockAccuracyPpm: z.preprocess(
+      blankToUndefined,
+      z.coerce
+        .number({ error: "Clock accuracy is a number in ppm." })
+        .min(0, "Must not be negative.")
+        .optional(),
+    ),
+    mode: z.preprocess(
+      blankToUndefined,
+      z.enum(TIMER_MODES, { error: "Mode is pwm, toggle or isr." }).optional(),
+    ),
+    timer: z.preprocess(blankToUndefined, z.string().trim().max(20).optional()),
+    pin: z.preprocess(blankToUndefined, z.string().trim().max(20).optional()),
+    activeLow: z.boolean().optional().default(false),
+    requiredTolerancePct: z.preprocess(
+      blankToUndefined,
+      z.coerce
+        .number({ error: "Required tolerance is a number in percent." })
+        .gt(0, "Must be greater than 0 %.")
+        .max(100, "At most 100 %.")
+        .optional(),
+    ),
+  })
+  .superRefine((t, ctx) => {
+    const device = deviceById(t.device);
+    if (!device) return;
+    const clock = device.clocks.find((c) => c.id === t.clockSource);
+    if (!clock) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["clockSource"],
+        message: `${device.name} has no clock "${t.clockSource}"; one of ${device.clocks.map((c) => c.id).join(", ")}.`,
+      });
+    } else {
+      const lo = clock.hz ?? clock.minHz ?? device.minClockHz;
+      const hi = clock.hz ?? clock.maxHz ?? device.maxClockHz;
+      if (t.clockHz < lo * (1 - 1e-9) || t.clockHz > hi * (1 + 1e-9)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["clockHz"],
+          message:
+            lo === hi ? `${clock.label} runs at ${lo} Hz.` : `${clock.label} runs from ${lo} Hz to ${hi} Hz.`,
+        });
+      }
+    }
+    if (t.timer && !device.timers.some((x) => x.name === t.timer!.toUpperCase())) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["timer"],
+        message: `${device.name} has no timer "${t.timer}"; one of ${device.timers.map((x) => x.name).join(", ")}.`,
+      });
+    }
+    if (t.mode && t.timer) {
+      const timer = device.timers.find((x) => x.name === t.timer!.toUpperCase());
+      if (timer && !timer.modes.includes(t.mode)) {
+        ctx.addIssue({ code: "custom", path: ["mode"], message: `${timer.name} has no ${t.mode} mode.` });
+      }
+    }
+  });
+
+export type TargetInput = z.input<typeof targetSchema>;
+export type Target = z.output<typeof targetSchema>;
+
+export const targetsSchema = z.array(targetSchema).max(8, "At most 8 targets per retrofit.");
+
+/** Form text for a new target row: the device's first clock at its fixed or top frequency. */
+export function defaultTarget(deviceId = "atmega328p"): TargetInput {
+  const device = deviceById(deviceId) ?? DEVICES[0];
+  const clock = device.clocks[0];
+  return {
+    device: device.id,
+    clockSource: clock.id,
+    clockHz: String(clock.hz ?? Math.min(clock.maxHz ?? device.maxClockHz, 16e6)),
+    mode: "pwm",
+    timer: "",
+    requiredTolerancePct: "1",
+    activeLow: false,
+  };
+}

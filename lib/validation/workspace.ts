@@ -1,0 +1,56 @@
+// Bodies of the workspace API: create, update and the stateless plan request.
+import { z } from "zod";
+import { retrofitFactsPatchSchema, retrofitFactsSchema } from "./retrofit";
+import { stageSchema } from "./stage";
+import { targetsSchema } from "./target";
+
+export const createRetrofitSchema = retrofitFactsSchema.extend({
+  stage: stageSchema.optional(),
+  targets: targetsSchema.optional(),
+});
+
+export const updateRetrofitSchema = retrofitFactsPatchSchema.extend({
+  stage: stageSchema.optional(),
+  targets: targetsSchema.optional(),
+});
+
+export const planBodySchema = z.object({
+  stage: stageSchema,
+  targets: targetsSchema.min(1, "Add at least one target."),
+});
+
+export const generateBodySchema = z
+  .object({ note: z.string().trim().max(500, "A note is at most 500 characters.").optional().default("") })
+  .optional()
+  .default({ note: "" });
+
+export const tokenBodySchema = z.object({
+  name: z
+    .string({ error: "Name the token." })
+    .trim()
+    .min(1, "Name the token.")
+    .max(60, "At most 60 characters."),
+});
+
+export const LIST_SORTS = ["name", "site", "assetTag", "kind", "state", "updatedAt"] as const;
+export const REVISION_STATES = ["draft", "in_review", "approved", "changes_requested"] as const;
+
+export const listQuerySchema = z.object({
+  q: z.string().trim().max(100).optional(),
+  site: z.string().trim().max(120).optional(),
+  kind: z.string().trim().max(40).optional(),
+  state: z
+    .enum([...REVISION_STATES, "none"], {
+      error: "state is draft, in_review, approved, changes_requested or none.",
+    })
+    .optional(),
+  archived: z.enum(["exclude", "include", "only"]).optional().default("exclude"),
+  sort: z
+    .enum(LIST_SORTS, { error: `sort is one of ${LIST_SORTS.join(", ")}.` })
+    .optional()
+    .default("updatedAt"),
+  dir: z.enum(["asc", "desc"]).optional().default("desc"),
+  page: z.coerce.number().int().min(1, "page starts at 1.").optional().default(1),
+  pageSize: z.coerce.number().int().min(1).max(100, "pageSize is at most 100.").optional().default(20),
+});
+export type ListQuery = z.output<typeof listQuerySchema>;
