@@ -117,6 +117,7 @@ const putSets: PutStage[] = [
 ];
 
 function expectWithin(actual: number, expected: number, rel: number) {
+  expect(expected).toBeGreaterThan(0);
   expect(Math.abs(actual - expected) / expected).toBeLessThan(rel);
 }
 
