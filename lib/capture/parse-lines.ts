@@ -57,34 +57,47 @@ class RowReader {
     let pos = start;
     let tRaw = 0;
     let vRaw = 0;
+    const last = fieldCount - 1;
     for (let c = 0; c < fieldCount; c++) {
-      let fieldEnd = text.indexOf(delimiter, pos);
+      // The last field runs to the line end without a search: for one-column
+      // data a search would scan the rest of the chunk on every line.
+      const fieldEnd = c < last ? text.indexOf(delimiter, pos) : end;
       if (fieldEnd === -1 || fieldEnd > end) {
-        if (c < fieldCount - 1) {
-          throw new CaptureError(
-            "column-count",
-            lineNo,
-            `${c + 1} value(s) where the data has ${fieldCount} columns`,
-          );
-        }
-        fieldEnd = end;
+        throw new CaptureError(
+          "column-count",
+          lineNo,
+          `${c + 1} value(s) where the data has ${fieldCount} columns`,
+        );
       }
       let x = fastNumber(text, pos, fieldEnd, this.decimalMark);
-      if (x !== x) x = this.number(text.slice(pos, fieldEnd), c, lineNo);
+      if (x !== x) {
+        x = this.number(
+          c < last ? text.slice(pos, fieldEnd) : this.lastField(text.slice(pos, end), lineNo),
+          c,
+          lineNo,
+        );
+      }
       if (c === timeIndex) tRaw = x;
       if (c === measuredIndex) vRaw = x;
       pos = fieldEnd + 1;
     }
-    if (pos < end && !this.trailing.test(text.slice(pos, end))) {
-      throw new CaptureError(
-        "column-count",
-        lineNo,
-        `more values than the ${fieldCount} columns of the data`,
-      );
-    }
     if (this.firstLine === 0) this.firstLine = lineNo;
     if (timeIndex >= 0) this.pushTime(tRaw * this.layout.scales[timeIndex], lineNo);
     this.v.push(vRaw * this.layout.scales[measuredIndex]);
+  }
+
+  /** The last field without trailing empty fields; more values are an error. */
+  private lastField(field: string, lineNo: number): string {
+    const cut = field.indexOf(this.layout.delimiter);
+    if (cut === -1) return field;
+    if (!this.trailing.test(field.slice(cut))) {
+      throw new CaptureError(
+        "column-count",
+        lineNo,
+        `more values than the ${this.layout.fieldCount} columns of the data`,
+      );
+    }
+    return field.slice(0, cut);
   }
 
   private number(field: string, column: number, lineNo: number): number {
