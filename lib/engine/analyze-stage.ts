@@ -37,6 +37,27 @@ export const STAGE_FIELDS = Object.fromEntries(
 // Beyond these a value is a typing slip, not a part (1 TΩ, 100 F, 100 kV, 1 h).
 const ABSOLUTE_MAX: Record<string, number> = { Ω: 1e12, F: 100, V: 1e5, A: 1e3, s: 3600 };
 
+// Beyond these a part is unusual enough to say so: board leakage and
+// capacitor leakage current start to set the timing (common practice, no source).
+const UNUSUAL_ABOVE: Partial<Record<StageField["unit"], number>> = { Ω: 22e6, F: 10e-3 };
+
+function rangeWarnings(stage: Stage): StageCheck[] {
+  const out: StageCheck[] = [];
+  for (const f of modelOf(stage).fields) {
+    const v = (stage as unknown as Record<string, unknown>)[f.name];
+    const limit = UNUSUAL_ABOVE[f.unit];
+    if (typeof v === "number" && limit !== undefined && v > limit) {
+      out.push({
+        level: "warning",
+        code: "value-range",
+        field: f.name,
+        message: `${f.label} ${fmt(v, f.unit as "Ω")} is above ${fmt(limit, f.unit as "Ω")}: leakage currents may set the timing more than the formula does. Measure the old stage.`,
+      });
+    }
+  }
+  return out;
+}
+
 function invalid(field: string, message: string): never {
   throw new EngineError("invalid-stage", message, field);
 }
@@ -180,7 +201,7 @@ export function analyzeStage(stage: Stage, options: MonteCarloOptions = {}): Sta
   const valid = validateStage(stage);
   const model = modelOf(valid);
   const result = model.evaluate(valid);
-  const checks = [...result.checks, ...(model.warnings?.(valid, result) ?? [])];
+  const checks = [...result.checks, ...(model.warnings?.(valid, result) ?? []), ...rangeWarnings(valid)];
   const analysis: StageAnalysis = {
     ...timingOf(valid.kind, result),
     outputSignal: model.outputSignal,

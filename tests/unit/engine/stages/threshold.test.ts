@@ -51,3 +51,14 @@ describe("threshold stage", () => {
     expectEngineError(() => analyzeStage({ ...neon, peakV: 60 }), "invalid-stage", "peakV");
   });
 });
+
+describe("unusual values", () => {
+  it("a timing resistor above 22 MΩ is flagged (leakage; common practice, no source)", () => {
+    const a = analyzeStage({ ...neon, timingR: 47e6, dischargeR: 10e3 });
+    expect(a.checks.find((c) => c.code === "value-range")).toMatchObject({
+      level: "warning",
+      field: "timingR",
+    });
+    expect(analyzeStage(neon).checks).toEqual([]);
+  });
+});
