@@ -64,7 +64,6 @@ export type MeasuredUpload = {
 
 function cleanName(raw: string | null | undefined): string {
   const base = (raw ?? "").split(/[\\/]/).pop()?.trim() ?? "";
-  // eslint-disable-next-line no-control-regex -- strip control characters from a client-sent name
   const safe = base.replace(/[\u0000-\u001f\u007f]/g, "").slice(0, 200);
   return safe || "capture.csv";
 }
@@ -75,8 +74,12 @@ export async function readCaptureUpload(req: Request, maxBytes: number): Promise
   const type = req.headers.get("content-type") ?? "";
   const multipart = /^multipart\/form-data/i.test(type);
   const declared = Number(req.headers.get("content-length") ?? NaN);
-  const maxRaw = maxBytes + (multipart ? FORM_OVERHEAD : 0);
-  if (Number.isFinite(declared) && declared > maxRaw) throw tooLarge(maxBytes);
+  // A declared length past the limit is refused before reading. While
+  // streaming, measureCsv enforces the exact limit on the file's bytes (and
+  // names the line); the raw cap only stops a form with huge other parts.
+  if (Number.isFinite(declared) && declared > maxBytes + (multipart ? FORM_OVERHEAD : 0))
+    throw tooLarge(maxBytes);
+  const maxRaw = maxBytes + FORM_OVERHEAD;
   if (!req.body)
     throw new ApiError("unprocessable", "line 1: the capture is empty; choose a CSV or TSV export.");
 
