@@ -204,12 +204,15 @@ describe("use as stage", () => {
 
     const tech = await makeUser("technician");
     const ts = await signedIn(tech.email, TEST_PASSWORD);
-    const refused = await ts.json(`/api/v1/captures/${captureId}/use-as-stage`, { method: "POST", body: {} });
+    const refused = await ts.json(`/api/v1/captures/${captureId}/use-as-stage`, {
+      method: "POST",
+      body: "{}",
+    });
     expect(refused.status).toBe(403);
 
     const res = await eng.json<{
       stage: { kind: string; periodS: number; highS: number; captureId: number };
-    }>(`/api/v1/captures/${captureId}/use-as-stage`, { method: "POST", body: {} });
+    }>(`/api/v1/captures/${captureId}/use-as-stage`, { method: "POST", body: "{}" });
     expect(res.status).toBe(200);
     expect(res.body.stage.kind).toBe("measured");
     const [stage] = await db.select().from(stages).where(eq(stages.retrofitId, retrofit.id));
@@ -233,7 +236,7 @@ describe("use as stage", () => {
       `/api/v1/captures/${id}/use-as-stage`,
       {
         method: "POST",
-        body: {},
+        body: "{}",
       },
     );
     expect(res.status).toBe(400);

@@ -37,7 +37,10 @@ beforeAll(async () => {
 });
 
 const post = (s: Session, body: Record<string, unknown>) =>
-  s.json<{ check: Check; error?: { code: string } }>("/api/v1/field-checks", { method: "POST", body });
+  s.json<{ check: Check; error?: { code: string } }>("/api/v1/field-checks", {
+    method: "POST",
+    body: JSON.stringify(body),
+  });
 
 describe("field checks", () => {
   it("computes the checklist's limits on the server and passes a board on the nominal timing", async () => {
@@ -166,7 +169,7 @@ describe("field checks", () => {
   it("asks for the missing values and a signature with field errors", async () => {
     const res = await tech.json<{ error: { fields: Record<string, string> } }>("/api/v1/field-checks", {
       method: "POST",
-      body: { revisionId: approvedId, signedOffBy: " " },
+      body: JSON.stringify({ revisionId: approvedId, signedOffBy: " " }),
     });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.signedOffBy).toMatch(/name/);
