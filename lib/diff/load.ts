@@ -36,9 +36,28 @@ async function loadOne(id: number): Promise<Loaded & { site: string }> {
   return { ...row, files };
 }
 
-/** Both revisions, checked: same retrofit, readable by `user`. */
+/** The "before" side of a first revision: nothing, so every file shows as added. */
+export const NOTHING_ID = 0;
+const nothing = (retrofitId: number): Loaded & { site: string } => ({
+  id: NOTHING_ID,
+  number: 0,
+  state: "draft",
+  retrofitId,
+  spec: {},
+  analysis: {},
+  plans: [],
+  files: [],
+  site: "",
+});
+
+/** Both revisions, checked: same retrofit, readable by `user`. `aId` 0 = nothing before. */
 export async function loadPair(user: AuthUser, aId: number, bId: number): Promise<{ a: Loaded; b: Loaded }> {
-  const [a, b] = await Promise.all([loadOne(aId), loadOne(bId)]);
+  const b = await loadOne(bId);
+  const a = aId === NOTHING_ID ? nothing(b.retrofitId) : await loadOne(aId);
+  if (aId === NOTHING_ID) {
+    assertCanReadRevision(user, b, { site: b.site });
+    return { a, b };
+  }
   assertCanReadRevision(user, a, { site: a.site });
   assertCanReadRevision(user, b, { site: b.site });
   if (a.retrofitId !== b.retrofitId) {
@@ -74,7 +93,7 @@ export async function revisionsOf(retrofitId: number): Promise<RevisionChoice[]>
 }
 
 /** Default pair: the newest revision in review (else the newest) against the
- *  last approved revision before it (else the one just before it). */
+ *  last approved revision before it (else the one just before it, else nothing). */
 export async function defaultPair(
   retrofitId: number,
   bId?: number,
@@ -85,5 +104,5 @@ export async function defaultPair(
   if (!b) return null;
   const older = all.filter((r) => r.number < b.number);
   const a = older.find((r) => r.state === "approved") ?? older[0];
-  return a ? { a: a.id, b: b.id } : null;
+  return { a: a?.id ?? NOTHING_ID, b: b.id };
 }

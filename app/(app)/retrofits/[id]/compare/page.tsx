@@ -1,0 +1,199 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { eq } from "drizzle-orm";
+import { notFound } from "next/navigation";
+import { db } from "@/db/client";
+import { retrofits } from "@/db/schema";
+import { FileDiff, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
+import { highlightLines } from "@/components/diff/highlight";
+import { NumbersTable } from "@/components/diff/numbers-table";
+import { RevisionPicker } from "@/components/diff/revision-picker";
+import { HazardCaution } from "@/components/ui/hazard-caution";
+import { NotAllowed } from "@/components/ui/not-allowed";
+import { ApiError } from "@/lib/api/errors";
+import { pageUser } from "@/lib/auth/page";
+import { READ_ALL } from "@/lib/auth/roles";
+import { compareSnapshots } from "@/lib/diff";
+import { defaultPair, loadPair, revisionsOf } from "@/lib/diff/load";
+import type { DiffRow } from "@/lib/diff/types";
+import { COMMENT_ROLES, listComments } from "@/lib/review/comments";
+import { STATE_LABELS } from "@/lib/review/states";
+
+export const metadata: Metadata = { title: "Compare revisions" };
+
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<{ a?: string; b?: string }> };
+
+const asId = (v?: string) => (v && /^(0|[1-9][0-9]{0,9})$/.test(v) ? Number(v) : undefined);
+
+export default async function ComparePage({ params, searchParams }: Props) {
+  const { user, allowed } = await pageUser(READ_ALL);
+  if (!allowed) return <NotAllowed role={user.role} what="revision comparisons" />;
+  const retrofitId = asId((await params).id);
+  if (!retrofitId) notFound(); // 0 or not a number
+  const [retrofit] = await db.select().from(retrofits).where(eq(retrofits.id, retrofitId));
+  if (!retrofit) notFound();
+  const q = await searchParams;
+  const choices = await revisionsOf(retrofitId);
+  const fallback = await defaultPair(retrofitId, asId(q.b));
+  const aId = asId(q.a) ?? fallback?.a;
+  const bId = asId(q.b) ?? fallback?.b;
+
+  const heading = (
+    <header className="mb-4">
+      <p className="text-sm text-ink-muted">
+        <Link href={`/retrofits/${retrofit.id}`} className="underline">
+          {retrofit.name}
+        </Link>{" "}
+        · {retrofit.site} · <span className="num">{retrofit.assetTag}</span>
+      </p>
+      <h1 className="text-xl font-semibold">Compare revisions</h1>
+    </header>
+  );
+  if (aId === undefined || !bId) {
+    return (
+      <section>
+        {heading}
+        <p className="panel">
+          This retrofit has no revisions yet. Generate one on the retrofit page, then review its files here.
+        </p>
+      </section>
+    );
+  }
+
+  let pair;
+  try {
+    pair = await loadPair(user, aId, bId);
+  } catch (e) {
+    if (e instanceof ApiError && (e.status === 404 || e.status === 422)) {
+      return (
+        <section>
+          {heading}
+          <p role="alert" className="panel border-hazard text-hazard">
+            {e.message} Pick two revisions of this retrofit below.
+          </p>
+          <div className="mt-4">
+            <RevisionPicker
+              choices={choices}
+              a={fallback?.a ?? choices[0]?.id ?? 0}
+              b={fallback?.b ?? choices[0]?.id ?? 0}
+            />
+          </div>
+        </section>
+      );
+    }
+    throw e;
+  }
+  const { a, b } = pair;
+  if (a.retrofitId !== retrofitId) notFound();
+  const cmp = compareSnapshots(retrofitId, a, b);
+  const comments = await listComments(b.id);
+  const canComment = COMMENT_ROLES.includes(user.role);
+
+  const changed = cmp.files.filter((f) => f.status !== "unchanged");
+  const unchanged = cmp.files.filter((f) => f.status === "unchanged");
+  const files = await Promise.all(
+    changed.map(async (f) => {
+      const before = a.files.find((x) => x.path === f.path)?.content ?? "";
+      const after = b.files.find((x) => x.path === f.path)?.content ?? "";
+      const [oldHtml, newHtml] = await Promise.all([
+        highlightLines(f.path, before),
+        highlightLines(f.path, after),
+      ]);
+      const rows: HighlightedRow[] = f.rows.map((r: DiffRow) =>
+        r.kind === "removed"
+          ? { ...r, html: oldHtml[r.oldLine - 1] }
+          : r.kind === "fold"
+            ? r
+            : { ...r, html: newHtml[r.newLine - 1] },
+      );
+      const notes: LineComment[] = comments
+        .filter((c) => c.filePath === f.path)
+        .map((c) => ({
+          id: c.id,
+          body: c.body,
+          line: c.line,
+          author: c.author,
+          createdAt: c.createdAt.toISOString(),
+        }));
+      return { ...f, rows, notes };
+    }),
+  );
+  const unchangedWithComments = comments.filter(
+    (c) => c.filePath && unchanged.some((f) => f.path === c.filePath),
+  );
+
+  return (
+    <section className="space-y-6">
+      {heading}
+      {(retrofit.mainsPowered || retrofit.drivesThyristor) && (
+        <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
+      )}
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <RevisionPicker choices={choices} a={a.id} b={b.id} />
+        <div className="flex flex-wrap gap-2">
+          {a.number > 0 && (
+            <a className="btn" href={`/api/v1/diff?a=${a.id}&b=${b.id}&format=patch`}>
+              Download patch
+            </a>
+          )}
+          <Link className="btn-primary" href={`/revisions/${b.id}/review`}>
+            Review r{b.number}
+          </Link>
+        </div>
+      </div>
+      <p className="text-sm text-ink-soft">
+        {a.number === 0
+          ? "Nothing before"
+          : `r${a.number} (${STATE_LABELS[a.state as keyof typeof STATE_LABELS]})`}{" "}
+        → r{b.number} ({STATE_LABELS[b.state as keyof typeof STATE_LABELS]}). Comments go to r{b.number};
+        choose a line number to comment on it.
+      </p>
+
+      <section aria-labelledby="numbers-h">
+        <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
+          Numbers that changed
+        </h2>
+        <NumbersTable rows={cmp.numbers} a={a.number} b={b.number} />
+      </section>
+
+      <section aria-labelledby="files-h" className="space-y-4">
+        <h2 id="files-h" className="text-lg font-semibold">
+          Files ({changed.length} changed, {unchanged.length} unchanged)
+        </h2>
+        {changed.length === 0 && <p className="panel text-ink-soft">Every file is byte-identical.</p>}
+        {files.map((f) => (
+          <FileDiff
+            key={f.path}
+            path={f.path}
+            status={f.status}
+            added={f.added}
+            removed={f.removed}
+            rows={f.rows}
+            revisionId={b.id}
+            canComment={canComment}
+            comments={f.notes}
+          />
+        ))}
+        {unchanged.length > 0 && (
+          <details className="panel">
+            <summary className="cursor-pointer text-sm">{unchanged.length} unchanged files</summary>
+            <ul className="num mt-2 text-sm">
+              {unchanged.map((f) => (
+                <li key={f.path}>{f.path}</li>
+              ))}
+            </ul>
+          </details>
+        )}
+        {unchangedWithComments.length > 0 && (
+          <p className="text-sm text-ink-soft">
+            {unchangedWithComments.length} comment(s) sit on unchanged files; see the{" "}
+            <Link href={`/revisions/${b.id}/review`} className="underline">
+              review page
+            </Link>
+            .
+          </p>
+        )}
+      </section>
+    </section>
+  );
+}
