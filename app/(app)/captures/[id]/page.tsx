@@ -1,0 +1,51 @@
+// One capture: file facts, the measurement, the zoomable trace and, for
+// engineers, turning it into the retrofit's measured stage.
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { MeasurementTable } from "@/components/capture/measurement-table";
+import { TracePlot } from "@/components/capture/trace-plot";
+import { UseAsStage } from "@/components/capture/use-as-stage";
+import { NotAllowed } from "@/components/ui/not-allowed";
+import { pageUser } from "@/lib/auth/page";
+import { ANY, EDIT } from "@/lib/auth/roles";
+import { captureView, loadReadableCapture } from "@/lib/field/captures";
+
+export const metadata: Metadata = { title: "Capture" };
+
+export default async function CapturePage({ params }: { params: Promise<{ id: string }> }) {
+  const { user, allowed } = await pageUser(ANY);
+  if (!allowed) return <NotAllowed role={user.role} what="captures" />;
+  const raw = (await params).id;
+  if (!/^[1-9][0-9]{0,9}$/.test(raw)) notFound();
+  const row = await loadReadableCapture({ id: Number(raw), user }).catch(() => null);
+  if (!row) notFound();
+  const c = captureView(row);
+  return (
+    <div className="flex flex-col gap-4">
+      <header>
+        <Link href="/captures" className="text-sm underline">
+          ← Captures
+        </Link>
+        <h1 className="text-xl font-semibold">
+          Capture #{c.id}: {c.fileName}
+        </h1>
+        <p className="num text-xs text-ink-soft" title={c.sha256}>
+          sha256 {c.sha256} · {(c.byteSize / 1024).toFixed(1)} KiB · {c.uploadedBy.name} ·{" "}
+          {c.createdAt.slice(0, 16).replace("T", " ")} UTC
+        </p>
+      </header>
+      <section className="panel">
+        <MeasurementTable m={c.measurement} />
+      </section>
+      <section className="panel">
+        <TracePlot captureId={c.id} />
+      </section>
+      {EDIT.includes(user.role) && (
+        <section className="panel">
+          <UseAsStage captureId={c.id} retrofitId={c.retrofitId} />
+        </section>
+      )}
+    </div>
+  );
+}

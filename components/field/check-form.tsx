@@ -1,0 +1,225 @@
+"use client";
+// Field check against one approved revision. The technician types the measured
+// period and high time (engineering notation: 10m, 2.0 ms) or picks an uploaded
+// capture; the server computes the checklist limits and the verdict.
+import { useState } from "react";
+import useSWR, { useSWRConfig } from "swr";
+import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
+import { formatEng, parseEng } from "@/lib/engine";
+import type { CaptureView, FieldCheckView } from "@/lib/field/shapes";
+import { CheckLines } from "./check-lines";
+import { historyKey } from "./field-history";
+
+export function capturesKey(retrofitId: number): string {
+  return `/api/v1/captures?retrofitId=${retrofitId}`;
+}
+
+type Props = { revisionId: number; retrofitId: number; devices: string[]; signer: string };
+type Errors = Partial<Record<"measuredPeriodS" | "measuredHighS" | "signedOffBy" | "form", string>>;
+
+function readTime(text: string): number | string | undefined {
+  if (!text.trim()) return undefined;
+  try {
+    const v = parseEng(text, "s");
+    return v > 0 ? v : "Enter a time greater than zero.";
+  } catch (e) {
+    return (e as Error).message;
+  }
+}
+
+export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
+  const { mutate } = useSWRConfig();
+  const { data: captureList } = useSWR<{ captures: CaptureView[] }>(capturesKey(retrofitId));
+  const [target, setTarget] = useState(0);
+  const [period, setPeriod] = useState("");
+  const [high, setHigh] = useState("");
+  const [captureId, setCaptureId] = useState("");
+  const [notes, setNotes] = useState("");
+  const [signedOffBy, setSignedOffBy] = useState(signer);
+  const [errors, setErrors] = useState<Errors>({});
+  const [busy, setBusy] = useState(false);
+  const [result, setResult] = useState<FieldCheckView | null>(null);
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    const p = readTime(period);
+    const h = readTime(high);
+    const next: Errors = {};
+    if (typeof p === "string") next.measuredPeriodS = p;
+    if (typeof h === "string") next.measuredHighS = h;
+    if (!captureId && p === undefined) next.measuredPeriodS = "Enter the measured period, or pick a capture.";
+    if (!captureId && h === undefined)
+      next.measuredHighS = "Enter the measured high time, or pick a capture.";
+    if (!signedOffBy.trim()) next.signedOffBy = "Sign with your name.";
+    setErrors(next);
+    if (Object.keys(next).length) return;
+    setBusy(true);
+    setResult(null);
+    try {
+      const body = {
+        revisionId,
+        target,
+        ...(typeof p === "number" ? { measuredPeriodS: p } : {}),
+        ...(typeof h === "number" ? { measuredHighS: h } : {}),
+        ...(captureId ? { captureId: Number(captureId) } : {}),
+        notes,
+        signedOffBy: signedOffBy.trim(),
+      };
+      const res = await fetchJson<{ check: FieldCheckView }>("/api/v1/field-checks", {
+        method: "POST",
+        body: JSON.stringify(body),
+      });
+      setResult(res.check);
+      setPeriod("");
+      setHigh("");
+      setCaptureId("");
+      setNotes("");
+      await mutate(historyKey(retrofitId));
+    } catch (err) {
+      const f = err instanceof ClientApiError ? (err.fields ?? {}) : {};
+      setErrors({ ...f, form: `${(err as Error).message} Correct the marked fields and record again.` });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const captures = captureList?.captures ?? [];
+  return (
+    <form onSubmit={submit} noValidate className="flex flex-col gap-3" aria-labelledby="check-title">
+      <h2 id="check-title" className="text-lg font-semibold">
+        Record a field check
+      </h2>
+      {devices.length > 1 && (
+        <div>
+          <label className="field-label" htmlFor="check-target">
+            Board (target)
+          </label>
+          <select
+            id="check-target"
+            className="input"
+            value={target}
+            onChange={(e) => setTarget(Number(e.target.value))}
+          >
+            {devices.map((d, i) => (
+              <option key={i} value={i}>
+                {i + 1}: {d}
+              </option>
+            ))}
+          </select>
+        </div>
+      )}
+      <div className="grid gap-3 sm:grid-cols-2">
+        <div>
+          <label className="field-label" htmlFor="check-period">
+            Measured period
+          </label>
+          <input
+            id="check-period"
+            className="input num"
+            inputMode="decimal"
+            placeholder="e.g. 10.0 ms"
+            value={period}
+            onChange={(e) => setPeriod(e.target.value)}
+            aria-invalid={!!errors.measuredPeriodS}
+            aria-describedby={errors.measuredPeriodS ? "check-period-error" : undefined}
+          />
+          {errors.measuredPeriodS && (
+            <p id="check-period-error" className="field-error">
+              {errors.measuredPeriodS}
+            </p>
+          )}
+        </div>
+        <div>
+          <label className="field-label" htmlFor="check-high">
+            Measured high time
+          </label>
+          <input
+            id="check-high"
+            className="input num"
+            inputMode="decimal"
+            placeholder="e.g. 2.00 ms"
+            value={high}
+            onChange={(e) => setHigh(e.target.value)}
+            aria-invalid={!!errors.measuredHighS}
+            aria-describedby={errors.measuredHighS ? "check-high-error" : undefined}
+          />
+          {errors.measuredHighS && (
+            <p id="check-high-error" className="field-error">
+              {errors.measuredHighS}
+            </p>
+          )}
+        </div>
+      </div>
+      <div>
+        <label className="field-label" htmlFor="check-capture">
+          Or take the values from a capture
+        </label>
+        <select
+          id="check-capture"
+          className="input"
+          value={captureId}
+          onChange={(e) => setCaptureId(e.target.value)}
+        >
+          <option value="">No capture (typed values)</option>
+          {captures.map((c) => (
+            <option key={c.id} value={c.id}>
+              #{c.id} {c.fileName}: {formatEng(c.measurement.periodS.mean, "s", 5)} /{" "}
+              {formatEng(c.measurement.highS.mean, "s", 5)}
+            </option>
+          ))}
+        </select>
+        <p className="mt-1 text-xs text-ink-muted">Typed values win over the capture&apos;s.</p>
+      </div>
+      <div>
+        <label className="field-label" htmlFor="check-notes">
+          Notes
+        </label>
+        <textarea
+          id="check-notes"
+          className="input"
+          rows={3}
+          value={notes}
+          onChange={(e) => setNotes(e.target.value)}
+        />
+      </div>
+      <div>
+        <label className="field-label" htmlFor="check-signer">
+          Signed off by
+        </label>
+        <input
+          id="check-signer"
+          className="input"
+          autoComplete="name"
+          value={signedOffBy}
+          onChange={(e) => setSignedOffBy(e.target.value)}
+          aria-invalid={!!errors.signedOffBy}
+        />
+        {errors.signedOffBy && <p className="field-error">{errors.signedOffBy}</p>}
+      </div>
+      {errors.form && (
+        <p role="alert" className="field-error">
+          {errors.form}
+        </p>
+      )}
+      <div>
+        <button type="submit" className="btn-primary" disabled={busy}>
+          {busy ? "Recording…" : "Record check"}
+        </button>
+      </div>
+      {result && (
+        <div
+          role="status"
+          className={`rounded border-2 p-3 ${result.passed ? "border-ok bg-ok-soft" : "border-hazard bg-hazard-soft"}`}
+          data-testid="check-result"
+        >
+          <p className="font-semibold">
+            {result.passed
+              ? "Check passed: every line is within its limits."
+              : "Check failed: a line is outside its limits. The revision's author has been e-mailed."}
+          </p>
+          <CheckLines lines={result.lines} />
+        </div>
+      )}
+    </form>
+  );
+}
