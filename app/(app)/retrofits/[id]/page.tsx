@@ -1,0 +1,19 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { RetrofitWorkspace } from "@/components/retrofit/workspace";
+import { NotAllowed } from "@/components/ui/not-allowed";
+import { pageUser } from "@/lib/auth/page";
+import { EDIT, READ_ALL } from "@/lib/auth/roles";
+import { getRetrofitById } from "@/lib/retrofits/get";
+
+export const metadata: Metadata = { title: "Retrofit" };
+
+export default async function RetrofitPage({ params }: { params: Promise<{ id: string }> }) {
+  const { user, allowed } = await pageUser(READ_ALL);
+  if (!allowed) return <NotAllowed role={user.role} what="retrofits" />;
+  const raw = (await params).id;
+  if (!/^[1-9][0-9]{0,9}$/.test(raw)) notFound();
+  const retrofit = await getRetrofitById({ id: Number(raw) });
+  if (!retrofit) notFound();
+  return <RetrofitWorkspace id={retrofit.id} canEdit={EDIT.includes(user.role)} />;
+}

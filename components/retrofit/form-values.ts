@@ -1,0 +1,28 @@
+// Stored rows <-> form text, and the one schema the workspace form uses (the
+// same stage and target schemas the API validates with).
+import { z } from "zod";
+import type { TargetRow } from "@/db/schema";
+import { formatEng, type Stage } from "@/lib/engine";
+import { stageSchema, stageToForm, type StageFormValues } from "@/lib/validation/stage";
+import { targetsSchema, type Target, type TargetInput } from "@/lib/validation/target";
+
+export const workspaceSchema = z.object({ stage: stageSchema, targets: targetsSchema });
+export type WorkspaceForm = { stage: StageFormValues; targets: TargetInput[] };
+export type WorkspaceOut = { stage: Stage; targets: Target[] };
+
+export function targetToForm(t: TargetRow): TargetInput {
+  return {
+    device: t.device,
+    clockSource: t.clockSource,
+    clockHz: formatEng(t.clockHz, "", 6).replace("µ", "u"),
+    clockAccuracyPpm: t.clockAccuracyPpm === null ? "" : String(t.clockAccuracyPpm),
+    mode: (t.mode ?? "") as TargetInput["mode"],
+    timer: t.timer ?? "",
+    requiredTolerancePct: t.requiredTolerancePct === null ? "" : String(t.requiredTolerancePct),
+    activeLow: t.activeLow,
+  };
+}
+
+export function toForm(stage: Stage | null, targets: TargetRow[]): WorkspaceForm {
+  return { stage: stageToForm(stage), targets: targets.map(targetToForm) };
+}

@@ -1,0 +1,166 @@
+"use client";
+// Target rows: device, clock source and frequency, mode, timer, required
+// tolerance. Device choices come from the engine's catalogue.
+import { useFieldArray, useFormContext } from "react-hook-form";
+import { listDevices } from "@/lib/engine";
+import { defaultTarget, deviceById } from "@/lib/validation/target";
+import type { WorkspaceForm } from "./form-values";
+
+const DEVICES = listDevices();
+
+type RowErrors = Record<string, { message?: string } | undefined>;
+
+export function TargetsFields({ disabled }: { disabled: boolean }) {
+  const { control, register, watch, setValue, formState } = useFormContext<WorkspaceForm>();
+  const { fields, append, remove } = useFieldArray({ control, name: "targets" });
+  const rowsErrors = (formState.errors.targets ?? []) as unknown as RowErrors[];
+  const listError = (formState.errors.targets as { message?: string } | undefined)?.message;
+
+  return (
+    <fieldset className="space-y-3">
+      <legend className="font-semibold">Targets</legend>
+      {fields.length === 0 && (
+        <p className="text-sm text-ink-soft">
+          No target yet. Add the microcontroller that will replace the stage.
+        </p>
+      )}
+      {fields.map((field, i) => {
+        const deviceId = watch(`targets.${i}.device`);
+        const device = deviceById(deviceId);
+        const err = rowsErrors[i] ?? {};
+        const input = (name: string) => ({
+          id: `target-${i}-${name}`,
+          "aria-invalid": Boolean(err[name]),
+          "aria-describedby": err[name] ? `target-${i}-${name}-error` : undefined,
+        });
+        const msg = (name: string) =>
+          err[name]?.message ? (
+            <p id={`target-${i}-${name}-error`} className="field-error">
+              {err[name]?.message}
+            </p>
+          ) : null;
+        return (
+          <div
+            key={field.id}
+            className="rounded border border-paper-line p-3"
+            aria-label={`Target ${i + 1}`}
+            role="group"
+          >
+            <div className="mb-2 flex items-center justify-between">
+              <h3 className="text-sm font-semibold">Target {i + 1}</h3>
+              {!disabled && (
+                <button type="button" className="btn text-xs" onClick={() => remove(i)}>
+                  Remove target {i + 1}
+                </button>
+              )}
+            </div>
+            <div className="grid gap-3 sm:grid-cols-3">
+              <div>
+                <label className="field-label" htmlFor={`target-${i}-device`}>
+                  Device
+                </label>
+                <select
+                  className="input"
+                  {...input("device")}
+                  {...register(`targets.${i}.device`, {
+                    onChange: (e) => {
+                      const t = defaultTarget(e.target.value);
+                      setValue(`targets.${i}.clockSource`, t.clockSource);
+                      setValue(`targets.${i}.clockHz`, t.clockHz);
+                      setValue(`targets.${i}.timer`, "");
+                    },
+                  })}
+                >
+                  {DEVICES.map((d) => (
+                    <option key={d.id} value={d.id}>
+                      {d.name}
+                    </option>
+                  ))}
+                </select>
+                {msg("device")}
+              </div>
+              <div>
+                <label className="field-label" htmlFor={`target-${i}-clockSource`}>
+                  Clock source
+                </label>
+                <select
+                  className="input"
+                  {...input("clockSource")}
+                  {...register(`targets.${i}.clockSource`, {
+                    onChange: (e) => {
+                      const c = device?.clocks.find((x) => x.id === e.target.value);
+                      if (c?.hz) setValue(`targets.${i}.clockHz`, String(c.hz), { shouldValidate: true });
+                    },
+                  })}
+                >
+                  {device?.clocks.map((c) => (
+                    <option key={c.id} value={c.id}>
+                      {c.label}
+                    </option>
+                  ))}
+                </select>
+                {msg("clockSource")}
+              </div>
+              <div>
+                <label className="field-label" htmlFor={`target-${i}-clockHz`}>
+                  Clock frequency (Hz)
+                </label>
+                <input
+                  className="input num"
+                  autoComplete="off"
+                  {...input("clockHz")}
+                  {...register(`targets.${i}.clockHz`)}
+                />
+                {msg("clockHz")}
+              </div>
+              <div>
+                <label className="field-label" htmlFor={`target-${i}-mode`}>
+                  Mode
+                </label>
+                <select className="input" {...input("mode")} {...register(`targets.${i}.mode`)}>
+                  <option value="">pwm (default)</option>
+                  <option value="pwm">pwm: hardware PWM</option>
+                  <option value="toggle">toggle: compare toggles the pin</option>
+                  <option value="isr">isr: interrupt drives the pin</option>
+                </select>
+                {msg("mode")}
+              </div>
+              <div>
+                <label className="field-label" htmlFor={`target-${i}-timer`}>
+                  Timer
+                </label>
+                <select className="input" {...input("timer")} {...register(`targets.${i}.timer`)}>
+                  <option value="">best fit</option>
+                  {device?.timers.map((t) => (
+                    <option key={t.name} value={t.name}>
+                      {t.name} ({t.bits}-bit)
+                    </option>
+                  ))}
+                </select>
+                {msg("timer")}
+              </div>
+              <div>
+                <label className="field-label" htmlFor={`target-${i}-requiredTolerancePct`}>
+                  Required period tolerance (%)
+                </label>
+                <input
+                  className="input num"
+                  autoComplete="off"
+                  {...input("requiredTolerancePct")}
+                  {...register(`targets.${i}.requiredTolerancePct`)}
+                />
+                {msg("requiredTolerancePct")}
+              </div>
+            </div>
+          </div>
+        );
+      })}
+      {listError && <p className="field-error">{listError}</p>}
+      {!disabled && (
+        <button type="button" className="btn" onClick={() => append(defaultTarget())}>
+          Add target
+        </button>
+      )}
+    </fieldset>
+  );
+}
