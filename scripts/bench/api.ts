@@ -7,10 +7,9 @@ import { db } from "@/db/client";
 import { apiTokens, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { newTokenSecret } from "@/lib/auth/tokens";
-import { analyzeStage } from "@/lib/engine";
 import { figure, skipped, type Figure } from "./figures";
 import { load, type LoadResult } from "./load";
-import { STAGE, sixTargets } from "./workload";
+import { deviceClocks, STAGE } from "./workload";
 
 const CONNECTIONS = 50;
 const SECONDS = Number(process.env.BENCH_LOAD_SECONDS ?? 10);
@@ -92,8 +91,7 @@ export async function apiPart(log: (s: string) => void) {
   if (!base) throw new Error("BENCH_BASE_URL not set (run through scripts/bench.sh)");
   const token = await benchToken();
   const headers = { authorization: `Bearer ${token}`, "content-type": "application/json" };
-  const a = analyzeStage(STAGE);
-  const targets = sixTargets(a.periodS, a.highS);
+  const targets = deviceClocks().map((c) => ({ ...c, mode: "pwm" }));
   const figures: Figure[] = [];
   const details: Record<string, unknown> = {};
 
@@ -122,7 +120,7 @@ export async function apiPart(log: (s: string) => void) {
       mainsPowered: true,
       drivesThyristor: true,
       stage: STAGE,
-      targets: targets.map((t) => ({ ...t, clockSource: "external" })),
+      targets,
     });
     const retrofitId = idOf(retrofit, "retrofit");
     const revision = await call(base, token, "POST", `/api/v1/retrofits/${retrofitId}/revisions`, {});

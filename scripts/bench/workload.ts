@@ -13,17 +13,27 @@ export const STAGE: UjtStage = {
   tolerances: { timingR: 0.05, timingC: 0.1, eta: [0.08, 0.08] },
 };
 
-/** One target per device on a clock each device's clock options offer; period and high time of the stage. */
+/**
+ * A usual clock per device, from its clock options: crystal 16 MHz, crystal
+ * 8 MHz, HSE + PLL 64 MHz, XOSC + PLL 125 MHz (the RP2040 SDK default),
+ * 8 MHz x 4 PLL, calibrated DCO 16 MHz.
+ */
+const CLOCKS: [string, string, number][] = [
+  ["atmega328p", "crystal", 16e6],
+  ["attiny85", "crystal", 8e6],
+  ["stm32g031", "hse-pll", 64e6],
+  ["rp2040", "xosc-pll", 125e6],
+  ["pic12f1840", "crystal-pll", 32e6],
+  ["msp430g2553", "dco-cal", 16e6],
+];
+
+export function deviceClocks(): { device: string; clockSource: string; clockHz: number }[] {
+  return CLOCKS.map(([device, clockSource, clockHz]) => ({ device, clockSource, clockHz }));
+}
+
+/** One target per device, period and high time of the stage. */
 export function sixTargets(periodS: number, highS: number): BundleTargetRequest[] {
-  const clocks: [string, number][] = [
-    ["atmega328p", 16e6],
-    ["attiny85", 8e6],
-    ["stm32g031", 16e6],
-    ["rp2040", 125e6],
-    ["pic12f1840", 32e6],
-    ["msp430g2553", 16e6],
-  ];
-  return clocks.map(([device, clockHz]) => ({ device, clockHz, periodS, highS }));
+  return deviceClocks().map(({ device, clockHz }) => ({ device, clockHz, periodS, highS }));
 }
 
 export function sixDeviceSpec(periodS: number, highS: number): BundleSpec {
