@@ -1,0 +1,354 @@
+// ONE table of every route handler and page, with the roles the product
+// allows (product.md "People and roles", lib/auth/roles.ts) and a builder for
+// a valid request. The matrix test runs every principal against every entry;
+// the completeness test fails when app/ has a handler or page not listed here.
+import type { Role } from "@/db/schema";
+import { makeToken } from "../../helpers/users";
+import { makeCapture, makeRetrofit, makeRevision, squareCsv, type Principal, type World } from "./world";
+
+export type Method = "GET" | "POST" | "PATCH" | "PUT" | "DELETE";
+
+export type BuiltRequest = {
+  path: string;
+  /** JSON body (sent as application/json). */
+  json?: unknown;
+  /** Raw body with its content type (capture upload). */
+  raw?: { body: string; type: string };
+};
+
+export type RouteEntry = {
+  method: Method;
+  /** The folder path under app/, as Next.js names it: /api/v1/retrofits/[id]. */
+  pattern: string;
+  /** Roles that succeed; "public" = anyone, signed in or not. */
+  allowed: readonly Role[] | "public";
+  /** Refused roles that get 404 instead of 403, because the object is hidden
+   *  from them (a technician asking for a draft or another site's object). */
+  hiddenFrom?: readonly Role[];
+  /** Success statuses (default 200). */
+  ok?: readonly number[];
+  /** Builds a valid request for this principal; may create fresh objects so
+   *  that every allowed case acts on an object in the right state. */
+  build: (w: World, as: Principal) => Promise<BuiltRequest>;
+  /** The request carries input the bad-input corpus should mutate. */
+  input?: "json" | "csv" | "query";
+};
+
+const READ_ALL: Role[] = ["admin", "engineer", "reviewer"];
+const EDIT: Role[] = ["admin", "engineer"];
+const REVIEW: Role[] = ["admin", "reviewer"];
+const ANY: Role[] = ["admin", "engineer", "reviewer", "technician"];
+const CAPTURE: Role[] = ["admin", "engineer", "technician"];
+const FIELD: Role[] = ["admin", "technician"];
+const ADMIN: Role[] = ["admin"];
+
+/** The acting user's id, or the spare engineer's for signed-out principals. */
+export function actingId(w: World, as: Principal): number {
+  return as === "signed-out" || as === "revoked-token" ? w.author.id : w.actors[as].id;
+}
+
+const planBody = () => ({
+  stage: { kind: "measured", periodS: "10m", highS: "2m" },
+  targets: [
+    { device: "atmega328p", clockSource: "crystal", clockHz: "16M", mode: "pwm", requiredTolerancePct: 2 },
+  ],
+});
+
+const fresh = async (w: World) => makeRetrofit(w, w.author.id);
+
+export const ROUTES: RouteEntry[] = [
+  { method: "GET", pattern: "/api/health", allowed: "public", build: async () => ({ path: "/api/health" }) },
+  {
+    method: "GET",
+    pattern: "/api/auth/[...nextauth]",
+    allowed: "public",
+    build: async () => ({ path: "/api/auth/providers" }),
+  },
+  {
+    // next-auth's own client log endpoint: public by design, stores nothing.
+    method: "POST",
+    pattern: "/api/auth/[...nextauth]",
+    allowed: "public",
+    build: async () => ({ path: "/api/auth/_log", json: { level: "debug", code: "probe", message: "x" } }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/plan",
+    allowed: ANY,
+    input: "json",
+    build: async () => ({ path: "/api/v1/plan", json: planBody() }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/retrofits",
+    allowed: READ_ALL,
+    input: "query",
+    build: async () => ({ path: "/api/v1/retrofits?q=Reliability&page=1&pageSize=5&sort=name&dir=asc" }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/retrofits",
+    allowed: EDIT,
+    ok: [201],
+    input: "json",
+    build: async (w) => ({
+      path: "/api/v1/retrofits",
+      json: {
+        name: `Reliability ${w.tag} new`,
+        site: w.site,
+        assetTag: `RL-NEW-${w.tag}`,
+        ...planBody(),
+      },
+    }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/retrofits/[id]",
+    allowed: READ_ALL,
+    build: async (w) => ({ path: `/api/v1/retrofits/${w.retrofitId}` }),
+  },
+  {
+    method: "PATCH",
+    pattern: "/api/v1/retrofits/[id]",
+    allowed: EDIT,
+    input: "json",
+    build: async (w) => ({
+      path: `/api/v1/retrofits/${(await fresh(w)).id}`,
+      json: { description: "Relay cabinet 3", ...planBody() },
+    }),
+  },
+  {
+    method: "DELETE",
+    pattern: "/api/v1/retrofits/[id]",
+    allowed: EDIT,
+    build: async (w) => ({ path: `/api/v1/retrofits/${(await fresh(w)).id}` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/retrofits/[id]/revisions",
+    allowed: READ_ALL,
+    build: async (w) => ({ path: `/api/v1/retrofits/${w.retrofitId}/revisions` }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/retrofits/[id]/revisions",
+    allowed: EDIT,
+    ok: [201],
+    input: "json",
+    build: async (w) => ({
+      path: `/api/v1/retrofits/${(await fresh(w)).id}/revisions`,
+      json: { note: "first" },
+    }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/retrofits/[id]/field-checks",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/retrofits/${w.retrofitId}/field-checks` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/revisions/[id]",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/revisions/[id]/files",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}/files` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/revisions/[id]/files/[...path]",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}/files/README.md` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/revisions/[id]/bundle",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}/bundle` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/revisions/[id]/comments",
+    allowed: READ_ALL,
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.in_review}/comments` }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/revisions/[id]/comments",
+    allowed: READ_ALL,
+    ok: [201],
+    input: "json",
+    build: async (w) => ({
+      path: `/api/v1/revisions/${w.revision.in_review}/comments`,
+      json: { body: "Check the prescaler.", filePath: "README.md", line: 1 },
+    }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/revisions/[id]/submit",
+    allowed: EDIT,
+    input: "json",
+    build: async (w, as) => {
+      const rf = await fresh(w);
+      const rev = await makeRevision(rf.id, actingId(w, as), "draft");
+      return { path: `/api/v1/revisions/${rev.id}/submit`, json: { note: "ready" } };
+    },
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/revisions/[id]/decision",
+    allowed: REVIEW,
+    input: "json",
+    build: async (w) => {
+      const rf = await fresh(w);
+      const rev = await makeRevision(rf.id, w.author.id, "in_review");
+      return { path: `/api/v1/revisions/${rev.id}/decision`, json: { decision: "approved", note: "ok" } };
+    },
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/diff",
+    allowed: READ_ALL,
+    // Technicians may compare approved revisions only; a draft in the pair is hidden.
+    hiddenFrom: ["technician"],
+    input: "query",
+    build: async (w) => ({ path: `/api/v1/diff?a=${w.revision.approved}&b=${w.revision.draft}` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/tokens",
+    allowed: ANY,
+    build: async () => ({ path: "/api/v1/tokens" }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/tokens",
+    allowed: ANY,
+    ok: [201],
+    input: "json",
+    build: async () => ({ path: "/api/v1/tokens", json: { name: "bench laptop" } }),
+  },
+  {
+    method: "DELETE",
+    pattern: "/api/v1/tokens/[id]",
+    allowed: ANY,
+    build: async (w, as) => {
+      // A token of the acting user (or the spare engineer's for the signed-out cases).
+      await makeToken(actingId(w, as));
+      const { db } = await import("@/db/client");
+      const { apiTokens } = await import("@/db/schema");
+      const { desc, eq } = await import("drizzle-orm");
+      const [t] = await db
+        .select({ id: apiTokens.id })
+        .from(apiTokens)
+        .where(eq(apiTokens.userId, actingId(w, as)))
+        .orderBy(desc(apiTokens.id))
+        .limit(1);
+      return { path: `/api/v1/tokens/${t.id}` };
+    },
+  },
+  { method: "GET", pattern: "/api/v1/users", allowed: ADMIN, build: async () => ({ path: "/api/v1/users" }) },
+  {
+    method: "POST",
+    pattern: "/api/v1/captures",
+    allowed: CAPTURE,
+    ok: [201],
+    input: "csv",
+    build: async (w) => ({
+      path: `/api/v1/captures?retrofitId=${w.retrofitId}`,
+      raw: { body: squareCsv(), type: "text/csv" },
+    }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/captures",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/captures?retrofitId=${w.retrofitId}` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/captures/[id]",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/captures/${w.captureId}` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/captures/[id]/plot",
+    allowed: ANY,
+    input: "query",
+    build: async (w) => ({ path: `/api/v1/captures/${w.captureId}/plot?fromS=0.001&toS=0.05` }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/captures/[id]/use-as-stage",
+    allowed: EDIT,
+    input: "json",
+    build: async (w) => {
+      const rf = await fresh(w);
+      const capture = await makeCapture(rf.id, w.actors.technician.id);
+      return { path: `/api/v1/captures/${capture}/use-as-stage`, json: { retrofitId: rf.id } };
+    },
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/field-checks",
+    allowed: FIELD,
+    ok: [201],
+    input: "json",
+    build: async (w) => ({
+      path: "/api/v1/field-checks",
+      json: {
+        revisionId: w.revision.approved,
+        measuredPeriodS: 10e-3,
+        measuredHighS: 2e-3,
+        notes: "cabinet 3",
+        signedOffBy: "A. Tester",
+      },
+    }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/field-checks",
+    allowed: ANY,
+    input: "query",
+    build: async (w) => ({ path: `/api/v1/field-checks?retrofitId=${w.retrofitId}` }),
+  },
+];
+
+export type PageEntry = {
+  /** The folder path under app/ without route groups: /retrofits/[id]. */
+  pattern: string;
+  /** Roles that see the page; the rest see the "Not allowed" panel. "public" = anyone. */
+  allowed: readonly Role[] | "public";
+  path: (w: World) => string;
+};
+
+const REVIEW_VIEW: Role[] = ["admin", "engineer", "reviewer"];
+const FIELD_VIEW: Role[] = ["admin", "engineer", "technician"];
+
+export const PAGES: PageEntry[] = [
+  { pattern: "/", allowed: "public", path: () => "/" },
+  { pattern: "/sign-in", allowed: "public", path: () => "/sign-in" },
+  { pattern: "/admin", allowed: ADMIN, path: () => "/admin" },
+  { pattern: "/audit", allowed: ADMIN, path: () => "/audit" },
+  { pattern: "/field", allowed: FIELD_VIEW, path: () => "/field" },
+  { pattern: "/retrofits", allowed: READ_ALL, path: () => "/retrofits" },
+  { pattern: "/retrofits/new", allowed: EDIT, path: () => "/retrofits/new" },
+  { pattern: "/retrofits/[id]", allowed: READ_ALL, path: (w) => `/retrofits/${w.retrofitId}` },
+  {
+    pattern: "/retrofits/[id]/compare",
+    allowed: READ_ALL,
+    path: (w) => `/retrofits/${w.retrofitId}/compare?a=${w.revision.approved}&b=${w.revision.draft}`,
+  },
+  { pattern: "/reviews", allowed: REVIEW_VIEW, path: () => "/reviews" },
+  {
+    pattern: "/revisions/[id]/review",
+    allowed: READ_ALL,
+    path: (w) => `/revisions/${w.revision.in_review}/review`,
+  },
+  { pattern: "/settings", allowed: ANY, path: () => "/settings" },
+];
