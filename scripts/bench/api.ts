@@ -95,14 +95,19 @@ export async function apiPart(log: (s: string) => void) {
   const figures: Figure[] = [];
   const details: Record<string, unknown> = {};
 
-  // Plan: the atmega328p target, the same body every time.
+  // Plan: the stage without tolerances (the Monte Carlo cost is the engine
+  // figure) and one atmega328p target, the same body every time.
   try {
-    await call(base, token, "POST", "/api/v1/plan", targets[0]);
+    const bare = { ...STAGE, tolerances: undefined }; // dropped by JSON.stringify
+    const body = { stage: bare, targets: [targets[0]] };
+    const answer = await call(base, token, "POST", "/api/v1/plan", body);
+    if (!Array.isArray(answer.plans))
+      throw new Error(`no plans in the answer: ${JSON.stringify(answer).slice(0, 200)}`);
     const r = await measure({
       url: `${base}/api/v1/plan`,
       method: "POST",
       headers,
-      body: JSON.stringify(targets[0]),
+      body: JSON.stringify(body),
     });
     log(`api: plan ${r.perSecond.toFixed(0)} req/s, p95 ${r.p95Ms.toFixed(1)} ms`);
     figures.push(...loadFigures("POST /plan", r, 20));
