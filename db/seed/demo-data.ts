@@ -66,7 +66,7 @@ export const DEMO_RETROFITS: DemoRetrofit[] = [
       tolerances: { ra: 0.05, rb: 0.05, c: [0.2, 0.8] },
     },
     targets: [
-      { device: "attiny85", clockSource: "internal", clockHz: 8e6, mode: "isr", requiredTolerancePct: 10 },
+      { device: "attiny85", clockSource: "rc8m-cal", clockHz: 8e6, mode: "isr", requiredTolerancePct: 10 },
       { device: "stm32g031", clockSource: "hsi16", clockHz: 16e6, mode: "pwm", requiredTolerancePct: 5 },
     ],
   },
@@ -79,7 +79,7 @@ export const DEMO_RETROFITS: DemoRetrofit[] = [
     mainsPowered: false,
     drivesThyristor: false,
     stage: { kind: "schmitt-rc", supplyV: 5, r: 100e3, c: 47e-9, vtPlus: 2.9, vtMinus: 1.6 },
-    targets: [{ device: "rp2040", clockSource: "crystal-pll", clockHz: 125e6, mode: "pwm", requiredTolerancePct: 1 }],
+    targets: [{ device: "rp2040", clockSource: "xosc-pll", clockHz: 125e6, mode: "pwm", requiredTolerancePct: 1 }],
   },
   {
     name: "Relay panel alarm blinker",
@@ -109,6 +109,6 @@ export const DEMO_RETROFITS: DemoRetrofit[] = [
     mainsPowered: false,
     drivesThyristor: false,
     stage: { kind: "opamp-relaxation", r: 47e3, c: 1e-6, feedbackR1: 10e3, feedbackR2: 8.2e3 },
-    targets: [{ device: "msp430g2553", clockSource: "dco-calibrated", clockHz: 1e6, mode: "pwm" }],
+    targets: [{ device: "msp430g2553", clockSource: "dco-cal", clockHz: 1e6, mode: "pwm" }],
   },
 ];

@@ -2,7 +2,7 @@
 // the bundle, and store the revision, its files and an audit event in ONE
 // transaction. The retrofit row is locked FOR UPDATE first, so concurrent
 // generations on one retrofit queue up and get gapless numbers max+1.
-import "server-only";
+// No "server-only" marker: the seed script runs this outside Next.
 import { asc, eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { retrofits, revisionFiles, revisions, stages, targets, type Revision } from "@/db/schema";
@@ -132,16 +132,14 @@ export async function generateRevision({
         createdBy: userId,
       })
       .returning();
-    await tx
-      .insert(revisionFiles)
-      .values(
-        files.map((f) => ({
-          revisionId: row.id,
-          path: f.path,
-          content: f.content,
-          sha256: sha256Hex(f.content),
-        })),
-      );
+    await tx.insert(revisionFiles).values(
+      files.map((f) => ({
+        revisionId: row.id,
+        path: f.path,
+        content: f.content,
+        sha256: sha256Hex(f.content),
+      })),
+    );
     await recordAudit(
       {
         actorId: userId,
