@@ -63,7 +63,7 @@ export function MeasurementTable({ m }: { m: MeasurementSummary }) {
         <dd className="num">{m.edgesTotal}</dd>
       </dl>
       {m.warnings.length > 0 && (
-        <ul className="list-disc pl-5 text-sm text-ink-soft" aria-label="Measurement notes">
+        <ul className="list-disc pl-5 text-sm text-ink-soft" aria-label="Measurement warnings">
           {m.warnings.map((w) => (
             <li key={w.code}>{w.message}</li>
           ))}

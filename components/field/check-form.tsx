@@ -8,11 +8,7 @@ import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatEng, parseEng } from "@/lib/engine";
 import type { CaptureView, FieldCheckView } from "@/lib/field/shapes";
 import { CheckLines } from "./check-lines";
-import { historyKey } from "./field-history";
-
-export function capturesKey(retrofitId: number): string {
-  return `/api/v1/captures?retrofitId=${retrofitId}`;
-}
+import { capturesKey, historyKey } from "./keys";
 
 type Props = { revisionId: number; retrofitId: number; devices: string[]; signer: string };
 type Errors = Partial<Record<"measuredPeriodS" | "measuredHighS" | "signedOffBy" | "form", string>>;

@@ -5,10 +5,7 @@ import useSWR from "swr";
 import { formatEng } from "@/lib/engine";
 import type { FieldCheckView } from "@/lib/field/shapes";
 import { CheckLines } from "./check-lines";
-
-export function historyKey(retrofitId: number): string {
-  return `/api/v1/retrofits/${retrofitId}/field-checks`;
-}
+import { historyKey } from "./keys";
 
 export function FieldHistory({ retrofitId }: { retrofitId: number }) {
   const { data, error, isLoading } = useSWR<{ checks: FieldCheckView[] }>(historyKey(retrofitId));
