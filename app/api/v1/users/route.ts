@@ -9,7 +9,14 @@ import { ADMIN } from "@/lib/auth/roles";
 export const GET = apiRoute(async (req) => {
   await requireUser({ roles: ADMIN, req });
   const rows = await db
-    .select({ id: users.id, email: users.email, name: users.name, role: users.role, site: users.site, disabled: users.disabled })
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      role: users.role,
+      site: users.site,
+      disabled: users.disabled,
+    })
     .from(users)
     .orderBy(asc(users.id));
   return Response.json({ users: rows });
