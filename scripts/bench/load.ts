@@ -11,17 +11,20 @@ export interface LoadResult {
   p99Ms: number;
   /** Socket errors, timeouts and responses outside 2xx. */
   errors: number;
-  statuses: Record<number, number>;
+  /** Responses by HTTP status, plus "socket errors" and "timeouts" (no response). */
+  statuses: Record<string, number>;
 }
 
 export function load(options: autocannon.Options): Promise<LoadResult> {
   const url = new URL(options.url);
   if (url.hostname !== "127.0.0.1") throw new Error(`load runs on loopback only, not ${url.hostname}`);
   const times: number[] = [];
-  const statuses: Record<number, number> = {};
+  const statuses: Record<string, number> = {};
   return new Promise((resolve, reject) => {
     const instance = autocannon({ pipelining: 1, timeout: 10, ...options }, (err, r) => {
       if (err) return reject(err);
+      if (r.timeouts) statuses.timeouts = r.timeouts;
+      if (r.errors) statuses["socket errors"] = r.errors;
       resolve({
         requests: times.length,
         perSecond: times.length / r.duration,
