@@ -251,6 +251,15 @@ export const ROUTES: RouteEntry[] = [
       return { path: `/api/v1/tokens/${t.id}` };
     },
   },
+  {
+    method: "GET",
+    pattern: "/api/v1/audit",
+    allowed: ADMIN,
+    input: "query",
+    build: async (w) => ({
+      path: `/api/v1/audit?action=revision.generate&actor=${w.author.id}&from=2020-01-01&page=1`,
+    }),
+  },
   { method: "GET", pattern: "/api/v1/users", allowed: ADMIN, build: async () => ({ path: "/api/v1/users" }) },
   {
     method: "POST",
@@ -351,4 +360,13 @@ export const PAGES: PageEntry[] = [
     path: (w) => `/revisions/${w.revision.in_review}/review`,
   },
   { pattern: "/settings", allowed: ANY, path: () => "/settings" },
+  { pattern: "/captures", allowed: ANY, path: () => "/captures" },
+  { pattern: "/captures/[id]", allowed: ANY, path: (w) => `/captures/${w.captureId}` },
+  { pattern: "/field/retrofits/[id]", allowed: ANY, path: (w) => `/field/retrofits/${w.retrofitId}` },
+  {
+    pattern: "/field/revisions/[id]",
+    allowed: FIELD_VIEW,
+    path: (w) => `/field/revisions/${w.revision.approved}`,
+  },
+  { pattern: "/revisions/[id]", allowed: ANY, path: (w) => `/revisions/${w.revision.approved}` },
 ];
