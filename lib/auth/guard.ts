@@ -31,16 +31,25 @@ export async function sessionUser(): Promise<AuthUser | null> {
   return typeof id === "number" ? loadUser(id, "session") : null;
 }
 
+// last_used_at is written at most once a minute per token: a busy script
+// would otherwise serialise its own requests on that row's lock.
+const LAST_USED_RESOLUTION_MS = 60_000;
+
 async function tokenUser(header: string): Promise<AuthUser | null> {
   const secret = header.slice("Bearer ".length).trim();
   if (!secret.startsWith(TOKEN_PREFIX)) return null;
   const [row] = await db
-    .select()
+    .select({ tokenId: apiTokens.id, lastUsedAt: apiTokens.lastUsedAt, user: users })
     .from(apiTokens)
+    .innerJoin(users, eq(users.id, apiTokens.userId))
     .where(and(eq(apiTokens.tokenHash, hashToken(secret)), isNull(apiTokens.revokedAt)));
-  if (!row) return null;
-  await db.update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.id));
-  return loadUser(row.userId, "token");
+  if (!row || row.user.disabled) return null;
+  const now = Date.now();
+  if (!row.lastUsedAt || now - row.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
+    await db.update(apiTokens).set({ lastUsedAt: new Date(now) }).where(eq(apiTokens.id, row.tokenId));
+  }
+  const u = row.user;
+  return { id: u.id, email: u.email, name: u.name, role: u.role, site: u.site, via: "token" };
 }
 
 /** Bearer token when the request carries one, else the session. */
