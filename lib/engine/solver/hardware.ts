@@ -43,22 +43,23 @@ export function bestHardware(
   if (!range || !factors) return null;
   const q = timer.dividerQuantum;
   let best: HardwareChoice | null = null;
+  // Hot loop (65 536 dividers on the STM32): compare plain numbers and build
+  // a choice object only when a candidate wins.
+  const consider = (d: number, n: number, m: 1 | 2, step: number, inRange: boolean) => {
+    const errorQuanta = Math.abs(step * n - targetQuanta);
+    if (best && errorQuanta > best.errorQuanta) return;
+    const c: HardwareChoice = { divider: d, periodCounts: n, modeFactor: m, errorQuanta, inRange };
+    if (!best || betterHardware(c, best)) best = c;
+  };
   for (const m of factors) {
     for (const d of timer.dividers) {
       const step = Math.round(d * q) * m; // quanta per count
       const x = targetQuanta / step;
       const lo = Math.min(range.max, Math.max(range.min, Math.floor(x)));
       const hi = Math.min(range.max, Math.max(range.min, Math.ceil(x)));
-      for (const n of lo === hi ? [lo] : [lo, hi]) {
-        const c: HardwareChoice = {
-          divider: d,
-          periodCounts: n,
-          modeFactor: m,
-          errorQuanta: Math.abs(step * n - targetQuanta),
-          inRange: x >= range.min - 0.5 && x <= range.max + 0.5,
-        };
-        if (!best || betterHardware(c, best)) best = c;
-      }
+      const inRange = x >= range.min - 0.5 && x <= range.max + 0.5;
+      consider(d, lo, m, step, inRange);
+      if (hi !== lo) consider(d, hi, m, step, inRange);
     }
   }
   return best;
