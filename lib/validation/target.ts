@@ -3,7 +3,7 @@
 // catalogue so a wrong clock option or timer is a field error, not a 500.
 import { z } from "zod";
 import { listDevices, type DeviceInfo } from "@/lib/engine";
-import { engNumber, optionalEngNumber } from "./eng";
+import { engNumber } from "./eng";
 
 const DEVICES = listDevices();
 export const DEVICE_IDS = DEVICES.map((d) => d.id) as [string, ...string[]];

@@ -2,22 +2,21 @@
 // approved revisions of their site only; reviewers read but do not edit;
 // archived retrofits stay readable and refuse changes.
 import { beforeAll, describe, expect, it } from "vitest";
-import { tokenClient } from "../../helpers/server";
 import { makeToken, makeUser } from "../../helpers/users";
-import { newRetrofitBody, setRevisionState } from "./fixtures";
+import { newRetrofitBody, setRevisionState, jsonClient, type JsonClient } from "./fixtures";
 
-let eng: ReturnType<typeof tokenClient>;
-let tech: ReturnType<typeof tokenClient>;
-let otherTech: ReturnType<typeof tokenClient>;
-let reviewer: ReturnType<typeof tokenClient>;
+let eng: JsonClient;
+let tech: JsonClient;
+let otherTech: JsonClient;
+let reviewer: JsonClient;
 let retrofitId: number;
 let revisionId: number;
 
 beforeAll(async () => {
-  eng = tokenClient(await makeToken((await makeUser("engineer")).id));
-  tech = tokenClient(await makeToken((await makeUser("technician", { site: "Test Site" })).id));
-  otherTech = tokenClient(await makeToken((await makeUser("technician", { site: "Elsewhere" })).id));
-  reviewer = tokenClient(await makeToken((await makeUser("reviewer")).id));
+  eng = jsonClient(await makeToken((await makeUser("engineer")).id));
+  tech = jsonClient(await makeToken((await makeUser("technician", { site: "Test Site" })).id));
+  otherTech = jsonClient(await makeToken((await makeUser("technician", { site: "Elsewhere" })).id));
+  reviewer = jsonClient(await makeToken((await makeUser("reviewer")).id));
   const res = await eng("/api/v1/retrofits", { method: "POST", body: newRetrofitBody() });
   retrofitId = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
   const gen = await eng(`/api/v1/retrofits/${retrofitId}/revisions`, { method: "POST" });

@@ -3,14 +3,13 @@
 import { createHash } from "node:crypto";
 import JSZip from "jszip";
 import { beforeAll, describe, expect, it } from "vitest";
-import { tokenClient } from "../../helpers/server";
 import { makeToken, makeUser } from "../../helpers/users";
-import { newRetrofitBody } from "./fixtures";
+import { newRetrofitBody, jsonClient, type JsonClient } from "./fixtures";
 
-let api: ReturnType<typeof tokenClient>;
+let api: JsonClient;
 beforeAll(async () => {
   const eng = await makeUser("engineer");
-  api = tokenClient(await makeToken(eng.id));
+  api = jsonClient(await makeToken(eng.id));
 });
 
 type Plan = {
@@ -149,7 +148,7 @@ describe("API with a personal token", () => {
     const made = await api("/api/v1/tokens", { method: "POST", body: { name: "script" } });
     expect(made.status).toBe(201);
     const { token } = (await made.json()) as { token: { id: number; secret: string } };
-    const second = tokenClient(token.secret);
+    const second = jsonClient(token.secret);
     expect((await second("/api/v1/tokens")).status).toBe(200);
     const listed = (await (await second("/api/v1/tokens")).json()) as { tokens: Record<string, unknown>[] };
     expect(JSON.stringify(listed)).not.toContain(token.secret);

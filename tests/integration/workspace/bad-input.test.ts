@@ -1,17 +1,16 @@
 // Bad input at every workspace endpoint: a field-level message, the right
 // status, and nothing stored (row counts before and after).
 import { beforeAll, describe, expect, it } from "vitest";
-import { tokenClient } from "../../helpers/server";
 import { makeToken, makeUser } from "../../helpers/users";
-import { newRetrofitBody, rowCounts, TWO_TARGETS, UJT_STAGE } from "./fixtures";
+import { newRetrofitBody, rowCounts, TWO_TARGETS, UJT_STAGE, jsonClient, type JsonClient } from "./fixtures";
 
-let api: ReturnType<typeof tokenClient>;
+let api: JsonClient;
 let retrofitId: number;
 let userId: number;
 beforeAll(async () => {
   const eng = await makeUser("engineer");
   userId = eng.id;
-  api = tokenClient(await makeToken(eng.id));
+  api = jsonClient(await makeToken(eng.id));
   const res = await api("/api/v1/retrofits", { method: "POST", body: newRetrofitBody() });
   retrofitId = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
 });

@@ -4,13 +4,12 @@ import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { revisions } from "@/db/schema";
-import { tokenClient } from "../../helpers/server";
 import { makeToken, makeUser } from "../../helpers/users";
-import { newRetrofitBody } from "./fixtures";
+import { jsonClient, newRetrofitBody } from "./fixtures";
 
 describe("concurrent generation", () => {
   it("gives unique gapless numbers", async () => {
-    const api = tokenClient(await makeToken((await makeUser("engineer")).id));
+    const api = jsonClient(await makeToken((await makeUser("engineer")).id));
     const res = await api("/api/v1/retrofits", { method: "POST", body: newRetrofitBody() });
     const id = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
     const n = 6;

@@ -2,6 +2,7 @@
 import { count, eq, inArray } from "drizzle-orm";
 import { db } from "@/db/client";
 import { apiTokens, retrofits, revisionFiles, revisions, stages, targets } from "@/db/schema";
+import { tokenClient } from "../../helpers/server";
 
 export const UJT_STAGE = {
   kind: "ujt",
@@ -49,3 +50,16 @@ export async function rowCounts(userId: number): Promise<Record<string, number>>
 export async function setRevisionState(id: number, state: "approved" | "draft") {
   await db.update(revisions).set({ state }).where(eq(revisions.id, id));
 }
+
+/** tokenClient with a body typed as any JSON value (stringified here). */
+export function jsonClient(token: string) {
+  const call = tokenClient(token);
+  return (path: string, init: Omit<RequestInit, "body"> & { body?: unknown } = {}) => {
+    const { body, ...rest } = init;
+    return call(path, {
+      ...rest,
+      ...(body === undefined ? {} : { body: typeof body === "string" ? body : JSON.stringify(body) }),
+    });
+  };
+}
+export type JsonClient = ReturnType<typeof jsonClient>;
