@@ -8,9 +8,10 @@ import JSZip from "jszip";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { retrofits } from "@/db/schema";
+import { apiTokens, retrofits } from "@/db/schema";
 import { analyzeStage, formatEng, type UjtStage } from "@/lib/engine";
 import { launch, signInAs } from "../helpers/browser";
+import { BASE_URL } from "../helpers/server";
 import { makeUser, TEST_PASSWORD } from "../helpers/users";
 
 let browser: Browser;
@@ -127,5 +128,33 @@ describe("retrofit workspace in the browser", () => {
     expect(await panel.isVisible()).toBe(true);
     expect(await t.page.getByTestId("bundle-sha256").count()).toBe(0);
     await t.context.close();
+  });
+
+  it("API tokens: empty name refused, a new token shown once and usable, then revoked", async () => {
+    const user = await makeUser("engineer");
+    const { context, page } = await signInAs(browser, user.email, TEST_PASSWORD);
+    page.setDefaultTimeout(60_000);
+    await page.goto("/settings");
+    await page.getByRole("button", { name: "Make token" }).click();
+    await page.getByText("Name the token.").waitFor();
+    expect(await db.select().from(apiTokens).where(eq(apiTokens.userId, user.id))).toHaveLength(0);
+
+    await page.getByLabel("Token name").fill("bundle fetch");
+    await page.getByRole("button", { name: "Make token" }).click();
+    const secret = ((await page.getByTestId("new-token").textContent()) ?? "").trim();
+    expect(secret).toMatch(/^cgt_/);
+    const res = await fetch(`${BASE_URL}/api/v1/tokens`, { headers: { authorization: `Bearer ${secret}` } });
+    expect(res.status).toBe(200);
+
+    page.once("dialog", (d) => d.accept());
+    await page.getByRole("button", { name: "Revoke" }).click();
+    await page.getByText(/^revoked /).waitFor();
+    const after = await fetch(`${BASE_URL}/api/v1/tokens`, {
+      headers: { authorization: `Bearer ${secret}` },
+    });
+    expect(after.status).toBe(401);
+    await page.reload();
+    expect(await page.getByTestId("new-token").count()).toBe(0); // shown once only
+    await context.close();
   });
 });
