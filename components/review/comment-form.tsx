@@ -45,7 +45,7 @@ export function CommentForm(props: {
   }
 
   return (
-    <form onSubmit={send} className="space-y-2" aria-label={`Comment on ${where}`}>
+    <form onSubmit={send} className="space-y-2" aria-label={`New comment on ${where}`}>
       <label htmlFor={id} className="field-label">
         Comment on {where}
       </label>
