@@ -60,6 +60,7 @@ export function WorkspaceEditor(props: {
           });
           if (!then) {
             setPhase({ kind: "saved" });
+            props.onChanged();
             return;
           }
           setPhase({ kind: "generating", number: props.nextNumber });

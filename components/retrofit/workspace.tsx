@@ -80,7 +80,7 @@ export function RetrofitWorkspace({ id, canEdit }: { id: number; canEdit: boolea
       )}
       <HazardCaution mainsPowered={r.mainsPowered} drivesThyristor={r.drivesThyristor} />
       <WorkspaceEditor
-        key={r.updatedAt}
+        key={r.id}
         retrofitId={r.id}
         stage={data.stage}
         targets={data.targets}
