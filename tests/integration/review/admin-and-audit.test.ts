@@ -118,7 +118,7 @@ describe("invitations", () => {
     const s = await signedIn(email, "a-long-pass-4k7");
     expect(await s.user()).toMatchObject({ email, role: "technician" });
     expect(await auditOf("invitation.create", res.body.invitation.id)).toHaveLength(1);
-  });
+  }, 180_000);
 
   it("refuses inviting an address that already has an account", async () => {
     const res = await adm.json<Err>("/api/v1/invitations", {
