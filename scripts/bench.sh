@@ -35,7 +35,9 @@ if ((needs_server)); then
   prepare_database --fresh >/dev/null
   if [[ ${BENCH_SKIP_BUILD:-} != 1 || ! -f $NEXT_DIST_DIR/BUILD_ID ]]; then
     echo "== production build into $NEXT_DIST_DIR (a few minutes on two cores)"
-    npx next build >/tmp/clockgraft-bench-build.log 2>&1 || { tail -50 /tmp/clockgraft-bench-build.log; exit 1; }
+    mkdir -p .data/run && save_tsconfig
+    npx next build >/tmp/clockgraft-bench-build.log 2>&1 || { restore_tsconfig; tail -50 /tmp/clockgraft-bench-build.log; exit 1; }
+    restore_tsconfig
   fi
   stop_bg bench-server
   stop_bg bench-mail

@@ -57,3 +57,8 @@ prepare_database() {
   npx tsx scripts/ensure-db.ts "$@"
   npx tsx scripts/migrate.ts
 }
+
+# `next build` / `next dev` with a NEXT_DIST_DIR of their own add that folder's
+# types to tsconfig.json; keep the committed file as it is.
+save_tsconfig() { cp tsconfig.json .data/run/tsconfig.json.saved; }
+restore_tsconfig() { [[ -f .data/run/tsconfig.json.saved ]] && cp .data/run/tsconfig.json.saved tsconfig.json || true; }

@@ -31,6 +31,8 @@ prepare_database ${3:-}
 npx tsx scripts/seed.ts
 stop_bg "dev-$NAME"
 start_bg "dev-mail-$NAME" npx tsx scripts/mail-catcher.ts --smtp "$SMTP_PORT" --http "$((PORT + 2))"
+save_tsconfig
 start_bg "dev-$NAME" node node_modules/next/dist/bin/next dev -p "$PORT"
 wait_for_url "$TEST_BASE_URL/api/health" 240
+restore_tsconfig
 echo "dev server $NAME on $TEST_BASE_URL (log .data/run/dev-$NAME.log)"
