@@ -7,6 +7,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: "/retrofits", label: "Retrofits", roles: ["admin", "engineer", "reviewer"] },
   { href: "/reviews", label: "Reviews", roles: ["admin", "reviewer", "engineer"] },
   { href: "/field", label: "Field", roles: ["admin", "technician", "engineer"] },
+  { href: "/captures", label: "Captures", roles: ["admin", "engineer", "technician"] },
   { href: "/audit", label: "Audit log", roles: ["admin"] },
   { href: "/admin", label: "Users", roles: ["admin"] },
   { href: "/settings", label: "API tokens", roles: ["admin", "engineer", "reviewer", "technician"] },

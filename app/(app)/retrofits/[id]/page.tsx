@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { FieldHistory } from "@/components/field/field-history";
 import { RetrofitWorkspace } from "@/components/retrofit/workspace";
 import { NotAllowed } from "@/components/ui/not-allowed";
 import { pageUser } from "@/lib/auth/page";
@@ -15,5 +16,10 @@ export default async function RetrofitPage({ params }: { params: Promise<{ id: s
   if (!/^[1-9][0-9]{0,9}$/.test(raw)) notFound();
   const retrofit = await getRetrofitById({ id: Number(raw) });
   if (!retrofit) notFound();
-  return <RetrofitWorkspace id={retrofit.id} canEdit={EDIT.includes(user.role)} />;
+  return (
+    <div className="flex flex-col gap-8">
+      <RetrofitWorkspace id={retrofit.id} canEdit={EDIT.includes(user.role)} />
+      <FieldHistory retrofitId={retrofit.id} />
+    </div>
+  );
 }
