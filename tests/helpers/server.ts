@@ -28,8 +28,12 @@ export class Session {
     return res;
   }
 
-  async json<T = unknown>(path: string, init: RequestInit & { body?: unknown } = {}): Promise<{ status: number; body: T }> {
-    const body = init.body === undefined || typeof init.body === "string" ? init.body : JSON.stringify(init.body);
+  async json<T = unknown>(
+    path: string,
+    init: Omit<RequestInit, "body"> & { body?: unknown } = {},
+  ): Promise<{ status: number; body: T }> {
+    const body =
+      init.body === undefined || typeof init.body === "string" ? init.body : JSON.stringify(init.body);
     const res = await this.fetch(path, {
       ...init,
       body: body as BodyInit | undefined,
@@ -68,12 +72,17 @@ export async function signedIn(email: string, password: string): Promise<Session
 
 /** Bearer-token client for the versioned API. */
 export function tokenClient(token: string) {
-  return async <T = unknown>(path: string, init: RequestInit & { body?: unknown } = {}) => {
-    const body = init.body === undefined || typeof init.body === "string" ? init.body : JSON.stringify(init.body);
+  return async <T = unknown>(path: string, init: Omit<RequestInit, "body"> & { body?: unknown } = {}) => {
+    const body =
+      init.body === undefined || typeof init.body === "string" ? init.body : JSON.stringify(init.body);
     const res = await fetch(BASE_URL + path, {
       ...init,
       body: body as BodyInit | undefined,
-      headers: { authorization: `Bearer ${token}`, "content-type": "application/json", ...(init.headers as Record<string, string>) },
+      headers: {
+        authorization: `Bearer ${token}`,
+        "content-type": "application/json",
+        ...(init.headers as Record<string, string>),
+      },
     });
     return res as Response & { json(): Promise<T> };
   };
