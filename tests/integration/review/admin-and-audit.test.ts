@@ -33,7 +33,7 @@ describe("user administration", () => {
     expect((await s.json("/api/v1/users")).status).toBe(403);
     const res = await adm.json<{ user: { role: string } }>(`/api/v1/users/${u.id}`, {
       method: "PATCH",
-      body: { role: "admin" },
+      body: JSON.stringify({ role: "admin" }),
     });
     expect(res.status).toBe(200);
     expect(res.body.user.role).toBe("admin");
@@ -48,7 +48,7 @@ describe("user administration", () => {
     const s = await signedIn(u.email, TEST_PASSWORD);
     const site = await adm.json<{ user: { site: string | null } }>(`/api/v1/users/${u.id}`, {
       method: "PATCH",
-      body: { site: "Tollbridge Works" },
+      body: JSON.stringify({ site: "Tollbridge Works" }),
     });
     expect(site.body.user.site).toBe("Tollbridge Works");
     expect((await auditOf("user.site-change", u.id))[0].details).toMatchObject({
@@ -56,7 +56,8 @@ describe("user administration", () => {
       to: "Tollbridge Works",
     });
     expect(
-      (await adm.json(`/api/v1/users/${u.id}`, { method: "PATCH", body: { disabled: true } })).status,
+      (await adm.json(`/api/v1/users/${u.id}`, { method: "PATCH", body: JSON.stringify({ disabled: true }) }))
+        .status,
     ).toBe(200);
     expect((await s.json("/api/v1/diff?a=1&b=2")).status).toBe(401);
     expect(await auditOf("user.disable", u.id)).toHaveLength(1);
@@ -65,20 +66,31 @@ describe("user administration", () => {
   it("refuses an admin demoting or disabling themselves, and non-admins changing anyone", async () => {
     const self = await adm.json<Err>(`/api/v1/users/${admin.id}`, {
       method: "PATCH",
-      body: { role: "engineer" },
+      body: JSON.stringify({ role: "engineer" }),
     });
     expect(self.status).toBe(403);
     expect(self.body.error.message).toMatch(/own role/);
     expect(
-      (await adm.json(`/api/v1/users/${admin.id}`, { method: "PATCH", body: { disabled: true } })).status,
+      (
+        await adm.json(`/api/v1/users/${admin.id}`, {
+          method: "PATCH",
+          body: JSON.stringify({ disabled: true }),
+        })
+      ).status,
     ).toBe(403);
     const eng = await makeUser("engineer");
     const s = await signedIn(eng.email, TEST_PASSWORD);
     expect(
-      (await s.json(`/api/v1/users/${eng.id}`, { method: "PATCH", body: { role: "admin" } })).status,
+      (await s.json(`/api/v1/users/${eng.id}`, { method: "PATCH", body: JSON.stringify({ role: "admin" }) }))
+        .status,
     ).toBe(403);
     expect(
-      (await adm.json<Err>(`/api/v1/users/${eng.id}`, { method: "PATCH", body: { role: "boss" } })).status,
+      (
+        await adm.json<Err>(`/api/v1/users/${eng.id}`, {
+          method: "PATCH",
+          body: JSON.stringify({ role: "boss" }),
+        })
+      ).status,
     ).toBe(400);
   });
 });
@@ -88,7 +100,7 @@ describe("invitations", () => {
     const email = `invited-${Date.now()}@test.invalid`;
     const res = await adm.json<{ link: string; invitation: { id: number } }>("/api/v1/invitations", {
       method: "POST",
-      body: { email, name: "Ada Invited", role: "technician", site: "Marrow Hill Reservoir" },
+      body: JSON.stringify({ email, name: "Ada Invited", role: "technician", site: "Marrow Hill Reservoir" }),
     });
     expect(res.status).toBe(201);
     const mail = await waitForMail(email, /Your Clockgraft account/, 60_000);
@@ -101,18 +113,18 @@ describe("invitations", () => {
 
     const short = await new Session().json<Err>("/api/v1/invitations/accept", {
       method: "POST",
-      body: { token, password: "short" },
+      body: JSON.stringify({ token, password: "short" }),
     });
     expect(short.status).toBe(400);
     const ok = await new Session().json<{ user: { role: string } }>("/api/v1/invitations/accept", {
       method: "POST",
-      body: { token, password: "a-long-pass-4k7" },
+      body: JSON.stringify({ token, password: "a-long-pass-4k7" }),
     });
     expect(ok.status).toBe(201);
     expect(ok.body.user.role).toBe("technician");
     const again = await new Session().json<Err>("/api/v1/invitations/accept", {
       method: "POST",
-      body: { token, password: "another-pass-4k7" },
+      body: JSON.stringify({ token, password: "another-pass-4k7" }),
     });
     expect(again.status).toBe(404);
     const s = await signedIn(email, "a-long-pass-4k7");
@@ -123,7 +135,7 @@ describe("invitations", () => {
   it("refuses inviting an address that already has an account", async () => {
     const res = await adm.json<Err>("/api/v1/invitations", {
       method: "POST",
-      body: { email: admin.email, name: "Again", role: "engineer" },
+      body: JSON.stringify({ email: admin.email, name: "Again", role: "engineer" }),
     });
     expect(res.status).toBe(409);
   });
@@ -132,8 +144,8 @@ describe("invitations", () => {
 describe("audit API", () => {
   it("filters by action and actor, newest first, for admins only", async () => {
     const u = await makeUser("engineer");
-    await adm.json(`/api/v1/users/${u.id}`, { method: "PATCH", body: { role: "reviewer" } });
-    await adm.json(`/api/v1/users/${u.id}`, { method: "PATCH", body: { role: "engineer" } });
+    await adm.json(`/api/v1/users/${u.id}`, { method: "PATCH", body: JSON.stringify({ role: "reviewer" }) });
+    await adm.json(`/api/v1/users/${u.id}`, { method: "PATCH", body: JSON.stringify({ role: "engineer" }) });
     const res = await adm.json<{
       events: { action: string; actorId: number; subjectId: number; details: { to: string } }[];
     }>(`/api/v1/audit?action=user.role-change&actor=${admin.id}`);

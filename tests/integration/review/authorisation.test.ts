@@ -29,13 +29,16 @@ async function submitted(by = engineer.id) {
   const rf = await makeRetrofit();
   const r = await generate(rf.id, by);
   const s = by === admin.id ? adm : eng;
-  const res = await s.json(`/api/v1/revisions/${r.id}/submit`, { method: "POST", body: {} });
+  const res = await s.json(`/api/v1/revisions/${r.id}/submit`, { method: "POST", body: JSON.stringify({}) });
   expect(res.status).toBe(200);
   return r;
 }
 
 const decide = (s: Session, id: number, decision: string, note = "") =>
-  s.json<Err>(`/api/v1/revisions/${id}/decision`, { method: "POST", body: { decision, note } });
+  s.json<Err>(`/api/v1/revisions/${id}/decision`, {
+    method: "POST",
+    body: JSON.stringify({ decision, note }),
+  });
 
 describe("review authorisation", () => {
   it("refuses self-approval: an admin cannot approve a revision they generated", async () => {
@@ -50,7 +53,7 @@ describe("review authorisation", () => {
     const r = await submitted();
     const c = await tech.json<Err>(`/api/v1/revisions/${r.id}/comments`, {
       method: "POST",
-      body: { body: "looks fine" },
+      body: JSON.stringify({ body: "looks fine" }),
     });
     expect(c.status).toBe(403);
     expect((await decide(tech, r.id, "approved")).status).toBe(403);
@@ -99,12 +102,16 @@ describe("review authorisation", () => {
     expect((await decide(rev, r.id, "maybe")).status).toBe(400);
     const badFile = await rev.json<Err>(`/api/v1/revisions/${r.id}/comments`, {
       method: "POST",
-      body: { body: "here", filePath: "no/such/file.c", line: 1 },
+      body: JSON.stringify({ body: "here", filePath: "no/such/file.c", line: 1 }),
     });
     expect(badFile.status).toBe(422);
     expect(
-      (await rev.json(`/api/v1/revisions/999999999/comments`, { method: "POST", body: { body: "x" } }))
-        .status,
+      (
+        await rev.json(`/api/v1/revisions/999999999/comments`, {
+          method: "POST",
+          body: JSON.stringify({ body: "x" }),
+        })
+      ).status,
     ).toBe(404);
   });
 

@@ -35,7 +35,7 @@ async function inReview(retrofitId?: number) {
 }
 
 const decide = (s: Session, id: number, decision: string) =>
-  s.json<Body>(`/api/v1/revisions/${id}/decision`, { method: "POST", body: { decision } });
+  s.json<Body>(`/api/v1/revisions/${id}/decision`, { method: "POST", body: JSON.stringify({ decision }) });
 
 describe("concurrent decisions", () => {
   it("gives exactly one 200 and one 409 when two reviewers decide at once, every time", async () => {
