@@ -2,6 +2,7 @@
 // stage carries tolerances, the corner and Monte Carlo spread.
 import { EngineError } from "./errors";
 import type {
+  OutputSignal,
   Stage,
   StageAnalysis,
   StageCheck,
