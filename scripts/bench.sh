@@ -11,7 +11,7 @@ source "$(dirname "$0")/common.sh"
 
 install_node_modules
 export BENCH_PORT=3900
-export DATABASE_URL=postgres://postgres@127.0.0.1:54329/clockgraft_bench
+export DATABASE_URL=postgres://postgres@127.0.0.1:${PGPORT:-54329}/clockgraft_bench
 export NEXTAUTH_URL=http://127.0.0.1:$BENCH_PORT
 export NEXTAUTH_SECRET=bench-secret-not-for-production-0000000000000
 export SMTP_HOST=127.0.0.1 SMTP_PORT=$((BENCH_PORT + 1)) MAIL_HTTP_URL=http://127.0.0.1:$((BENCH_PORT + 2))

@@ -8,7 +8,7 @@ source "$(dirname "$0")/common.sh"
 install_node_modules
 bash scripts/ensure-tools.sh
 
-export DATABASE_URL=postgres://postgres@127.0.0.1:54329/clockgraft_test
+export DATABASE_URL=postgres://postgres@127.0.0.1:${PGPORT:-54329}/clockgraft_test
 export TEST_PORT=${TEST_PORT:-3100}
 export NEXTAUTH_URL=http://127.0.0.1:$TEST_PORT
 export TEST_BASE_URL=$NEXTAUTH_URL
