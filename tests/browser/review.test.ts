@@ -1,0 +1,156 @@
+// The review loop end to end in the browser: the engineer generates r1 and
+// submits it; the reviewer opens the compare page, comments on a line and
+// requests changes; the engineer changes one stage value, generates r2 and
+// submits; the reviewer sees only the changed numbers and lines and approves;
+// the local mail catcher holds the three messages (review requested, decision,
+// approved). Timing values: NE555 datasheet (TI SLFS022) astable,
+// t_H = 0.693 (RA + RB) C, t_L = 0.693 RB C.
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launch, signInAs } from "../helpers/browser";
+import { waitForMail } from "../helpers/mail";
+import { makeUser } from "../helpers/users";
+import { makeRetrofit, setStageValue, stateOf } from "../integration/review/fixtures";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const SLOW = { timeout: 120_000 };
+
+async function generate(page: Page, retrofitId: number): Promise<{ id: number; number: number }> {
+  const res = await page.request.post(`/api/v1/retrofits/${retrofitId}/revisions`, {
+    data: {},
+    timeout: 120_000,
+  });
+  expect(res.status()).toBe(201);
+  return ((await res.json()) as { revision: { id: number; number: number } }).revision;
+}
+
+async function submit(page: Page, revisionId: number, number: number) {
+  await page.goto(`/revisions/${revisionId}/review`, SLOW);
+  await page.getByRole("button", { name: `Submit r${number} for review` }).click(SLOW);
+  await page.getByTestId("revision-state").getByText("In review").waitFor(SLOW);
+}
+
+async function decide(page: Page, revisionId: number, button: string | RegExp, note: string, state: string) {
+  await page.goto(`/revisions/${revisionId}/review`, SLOW);
+  await page.getByLabel("Note to the engineer").fill(note);
+  await page.getByRole("button", { name: button }).click(SLOW);
+  await page.getByTestId("revision-state").getByText(state).waitFor(SLOW);
+}
+
+describe("review loop in the browser", () => {
+  it("r1 submitted, commented, changes requested; r2 submitted, only its changes shown, approved; three mails", async () => {
+    const site = `Browser review site ${Date.now()}`;
+    const engineer = await makeUser("engineer");
+    const reviewer = await makeUser("reviewer");
+    const technician = await makeUser("technician", { site });
+    const rf = await makeRetrofit({ site, rb: 10e3 });
+
+    const eng = await signInAs(browser, engineer.email, engineer.password);
+    eng.page.setDefaultTimeout(120_000);
+    const r1 = await generate(eng.page, rf.id);
+    expect(r1.number).toBe(1);
+    await submit(eng.page, r1.id, 1);
+    const requested = await waitForMail(
+      reviewer.email,
+      new RegExp(`Review requested: .*${rf.assetTag}\\) r1`),
+      60_000,
+    );
+    expect(requested.text).toContain(`/revisions/${r1.id}/review`);
+
+    // Reviewer: compare page of the first revision (nothing before it), comment on a line of main.c.
+    const rev = await signInAs(browser, reviewer.email, reviewer.password);
+    rev.page.setDefaultTimeout(120_000);
+    await rev.page.goto(`/retrofits/${rf.id}/compare`, SLOW);
+    const mainC = rev.page.locator("section[data-file$='src/main.c']");
+    await mainC.waitFor(SLOW);
+    const path = (await mainC.getAttribute("data-file"))!;
+    await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).click();
+    await rev.page
+      .getByLabel(`Comment on ${path} line 5`, { exact: true })
+      .fill("Say which datasheet table the prescaler comes from.");
+    await rev.page.getByRole("button", { name: "Add comment" }).click();
+    const inline = mainC.getByTestId("inline-comment").filter({ hasText: "Say which datasheet table" });
+    await inline.waitFor(SLOW);
+    expect(await inline.isVisible()).toBe(true);
+    await decide(
+      rev.page,
+      r1.id,
+      "Request changes",
+      "Name the source of each register value.",
+      "Changes requested",
+    );
+    await rev.page
+      .getByTestId("comment")
+      .filter({ hasText: `${path}:5` })
+      .waitFor();
+    expect((await stateOf(r1.id)).state).toBe("changes_requested");
+
+    // Engineer: change RB 10 kΩ -> 4.7 kΩ, generate r2, submit.
+    await setStageValue(rf.id, "rb", 4.7e3);
+    const r2 = await generate(eng.page, rf.id);
+    expect(r2.number).toBe(2);
+    await submit(eng.page, r2.id, 2);
+
+    // Reviewer: default pair is r2 (in review) against r1; only changed numbers and lines.
+    await rev.page.goto(`/retrofits/${rf.id}/compare`, SLOW);
+    const numbers = rev.page.getByRole("table", { name: "Numbers that changed" });
+    await numbers.waitFor(SLOW);
+    const rb = numbers.locator("tr[data-key='stage.rb']");
+    expect(await rb.textContent()).toContain("10 kΩ");
+    expect(await rb.textContent()).toContain("4.7 kΩ");
+    // NE555: t_H = 0.693 (1 kΩ + 4.7 kΩ) 1 µF = 3.950 ms after the change (0.693 ≈ ln 2; 0.1 % allowed).
+    const highText = (await numbers.locator("tr[data-key='analysis.highS'] td").nth(2).textContent()) ?? "";
+    const highMs = Number(/([\d.]+) ms/.exec(highText)?.[1]);
+    expect(Math.abs(highMs - 0.693 * 5.7e3 * 1e-6 * 1e3) / 3.95).toBeLessThan(1e-3);
+    for (const same of ["stage.ra", "stage.c", "stage.supplyV", "target1.device", "target1.clockHz"]) {
+      expect(await numbers.locator(`tr[data-key='${same}']`).count()).toBe(0);
+    }
+    // Every shown code line is a change or within 3 lines of one; the rest is folded.
+    const api = await rev.page.request.get(`/api/v1/diff?a=${r1.id}&b=${r2.id}`);
+    const cmp = (await api.json()) as {
+      files: { path: string; status: string; added: number; removed: number }[];
+    };
+    const changedFiles = cmp.files.filter((f) => f.status !== "unchanged");
+    expect(await rev.page.locator("section[data-file]").count()).toBe(changedFiles.length);
+    const added = changedFiles.reduce((n, f) => n + f.added, 0);
+    const removed = changedFiles.reduce((n, f) => n + f.removed, 0);
+    expect(await rev.page.locator("tr[data-kind='added']").count()).toBe(added);
+    expect(await rev.page.locator("tr[data-kind='removed']").count()).toBe(removed);
+    expect(await rev.page.locator("tr[data-kind='fold']").count()).toBeGreaterThan(0);
+    // The r1 comment belongs to r1 and does not show on r2's diff.
+    expect(await rev.page.getByTestId("inline-comment").count()).toBe(0);
+
+    await decide(rev.page, r2.id, "Approve r2", "Values and sources check out.", "Approved");
+    expect((await stateOf(r2.id)).state).toBe("approved");
+
+    const changes = await waitForMail(
+      engineer.email,
+      new RegExp(`Review decision \\(changes requested\\): .*${rf.assetTag}\\) r1`),
+      60_000,
+    );
+    expect(changes.text).toContain("Name the source of each register value.");
+    const approvedDecision = await waitForMail(
+      engineer.email,
+      new RegExp(`Review decision \\(approved\\): .*${rf.assetTag}\\) r2`),
+      60_000,
+    );
+    expect(approvedDecision.text).toContain("Values and sources check out.");
+    const approved = await waitForMail(
+      technician.email,
+      new RegExp(`Revision approved: .*${rf.assetTag}\\) r2`),
+      60_000,
+    );
+    expect(approved.text).toMatch(/Bundle sha256: [0-9a-f]{64}/);
+
+    await eng.context.close();
+    await rev.context.close();
+    // Two users, two revisions and a dozen page loads: generous for a busy machine.
+  }, 480_000);
+});
