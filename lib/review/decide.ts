@@ -12,8 +12,7 @@ import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { approvedMail, decisionMail } from "@/lib/mail/messages";
-import { enqueueMail } from "@/lib/mail/outbox";
-import { sendSoon } from "./send-soon";
+import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
 import { decideRefusal, STATE_LABELS, type Decision } from "./states";
@@ -65,7 +64,7 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
     }
     return { id: revisionId, number: revision.number, state: decision, decidedAt: now, superseded };
   });
-  sendSoon();
+  kickOutbox();
   return result;
 }
 

@@ -15,8 +15,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { ROLES } from "@/lib/auth/roles";
 import { hashToken } from "@/lib/auth/tokens";
 import { invitationMail } from "@/lib/mail/messages";
-import { enqueueMail } from "@/lib/mail/outbox";
-import { sendSoon } from "./send-soon";
+import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
 
 export const INVITATION_DAYS = 7;
 export const MIN_PASSWORD = 10;
@@ -83,7 +82,7 @@ export async function createInvitation(admin: AuthUser, raw: unknown) {
     );
     return inv;
   });
-  sendSoon();
+  kickOutbox();
   return { invitation: publicInvitation(row), token };
 }
 
