@@ -4,7 +4,17 @@ import nextTypescript from "eslint-config-next/typescript";
 const config = [
   ...nextCoreWebVitals,
   ...nextTypescript,
-  { ignores: [".next/**", ".next-*/**", "node_modules/**", ".data/**", "tmp/**", "drizzle/**", "next-env.d.ts"] },
+  {
+    ignores: [
+      ".next/**",
+      ".next-*/**",
+      "node_modules/**",
+      ".data/**",
+      "tmp/**",
+      "drizzle/**",
+      "next-env.d.ts",
+    ],
+  },
 ];
 
 export default config;

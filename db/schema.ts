@@ -3,7 +3,6 @@
 // revision is reproducible and diffable without re-running the engine.
 import { relations } from "drizzle-orm";
 import {
-
   boolean,
   customType,
   doublePrecision,
@@ -318,4 +317,3 @@ export type FieldCheck = typeof fieldChecks.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type ApiToken = typeof apiTokens.$inferSelect;
 export type Invitation = typeof invitations.$inferSelect;
-

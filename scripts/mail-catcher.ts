@@ -51,7 +51,8 @@ const all = (): Stored[] =>
     .sort()
     .map((f) => JSON.parse(readFileSync(path.join(store, f), "utf8")) as Stored);
 
-const esc = (s: string) => s.replace(/[&<>"]/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;" })[c]!);
+const esc = (s: string) =>
+  s.replace(/[&<>"]/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;" })[c]!);
 
 createServer((req, res) => {
   if (req.method === "DELETE" && req.url === "/messages") {
@@ -62,11 +63,16 @@ createServer((req, res) => {
   } else {
     const rows = all()
       .reverse()
-      .map((m) => `<article><h2>${esc(m.subject)}</h2><p>to ${esc(m.to.join(", "))} · ${esc(m.receivedAt)}</p><pre>${esc(m.text)}</pre></article>`)
+      .map(
+        (m) =>
+          `<article><h2>${esc(m.subject)}</h2><p>to ${esc(m.to.join(", "))} · ${esc(m.receivedAt)}</p><pre>${esc(m.text)}</pre></article>`,
+      )
       .join("");
     res
       .writeHead(200, { "content-type": "text/html; charset=utf-8" })
-      .end(`<!doctype html><title>Local mail</title><h1>Local mail (${all().length})</h1>${rows || "<p>No messages yet.</p>"}`);
+      .end(
+        `<!doctype html><title>Local mail</title><h1>Local mail (${all().length})</h1>${rows || "<p>No messages yet.</p>"}`,
+      );
   }
 }).listen(httpPort, "127.0.0.1");
 

@@ -128,6 +128,8 @@ export function RetrofitsTable({ canEdit }: { canEdit: boolean }) {
     [canEdit],
   );
 
+  // TanStack Table manages its own memoisation; the compiler skipping this hook is expected.
+  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data: data?.items ?? [],
     columns,

@@ -1,8 +1,16 @@
 // The safety caution for retrofits on mains-powered boards or that fire a
 // thyristor. A bordered block with an icon and words, never colour alone.
-export function HazardCaution({ mainsPowered, drivesThyristor }: { mainsPowered: boolean; drivesThyristor: boolean }) {
+export function HazardCaution({
+  mainsPowered,
+  drivesThyristor,
+}: {
+  mainsPowered: boolean;
+  drivesThyristor: boolean;
+}) {
   if (!mainsPowered && !drivesThyristor) return null;
-  const hazards = [mainsPowered && "mains-powered board", drivesThyristor && "fires a thyristor gate"].filter(Boolean);
+  const hazards = [mainsPowered && "mains-powered board", drivesThyristor && "fires a thyristor gate"].filter(
+    Boolean,
+  );
   return (
     <aside
       role="note"
@@ -18,8 +26,8 @@ export function HazardCaution({ mainsPowered, drivesThyristor }: { mainsPowered:
           <li>Isolate and lock out the supply before work; verify absence of voltage with a tested meter.</li>
           {drivesThyristor && (
             <li>
-              Keep the gate drive isolated (pulse transformer or opto-driver) where the old stage had one; never tie
-              the microcontroller ground to a mains-referenced cathode.
+              Keep the gate drive isolated (pulse transformer or opto-driver) where the old stage had one;
+              never tie the microcontroller ground to a mains-referenced cathode.
             </li>
           )}
           <li>Local electrical codes and licensed practice prevail over this page and the bundle.</li>

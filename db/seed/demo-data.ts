@@ -6,7 +6,12 @@ export const DEMO_USERS: { email: string; name: string; role: Role; password: st
   { email: "admin@ostberg.test", name: "Ilse Marant", role: "admin", password: "admin-demo-pass" },
   { email: "engineer@ostberg.test", name: "Tomas Reiff", role: "engineer", password: "engineer-demo-pass" },
   { email: "reviewer@ostberg.test", name: "Priya Castell", role: "reviewer", password: "reviewer-demo-pass" },
-  { email: "technician@ostberg.test", name: "Joe Haverly", role: "technician", password: "technician-demo-pass" },
+  {
+    email: "technician@ostberg.test",
+    name: "Joe Haverly",
+    role: "technician",
+    password: "technician-demo-pass",
+  },
 ];
 
 type DemoTarget = {
@@ -47,7 +52,9 @@ export const DEMO_RETROFITS: DemoRetrofit[] = [
       eta: 0.65,
       tolerances: { timingR: 0.05, timingC: 0.1, eta: [0.08, 0.08] },
     },
-    targets: [{ device: "atmega328p", clockSource: "crystal", clockHz: 16e6, mode: "pwm", requiredTolerancePct: 2 }],
+    targets: [
+      { device: "atmega328p", clockSource: "crystal", clockHz: 16e6, mode: "pwm", requiredTolerancePct: 2 },
+    ],
   },
   {
     name: "Intake beacon flasher",
@@ -79,7 +86,9 @@ export const DEMO_RETROFITS: DemoRetrofit[] = [
     mainsPowered: false,
     drivesThyristor: false,
     stage: { kind: "schmitt-rc", supplyV: 5, r: 100e3, c: 47e-9, vtPlus: 2.9, vtMinus: 1.6 },
-    targets: [{ device: "rp2040", clockSource: "xosc-pll", clockHz: 125e6, mode: "pwm", requiredTolerancePct: 1 }],
+    targets: [
+      { device: "rp2040", clockSource: "xosc-pll", clockHz: 125e6, mode: "pwm", requiredTolerancePct: 1 },
+    ],
   },
   {
     name: "Relay panel alarm blinker",

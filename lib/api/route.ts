@@ -22,7 +22,8 @@ const MAX_JSON_BYTES = 1024 * 1024;
 /** The request body as JSON, with clear 400/413 errors for what cannot be read. */
 export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
   const length = Number(req.headers.get("content-length") ?? "0");
-  if (length > maxBytes) throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
+  if (length > maxBytes)
+    throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
   const text = await req.text();
   if (Buffer.byteLength(text) > maxBytes) {
     throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);

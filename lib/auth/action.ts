@@ -7,8 +7,7 @@ import { toApiError, type FieldErrors } from "@/lib/api/errors";
 import { requireUser, type AuthUser } from "./guard";
 
 export type ActionResult<T> =
-  | { ok: true; data: T }
-  | { ok: false; error: { code: string; message: string; fields?: FieldErrors } };
+  { ok: true; data: T } | { ok: false; error: { code: string; message: string; fields?: FieldErrors } };
 
 export function guardedAction<S extends z.ZodType, T>(
   opts: { roles: readonly Role[]; schema: S },
@@ -21,7 +20,10 @@ export function guardedAction<S extends z.ZodType, T>(
       return { ok: true, data: await body(parsed, user) };
     } catch (err) {
       const e = toApiError(err);
-      return { ok: false, error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) } };
+      return {
+        ok: false,
+        error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) },
+      };
     }
   };
 }

@@ -46,7 +46,10 @@ async function tokenUser(header: string): Promise<AuthUser | null> {
   if (!row || row.user.disabled) return null;
   const now = Date.now();
   if (!row.lastUsedAt || now - row.lastUsedAt.getTime() > LAST_USED_RESOLUTION_MS) {
-    await db.update(apiTokens).set({ lastUsedAt: new Date(now) }).where(eq(apiTokens.id, row.tokenId));
+    await db
+      .update(apiTokens)
+      .set({ lastUsedAt: new Date(now) })
+      .where(eq(apiTokens.id, row.tokenId));
   }
   const u = row.user;
   return { id: u.id, email: u.email, name: u.name, role: u.role, site: u.site, via: "token" };

@@ -30,7 +30,10 @@ export const authOptions: NextAuthOptions = {
   providers: [
     CredentialsProvider({
       name: "E-mail and password",
-      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      credentials: {
+        email: { label: "E-mail", type: "email" },
+        password: { label: "Password", type: "password" },
+      },
       async authorize(raw) {
         const parsed = credentials.safeParse(raw);
         if (!parsed.success) throw new Error(SIGN_IN_ERRORS.invalid);

@@ -15,18 +15,32 @@ export class ClientApiError extends Error {
 export async function fetchJson<T = unknown>(url: string, init?: RequestInit): Promise<T> {
   const res = await fetch(url, {
     ...init,
-    headers: { accept: "application/json", ...(init?.body ? { "content-type": "application/json" } : {}), ...init?.headers },
+    headers: {
+      accept: "application/json",
+      ...(init?.body ? { "content-type": "application/json" } : {}),
+      ...init?.headers,
+    },
   });
   const text = await res.text();
   let body: unknown = null;
   try {
     body = text ? JSON.parse(text) : null;
   } catch {
-    throw new ClientApiError(`The server answered ${res.status} with something that is not JSON.`, res.status, "bad_response");
+    throw new ClientApiError(
+      `The server answered ${res.status} with something that is not JSON.`,
+      res.status,
+      "bad_response",
+    );
   }
   if (!res.ok) {
-    const e = (body as { error?: { code?: string; message?: string; fields?: Record<string, string> } })?.error;
-    throw new ClientApiError(e?.message ?? `Request failed (${res.status}).`, res.status, e?.code ?? "error", e?.fields);
+    const e = (body as { error?: { code?: string; message?: string; fields?: Record<string, string> } })
+      ?.error;
+    throw new ClientApiError(
+      e?.message ?? `Request failed (${res.status}).`,
+      res.status,
+      e?.code ?? "error",
+      e?.fields,
+    );
   }
   return body as T;
 }

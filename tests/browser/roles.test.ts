@@ -16,7 +16,13 @@ afterAll(async () => {
 const CASES = [
   { role: "admin", may: "/admin", mayNot: null, nav: ["Retrofits", "Users", "Audit log"], notNav: [] },
   { role: "engineer", may: "/retrofits", mayNot: "/admin", nav: ["Retrofits", "Field"], notNav: ["Users"] },
-  { role: "reviewer", may: "/reviews", mayNot: "/field", nav: ["Retrofits", "Reviews"], notNav: ["Users", "Field"] },
+  {
+    role: "reviewer",
+    may: "/reviews",
+    mayNot: "/field",
+    nav: ["Retrofits", "Reviews"],
+    notNav: ["Users", "Field"],
+  },
   { role: "technician", may: "/field", mayNot: "/retrofits", nav: ["Field"], notNav: ["Retrofits", "Users"] },
 ] as const;
 

@@ -45,7 +45,12 @@ export class SignInPage {
   }
 }
 
-export async function signInAs(browser: Browser, email: string, password: string, opts: { mobile?: boolean } = {}) {
+export async function signInAs(
+  browser: Browser,
+  email: string,
+  password: string,
+  opts: { mobile?: boolean } = {},
+) {
   const context = await newContext(browser, opts);
   const page = await context.newPage();
   const signIn = new SignInPage(page);

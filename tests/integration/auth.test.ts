@@ -62,7 +62,9 @@ describe("sign-in and roles", () => {
   it("accepts a personal API token as Bearer and refuses a made-up one", async () => {
     const admin = await makeUser("admin");
     const token = await makeToken(admin.id);
-    const ok = await fetch(new Session().base + "/api/v1/users", { headers: { authorization: `Bearer ${token}` } });
+    const ok = await fetch(new Session().base + "/api/v1/users", {
+      headers: { authorization: `Bearer ${token}` },
+    });
     expect(ok.status).toBe(200);
     const bad = await fetch(new Session().base + "/api/v1/users", {
       headers: { authorization: `Bearer cgt_${"x".repeat(43)}` },

@@ -40,7 +40,14 @@ export function SignInForm() {
         <label htmlFor="password" className="field-label">
           Password
         </label>
-        <input id="password" name="password" type="password" autoComplete="current-password" required className="input" />
+        <input
+          id="password"
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          className="input"
+        />
       </div>
       {error && (
         <p role="alert" className="field-error">
