@@ -73,6 +73,10 @@ export function toApiError(err: unknown): ApiError {
     const code = (err as { code?: string }).code;
     return new ApiError(code === "too-large" ? "payload_too_large" : "unprocessable", err.message);
   }
+  if (isUnstorableText(err)) {
+    // PostgreSQL text cannot hold a NUL character (SQLSTATE 22021, 22P05).
+    return new ApiError("bad_request", "Text may not contain NUL (zero) characters.");
+  }
   if (isConnectionError(err)) {
     console.error("database unavailable:", (err as Error).message);
     return new ApiError("unavailable", "The database is not reachable right now. Try again in a moment.");
@@ -92,9 +96,21 @@ function isNamedError(err: unknown, name: string): err is Error {
 }
 
 function isConnectionError(err: unknown): boolean {
-  const code = (err as { code?: string; cause?: { code?: string } })?.code ?? (err as { cause?: { code?: string } })?.cause?.code;
+  const code =
+    (err as { code?: string; cause?: { code?: string } })?.code ??
+    (err as { cause?: { code?: string } })?.cause?.code;
   return (
     typeof code === "string" &&
-    (code === "ECONNREFUSED" || code === "ECONNRESET" || code === "57P01" || code === "57P03" || code.startsWith("08"))
+    (code === "ECONNREFUSED" ||
+      code === "ECONNRESET" ||
+      code === "57P01" ||
+      code === "57P03" ||
+      code.startsWith("08"))
   );
+}
+
+function isUnstorableText(err: unknown): boolean {
+  const e = err as { code?: string; cause?: { code?: string } } | null;
+  const code = e?.code ?? e?.cause?.code;
+  return code === "22021" || code === "22P05";
 }
