@@ -17,7 +17,12 @@ export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
 
 /** The body is optional here: an empty body means no note. */
 async function optionalJson(req: Request): Promise<unknown> {
+  // Same 1 MiB limit as readJson (413, checked before the body is read when
+  // Content-Length says so); only an empty body means "no options".
+  const tooLarge = () => new ApiError("payload_too_large", `The body is larger than ${MAX_BODY} bytes.`);
+  if (Number(req.headers.get("content-length") ?? "0") > MAX_BODY) throw tooLarge();
   const text = await req.text();
+  if (Buffer.byteLength(text) > MAX_BODY) throw tooLarge();
   if (!text.trim()) return {};
   try {
     return JSON.parse(text);
@@ -25,3 +30,5 @@ async function optionalJson(req: Request): Promise<unknown> {
     throw new ApiError("bad_request", "The request body is not valid JSON.");
   }
 }
+
+const MAX_BODY = 1024 * 1024;
