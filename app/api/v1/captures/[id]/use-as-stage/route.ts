@@ -18,14 +18,21 @@ const bodySchema = z.object({ retrofitId: z.number().int().positive().optional()
 
 /** The body may be empty (the capture already names its retrofit). */
 async function optionalJson(req: Request): Promise<unknown> {
-  const text = (await req.text()).trim();
-  if (!text) return {};
+  // Same 1 MiB limit as readJson (413, checked before the body is read when
+  // Content-Length says so); only an empty body means "no options".
+  const tooLarge = () => new ApiError("payload_too_large", `The body is larger than ${MAX_BODY} bytes.`);
+  if (Number(req.headers.get("content-length") ?? "0") > MAX_BODY) throw tooLarge();
+  const text = await req.text();
+  if (Buffer.byteLength(text) > MAX_BODY) throw tooLarge();
+  if (!text.trim()) return {};
   try {
     return JSON.parse(text);
   } catch {
     throw new ApiError("bad_request", "The request body is not valid JSON.");
   }
 }
+
+const MAX_BODY = 1024 * 1024;
 
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Capture");
