@@ -29,7 +29,16 @@ export async function send(
     headers["content-type"] = req.raw.type;
   }
   if (init.type) headers["content-type"] = init.type;
-  const res = await fetch(BASE_URL + req.path, { method, headers, body, redirect: "manual" });
+  let res: Response;
+  try {
+    res = await fetch(BASE_URL + req.path, { method, headers, body, redirect: "manual" });
+  } catch (e) {
+    // A server that refused the previous body early closes that kept-alive
+    // socket; the next request on it is reset before it is read. Once more on
+    // a fresh connection (a second reset is an answer: see the callers).
+    if ((e as { cause?: { code?: string } }).cause?.code !== "ECONNRESET") throw e;
+    res = await fetch(BASE_URL + req.path, { method, headers, body, redirect: "manual" });
+  }
   const buf = Buffer.from(await res.arrayBuffer());
   const text = buf.toString("utf8");
   let parsed: unknown = undefined;

@@ -1,0 +1,224 @@
+// The bad-input corpus against every route in routes.ts that takes input:
+// each leaf of a valid body replaced by each bad value, raw NaN/Infinity
+// tokens, malformed and oversize bodies, bad ids in URLs, bad query values and
+// broken CSV uploads. Never a 500; every refusal is { error: { code, message } }
+// and stores nothing; NaN and Infinity in a number field are always refused.
+import { beforeAll, describe, expect, it } from "vitest";
+import { isErrorShape, send, type Answer } from "./client";
+import {
+  BAD_IDS,
+  BAD_QUERY_VALUES,
+  BAD_VALUES,
+  leafPaths,
+  MALFORMED_BODIES,
+  RAW_TOKENS,
+  withLeaf,
+  withRawLeaf,
+} from "./corpus";
+import { ROUTES, type RouteEntry } from "./routes";
+import { fingerprint, makeWorld, squareCsv, type World } from "./world";
+
+let w: World;
+beforeAll(async () => {
+  w = await makeWorld();
+});
+
+/** Checks one answer; `state` carries the last fingerprint across requests. */
+async function judge(res: Answer, what: string, state: { fp: string }, mustRefuse = false) {
+  const line = `${what} -> ${res.status} ${res.text.slice(0, 200)}`;
+  expect(res.status, line).toBeLessThan(500);
+  const now = await fingerprint(w);
+  if (res.status >= 400) {
+    expect(isErrorShape(res.body), line).toBe(true);
+    expect(now, `${line}: rows changed by a refused request`).toBe(state.fp);
+  } else {
+    expect(mustRefuse, `${line}: accepted`).toBe(false);
+  }
+  state.fp = now;
+}
+
+/** A server may answer 413 and close before reading an oversize body; the
+ *  client then sees a reset. That is a refusal too (rows are still checked). */
+async function sendOrReset(go: () => Promise<Answer>): Promise<Answer> {
+  try {
+    return await go();
+  } catch (e) {
+    const code = (e as { cause?: { code?: string } }).cause?.code;
+    if (code !== "ECONNRESET" && code !== "EPIPE") throw e;
+    const body = { error: { code: "payload_too_large", message: "connection closed by the server" } };
+    return { status: 413, text: JSON.stringify(body), headers: new Headers(), body };
+  }
+}
+
+const NON_FINITE = new Set(["NaN", "Infinity", "-Infinity", "1e309"]);
+const isNumericLeaf = (v: unknown) =>
+  typeof v === "number" || (typeof v === "string" && /^[0-9.]+ ?[a-zA-Zµ]*$/.test(v));
+
+const jsonRoutes = ROUTES.filter((r) => r.input === "json");
+const queryRoutes = ROUTES.filter((r) => r.input === "query");
+const idRoutes = ROUTES.filter((r) => r.pattern.includes("[id]"));
+
+describe.each(jsonRoutes)("JSON body of $method $pattern", (r: RouteEntry) => {
+  it(
+    "every leaf x every bad value, raw non-finite tokens, malformed bodies",
+    { timeout: 600_000 },
+    async () => {
+      const req = await r.build(w, "admin");
+      const base = req.json;
+      const state = { fp: await fingerprint(w) };
+      for (const path of leafPaths(base)) {
+        const original = path.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], base);
+        for (const bad of BAD_VALUES) {
+          const res = await send(w, "admin", r.method, { ...req, json: withLeaf(base, path, bad) });
+          const mustRefuse = isNumericLeaf(original) && typeof bad === "string" && NON_FINITE.has(bad);
+          await judge(
+            res,
+            `${r.method} ${req.path} ${path.join(".")}=${JSON.stringify(bad).slice(0, 40)}`,
+            state,
+            mustRefuse,
+          );
+        }
+        for (const token of RAW_TOKENS) {
+          const res = await send(w, "admin", r.method, req, {
+            body: withRawLeaf(base, path, token),
+            type: "application/json",
+          });
+          await judge(
+            res,
+            `${r.method} ${req.path} ${path.join(".")}=${token} (raw)`,
+            state,
+            isNumericLeaf(original),
+          );
+        }
+      }
+      for (const m of MALFORMED_BODIES) {
+        const res = await sendOrReset(() =>
+          send(w, "admin", r.method, req, { body: m.body, type: m.type ?? "application/json" }),
+        );
+        // An empty body is a valid "no options" request where the body is optional.
+        await judge(res, `${r.method} ${req.path} body ${m.what}`, state, m.what.startsWith("oversize"));
+        if (m.what.startsWith("oversize")) expect(res.status).toBe(413);
+      }
+    },
+  );
+});
+
+describe.each(queryRoutes)("query of $method $pattern", (r: RouteEntry) => {
+  it("every parameter x every bad value", { timeout: 300_000 }, async () => {
+    const req = await r.build(w, "admin");
+    const url = new URL(req.path, "http://x");
+    const state = { fp: await fingerprint(w) };
+    for (const key of [...url.searchParams.keys()]) {
+      for (const bad of BAD_QUERY_VALUES) {
+        const u = new URL(url);
+        u.searchParams.set(key, bad);
+        const res = await send(w, "admin", r.method, { path: u.pathname + u.search });
+        await judge(res, `${r.method} ${u.pathname}?${key}=${bad.slice(0, 30)}`, state);
+      }
+    }
+  });
+});
+
+describe("ids in URLs", () => {
+  it.each(idRoutes.map((r) => [`${r.method} ${r.pattern}`, r] as const))(
+    "%s",
+    { timeout: 300_000 },
+    async (_, r) => {
+      for (const id of BAD_IDS) {
+        const path = r.pattern.replace("[id]", id).replace("[...path]", "README.md");
+        const req = await r.build(w, "admin");
+        const state = { fp: await fingerprint(w) };
+        const res = await send(w, "admin", r.method, {
+          ...req,
+          path: path + (req.path.match(/\?.*$/)?.[0] ?? ""),
+        });
+        await judge(res, `${r.method} ${path}`, state, true);
+        expect([400, 404], `${path}: ${res.status}`).toContain(res.status);
+      }
+    },
+  );
+
+  it("file paths that climb out of the revision are not found", async () => {
+    const state = { fp: await fingerprint(w) };
+    for (const p of ["..%2F..%2Fetc%2Fpasswd", "%00", "src/..%2F..%2FREADME.md", "a%5Cb"]) {
+      const res = await send(w, "admin", "GET", {
+        path: `/api/v1/revisions/${w.revision.approved}/files/${p}`,
+      });
+      await judge(res, `files/${p}`, state, true);
+      expect(res.text).not.toMatch(/root:x:0:0/);
+    }
+  });
+});
+
+describe("capture upload: CSV edge cases", () => {
+  const good = squareCsv();
+  const CASES: { what: string; body: string | Uint8Array<ArrayBuffer>; type?: string; mayStore?: boolean }[] =
+    [
+      { what: "empty", body: "" },
+      { what: "header only", body: "Time (s),CH1 (V)\n" },
+      { what: "one row", body: "Time (s),CH1 (V)\n0,1\n" },
+      { what: "text in numbers", body: "t,v\n0,a\n1,b\n2,c\n" },
+      { what: "NaN values", body: "t,v\n" + Array.from({ length: 200 }, (_, i) => `${i},NaN`).join("\n") },
+      {
+        what: "Infinity values",
+        body: "t,v\n" + Array.from({ length: 200 }, (_, i) => `${i},Infinity`).join("\n"),
+      },
+      {
+        what: "1e999 values",
+        body: "t,v\n" + Array.from({ length: 200 }, (_, i) => `${i},1e999`).join("\n"),
+      },
+      {
+        what: "time going backwards",
+        body: "t,v\n" + Array.from({ length: 200 }, (_, i) => `${200 - i},${i % 2}`).join("\n"),
+      },
+      {
+        what: "constant level",
+        body: "t,v\n" + Array.from({ length: 500 }, (_, i) => `${i * 1e-3},1`).join("\n"),
+      },
+      { what: "ragged columns", body: "t,v\n0,1,2,3\n1\n2,0\n,,\n" },
+      { what: "binary", body: new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0, 0, 0, 0xff, 0xfe, 0, 1, 2]) },
+      { what: "only separators", body: ",,,,\n;;;;\n\t\t\t\n" },
+      { what: "huge single line", body: "1,".repeat(200_000) },
+      { what: "CRLF and BOM", body: "\ufeff" + good.replace(/\n/g, "\r\n"), mayStore: true },
+      { what: "semicolon separated", body: good.replace(/,/g, ";"), mayStore: true },
+      {
+        what: "multipart without a file part",
+        body: '--b\r\nContent-Disposition: form-data; name="x"\r\n\r\n1\r\n--b--\r\n',
+        type: "multipart/form-data; boundary=b",
+      },
+      { what: "multipart without a boundary", body: good, type: "multipart/form-data" },
+      {
+        what: "multipart never closed",
+        body:
+          '--b\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\n\r\n' + good.slice(0, 500),
+        type: "multipart/form-data; boundary=b",
+      },
+    ];
+
+  it.each(CASES.map((c) => [c.what, c] as const))("%s", async (_, c) => {
+    const state = { fp: await fingerprint(w) };
+    const res = await send(
+      w,
+      "technician",
+      "POST",
+      { path: `/api/v1/captures?retrofitId=${w.retrofitId}` },
+      {
+        body: c.body,
+        type: c.type ?? "text/csv",
+      },
+    );
+    await judge(res, `capture ${c.what}`, state, !c.mayStore);
+  });
+});
+
+describe("paths that match no handler", () => {
+  // "/api/v1/revisions/%2e%2e/files" is normalised by the router before any
+  // handler runs: a redirect or the framework's 404, never a 500.
+  it.each(["/api/v1/revisions/%2e%2e/files", "/api/v1/nothing-here", "/api/v1/retrofits/1/nothing"])(
+    "%s",
+    async (path) => {
+      const res = await send(w, "admin", "GET", { path });
+      expect([308, 404], `${path}: ${res.status}`).toContain(res.status);
+    },
+  );
+});
