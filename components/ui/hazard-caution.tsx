@@ -1,5 +1,8 @@
 // The safety caution for retrofits on mains-powered boards or that fire a
-// thyristor. A bordered block with an icon and words, never colour alone.
+// thyristor: a bordered block with an icon and words, never colour alone. The
+// lines are the same ones the bundle prints in its README and checklists.
+import { cautionLines } from "@/lib/bundle/safety";
+
 export function HazardCaution({
   mainsPowered,
   drivesThyristor,
@@ -7,7 +10,8 @@ export function HazardCaution({
   mainsPowered: boolean;
   drivesThyristor: boolean;
 }) {
-  if (!mainsPowered && !drivesThyristor) return null;
+  const lines = cautionLines({ name: "", mainsPowered, drivesThyristor });
+  if (lines.length === 0) return null;
   const hazards = [mainsPowered && "mains-powered board", drivesThyristor && "fires a thyristor gate"].filter(
     Boolean,
   );
@@ -23,14 +27,9 @@ export function HazardCaution({
       <div>
         <p className="font-semibold">Caution: {hazards.join(" and ")}</p>
         <ul className="mt-1 list-disc pl-5">
-          <li>Isolate and lock out the supply before work; verify absence of voltage with a tested meter.</li>
-          {drivesThyristor && (
-            <li>
-              Keep the gate drive isolated (pulse transformer or opto-driver) where the old stage had one;
-              never tie the microcontroller ground to a mains-referenced cathode.
-            </li>
-          )}
-          <li>Local electrical codes and licensed practice prevail over this page and the bundle.</li>
+          {lines.map((line) => (
+            <li key={line}>{line}</li>
+          ))}
         </ul>
       </div>
     </aside>
