@@ -96,17 +96,30 @@ function isNamedError(err: unknown, name: string): err is Error {
 }
 
 function isConnectionError(err: unknown): boolean {
-  const code =
-    (err as { code?: string; cause?: { code?: string } })?.code ??
-    (err as { cause?: { code?: string } })?.cause?.code;
-  return (
-    typeof code === "string" &&
-    (code === "ECONNREFUSED" ||
+  // Walk the cause chain: a transaction broken by a server restart surfaces as
+  // "Failed query: rollback" whose cause is pg's "not queryable" client error.
+  for (
+    let e = err as { code?: unknown; message?: unknown; cause?: unknown } | undefined, i = 0;
+    e && i < 6;
+    i++
+  ) {
+    const code = typeof e.code === "string" ? e.code : "";
+    if (
+      code === "ECONNREFUSED" ||
       code === "ECONNRESET" ||
       code === "57P01" ||
       code === "57P03" ||
-      code.startsWith("08"))
-  );
+      code.startsWith("08")
+    )
+      return true;
+    if (
+      typeof e.message === "string" &&
+      /connection terminated|not queryable|connection error/i.test(e.message)
+    )
+      return true;
+    e = e.cause as typeof e;
+  }
+  return false;
 }
 
 function isUnstorableText(err: unknown): boolean {
