@@ -1,0 +1,128 @@
+// Fault test: PostgreSQL restarts (scripts/pg.sh restart) in the middle of a
+// bounded load of revision generation and plan requests. Requests during the
+// outage fail cleanly (503 with the error shape, never a 500), the app serves
+// again without being restarted, and every revision acknowledged with 201 is
+// stored afterwards with a bundle whose sha256 matches. Runs alone, after the
+// other tests (scripts/test.sh), because it takes the shared database down.
+import { execFile } from "node:child_process";
+import { createHash } from "node:crypto";
+import { promisify } from "node:util";
+import { eq } from "drizzle-orm";
+import { describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { revisions } from "@/db/schema";
+import { BASE_URL } from "../helpers/server";
+import { isErrorShape } from "../integration/reliability/client";
+import { makeRetrofit, makeWorld } from "../integration/reliability/world";
+
+const run = promisify(execFile);
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** DB reads from this process retry while its own pool reconnects. */
+async function retrying<T>(fn: () => Promise<T>): Promise<T> {
+  for (let i = 0; ; i++) {
+    try {
+      return await fn();
+    } catch (e) {
+      if (i >= 40) throw e;
+      await sleep(500);
+    }
+  }
+}
+
+type Outcome = { status: number; body: unknown; at: number };
+
+describe("PostgreSQL restart under load", () => {
+  it(
+    "fails cleanly, recovers without an app restart, loses no acknowledged revision",
+    { timeout: 240_000 },
+    async () => {
+      const w = await makeWorld();
+      const rfs = await Promise.all(Array.from({ length: 6 }, () => makeRetrofit(w, w.author.id)));
+      const auth = { authorization: `Bearer ${w.actors.engineer.token}`, "content-type": "application/json" };
+      const plan = JSON.stringify({
+        stage: { kind: "measured", periodS: "10m", highS: "2m" },
+        targets: [{ device: "atmega328p", clockSource: "crystal", clockHz: "16M", mode: "pwm" }],
+      });
+
+      const outcomes: Outcome[] = [];
+      const failures: string[] = [];
+      const t0 = Date.now();
+      let restartedAt = 0;
+      let i = 0;
+      // Bounded: 8 workers, at most 600 requests or 25 s.
+      const worker = async () => {
+        while (outcomes.length + failures.length < 600 && Date.now() - t0 < 25_000) {
+          const n = i++;
+          const gen = n % 2 === 0;
+          const path = gen ? `/api/v1/retrofits/${rfs[n % rfs.length].id}/revisions` : "/api/v1/plan";
+          try {
+            const res = await fetch(BASE_URL + path, {
+              method: "POST",
+              headers: auth,
+              body: gen ? "{}" : plan,
+            });
+            const text = await res.text();
+            outcomes.push({ status: res.status, body: text ? JSON.parse(text) : null, at: Date.now() });
+          } catch (e) {
+            failures.push(
+              `${path}: ${(e as Error).message} ${(e as { cause?: Error }).cause?.message ?? ""}`,
+            );
+          }
+          if (restartedAt && Date.now() - restartedAt > 8_000) break;
+        }
+      };
+      const restart = (async () => {
+        await sleep(2_000);
+        await run("bash", ["scripts/pg.sh", "restart"]);
+        restartedAt = Date.now();
+      })();
+      await Promise.all([restart, ...Array.from({ length: 8 }, worker)]);
+
+      // The app process was never restarted; it must answer again on its own.
+      let healthy = false;
+      for (let k = 0; k < 60 && !healthy; k++) {
+        healthy = (await fetch(`${BASE_URL}/api/health`).catch(() => null))?.status === 200;
+        if (!healthy) await sleep(500);
+      }
+      expect(healthy, "health after restart").toBe(true);
+
+      expect(failures, "the app itself stayed reachable").toEqual([]);
+      const statuses = outcomes.map((o) => o.status);
+      expect(
+        statuses.filter((s) => s >= 500 && s !== 503),
+        "no 500s",
+      ).toEqual([]);
+      for (const o of outcomes.filter((x) => x.status >= 400)) {
+        expect(isErrorShape(o.body), JSON.stringify(o.body)).toBe(true);
+      }
+      // Work was done before and after the outage.
+      expect(outcomes.some((o) => o.status === 201 && o.at < restartedAt)).toBe(true);
+      const after = await fetch(`${BASE_URL}/api/v1/retrofits/${rfs[0].id}/revisions`, {
+        method: "POST",
+        headers: auth,
+        body: "{}",
+      });
+      expect(after.status, await after.clone().text()).toBe(201);
+
+      const acked = outcomes
+        .filter((o) => o.status === 201)
+        .map((o) => (o.body as { revision: { id: number; bundleSha256: string } }).revision);
+      acked.push(((await after.json()) as { revision: { id: number; bundleSha256: string } }).revision);
+      for (const r of acked) {
+        const [row] = await retrying(() => db.select().from(revisions).where(eq(revisions.id, r.id)));
+        expect(row, `revision ${r.id} acknowledged but missing`).toBeDefined();
+        expect(row.bundleSha256).toBe(r.bundleSha256);
+        expect(createHash("sha256").update(row.bundle).digest("hex")).toBe(r.bundleSha256);
+      }
+      // Numbers per retrofit stay unique and gapless through the outage.
+      for (const rf of rfs) {
+        const rows = await retrying(() =>
+          db.select({ n: revisions.number }).from(revisions).where(eq(revisions.retrofitId, rf.id)),
+        );
+        const ns = rows.map((x) => x.n).sort((a, b) => a - b);
+        expect(ns).toEqual(ns.map((_, k) => k + 1));
+      }
+    },
+  );
+});
