@@ -53,7 +53,18 @@ export function stopped(checks: readonly StageCheck[]): ModelResult {
 }
 
 export function running(highS: number, lowS: number): ModelResult {
-  return { periodS: highS + lowS, highS, lowS, oscillates: true, checks: NO_CHECKS };
+  const periodS = highS + lowS;
+  // Extreme but positive parts (1e-12 Ω x 5e-324 F) can round the time to 0
+  // or past the double range; that is no usable oscillation, not a NaN duty.
+  if (!(periodS > 0 && Number.isFinite(periodS) && highS >= 0 && lowS >= 0)) {
+    return stopped([
+      errorCheck(
+        "timing-out-of-range",
+        "The part values give a time of zero or beyond any timer's range; check their units.",
+      ),
+    ]);
+  }
+  return { periodS, highS, lowS, oscillates: true, checks: NO_CHECKS };
 }
 
 export const fmt = (value: number, unit: EngUnit) => formatEng(value, unit, 3);
