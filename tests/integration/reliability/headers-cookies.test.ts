@@ -41,3 +41,15 @@ describe("session cookie", () => {
     expect(cookie!.startsWith("__Secure-")).toBe(https);
   });
 });
+
+describe("session expiry", () => {
+  it("a session lasts 8 h from sign-in (lib/auth/options.ts), in the cookie and in the session answer", async () => {
+    const u = await makeUser("reviewer");
+    const s = new Session();
+    expect(await s.signIn(u.email, TEST_PASSWORD)).toBeNull();
+    const res = await s.json<{ expires: string }>("/api/auth/session");
+    const left = Date.parse(res.body.expires) - Date.now();
+    // 8 h = 28 800 s; a minute of slack for the request itself.
+    expect(Math.abs(left - 8 * 3600 * 1000)).toBeLessThan(60_000);
+  });
+});
