@@ -1,8 +1,8 @@
 // One generated file: path, sha256 and its highlighted text.
-import { highlight } from "./highlight";
+import { highlightHtml } from "@/lib/highlight/shiki";
 
 export async function FileView({ path, content, sha256 }: { path: string; content: string; sha256: string }) {
-  const html = await highlight(path, content);
+  const html = await highlightHtml(path, content);
   const anchor = `file-${path.replace(/[^A-Za-z0-9]+/g, "-")}`;
   return (
     <details id={anchor} className="rounded border border-paper-line bg-paper-raised">

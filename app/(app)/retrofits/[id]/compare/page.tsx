@@ -5,7 +5,7 @@ import { notFound } from "next/navigation";
 import { db } from "@/db/client";
 import { retrofits } from "@/db/schema";
 import { FileDiff, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
-import { highlightLines } from "@/components/diff/highlight";
+import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
 import { RevisionPicker } from "@/components/diff/revision-picker";
 import { HazardCaution } from "@/components/ui/hazard-caution";
