@@ -260,6 +260,54 @@ export const ROUTES: RouteEntry[] = [
       path: `/api/v1/audit?action=revision.generate&actor=${w.author.id}&from=2020-01-01&page=1`,
     }),
   },
+  {
+    method: "GET",
+    pattern: "/api/v1/invitations",
+    allowed: ADMIN,
+    build: async () => ({ path: "/api/v1/invitations" }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/invitations",
+    allowed: ADMIN,
+    ok: [201],
+    input: "json",
+    build: async (w) => ({
+      path: "/api/v1/invitations",
+      json: {
+        email: `invitee-${w.tag}-${Date.now()}@test.invalid`,
+        name: "New Tech",
+        role: "technician",
+        site: w.site,
+      },
+    }),
+  },
+  {
+    // The one-time token is the credential: anyone holding a fresh link may accept it.
+    method: "POST",
+    pattern: "/api/v1/invitations/accept",
+    allowed: "public",
+    input: "json",
+    build: async (w) => {
+      const { createInvitation } = await import("@/lib/review/invitations");
+      const admin = { ...w.actors.admin, name: "Admin", site: null, via: "token" as const };
+      const email = `accept-${w.tag}-${Date.now()}-${Math.random().toString(36).slice(2)}@test.invalid`;
+      const { token } = await createInvitation(admin, { email, name: "Invitee", role: "technician" });
+      return { path: "/api/v1/invitations/accept", json: { token, password: "accept-pass-4k7-long-enough" } };
+    },
+  },
+  {
+    method: "PATCH",
+    pattern: "/api/v1/users/[id]",
+    allowed: ADMIN,
+    input: "json",
+    build: async (w) => {
+      const { makeUser } = await import("../../helpers/users");
+      const u = await makeUser("technician");
+      w.userIds.push(u.id);
+      return { path: `/api/v1/users/${u.id}`, json: { site: "Moved site", role: "engineer" } };
+    },
+  },
   { method: "GET", pattern: "/api/v1/users", allowed: ADMIN, build: async () => ({ path: "/api/v1/users" }) },
   {
     method: "POST",
@@ -342,6 +390,7 @@ const FIELD_VIEW: Role[] = ["admin", "engineer", "technician"];
 export const PAGES: PageEntry[] = [
   { pattern: "/", allowed: "public", path: () => "/" },
   { pattern: "/sign-in", allowed: "public", path: () => "/sign-in" },
+  { pattern: "/invite/[token]", allowed: "public", path: () => "/invite/not-a-real-token" },
   { pattern: "/admin", allowed: ADMIN, path: () => "/admin" },
   { pattern: "/audit", allowed: ADMIN, path: () => "/audit" },
   { pattern: "/field", allowed: FIELD_VIEW, path: () => "/field" },

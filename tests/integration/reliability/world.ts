@@ -17,6 +17,7 @@ import {
   revisions,
   stages,
   targets,
+  users,
   type Role,
   type RevisionState,
 } from "@/db/schema";
@@ -220,5 +221,10 @@ export async function fingerprint(world: World): Promise<string> {
     .from(apiTokens)
     .where(inArray(apiTokens.userId, uIds))
     .orderBy(apiTokens.id);
-  return JSON.stringify({ rfs, stg, tgt, revs, counts, capRows, tokens });
+  const people = await db
+    .select({ id: users.id, role: users.role, site: users.site, disabled: users.disabled })
+    .from(users)
+    .where(inArray(users.id, uIds))
+    .orderBy(users.id);
+  return JSON.stringify({ rfs, stg, tgt, revs, counts, capRows, tokens, people });
 }
