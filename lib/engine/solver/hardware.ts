@@ -51,9 +51,25 @@ export function bestHardware(
     const c: HardwareChoice = { divider: d, periodCounts: n, modeFactor: m, errorQuanta, inRange };
     if (!best || betterHardware(c, best)) best = c;
   };
+  // Every achievable period is a whole number of quanta, so no setting can be
+  // closer than the target's distance to the nearest whole number. Once the
+  // best so far sits at that bound with an integer divider, a candidate can
+  // only win the tie (betterHardware) with more counts per period; dividers
+  // run in ascending order, so when a divider's most possible counts fall
+  // below the best's, every later divider's do too and the loop stops.
+  const lowerBound = Math.abs(targetQuanta - Math.round(targetQuanta)) + 1e-9;
   for (const m of factors) {
     for (const d of timer.dividers) {
       const step = Math.round(d * q) * m; // quanta per count
+      const b = best as HardwareChoice | null;
+      if (
+        b &&
+        b.errorQuanta <= lowerBound &&
+        Number.isInteger(b.divider) &&
+        Math.max(range.min, Math.min(range.max, Math.ceil(targetQuanta / step))) < b.periodCounts
+      ) {
+        break;
+      }
       const x = targetQuanta / step;
       const lo = Math.min(range.max, Math.max(range.min, Math.floor(x)));
       const hi = Math.min(range.max, Math.max(range.min, Math.ceil(x)));
