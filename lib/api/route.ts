@@ -19,21 +19,34 @@ export function apiRoute<P = Record<string, string>>(
 
 const MAX_JSON_BYTES = 1024 * 1024;
 
-/** The request body as JSON, with clear 400/413 errors for what cannot be read. */
-export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
-  const length = Number(req.headers.get("content-length") ?? "0");
-  if (length > maxBytes)
-    throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
+async function readBodyText(req: Request, maxBytes: number): Promise<string> {
+  const tooLarge = () => new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
+  // Refused before reading when Content-Length says so; counted again after.
+  if (Number(req.headers.get("content-length") ?? "0") > maxBytes) throw tooLarge();
   const text = await req.text();
-  if (Buffer.byteLength(text) > maxBytes) {
-    throw new ApiError("payload_too_large", `The body is larger than ${maxBytes} bytes.`);
-  }
-  if (!text.trim()) throw new ApiError("bad_request", "The request body is empty; send JSON.");
+  if (Buffer.byteLength(text) > maxBytes) throw tooLarge();
+  return text;
+}
+
+function parseJson(text: string): unknown {
   try {
     return JSON.parse(text);
   } catch {
     throw new ApiError("bad_request", "The request body is not valid JSON.");
   }
+}
+
+/** The request body as JSON, with clear 400/413 errors for what cannot be read. */
+export async function readJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
+  const text = await readBodyText(req, maxBytes);
+  if (!text.trim()) throw new ApiError("bad_request", "The request body is empty; send JSON.");
+  return parseJson(text);
+}
+
+/** Like readJson, for routes whose options are all optional: an empty body is {}. */
+export async function readOptionalJson(req: Request, maxBytes = MAX_JSON_BYTES): Promise<unknown> {
+  const text = await readBodyText(req, maxBytes);
+  return text.trim() ? parseJson(text) : {};
 }
 
 /** A positive integer id from a URL segment, or 404. */

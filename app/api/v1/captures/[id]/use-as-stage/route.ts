@@ -5,7 +5,7 @@ import { z } from "zod";
 import { db } from "@/db/client";
 import { captures, retrofits, stages } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
-import { apiRoute, parseId } from "@/lib/api/route";
+import { apiRoute, parseId, readOptionalJson } from "@/lib/api/route";
 import { recordAudit } from "@/lib/audit";
 import { requireUser } from "@/lib/auth/guard";
 import { EDIT } from "@/lib/auth/roles";
@@ -16,27 +16,9 @@ import { getRetrofit } from "@/lib/field/queries";
 
 const bodySchema = z.object({ retrofitId: z.number().int().positive().optional() }).strict();
 
-/** The body may be empty (the capture already names its retrofit). */
-async function optionalJson(req: Request): Promise<unknown> {
-  // Same 1 MiB limit as readJson (413, checked before the body is read when
-  // Content-Length says so); only an empty body means "no options".
-  const tooLarge = () => new ApiError("payload_too_large", `The body is larger than ${MAX_BODY} bytes.`);
-  if (Number(req.headers.get("content-length") ?? "0") > MAX_BODY) throw tooLarge();
-  const text = await req.text();
-  if (Buffer.byteLength(text) > MAX_BODY) throw tooLarge();
-  if (!text.trim()) return {};
-  try {
-    return JSON.parse(text);
-  } catch {
-    throw new ApiError("bad_request", "The request body is not valid JSON.");
-  }
-}
-
-const MAX_BODY = 1024 * 1024;
-
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Capture");
-  const body = bodySchema.parse(await optionalJson(req));
+  const body = bodySchema.parse(await readOptionalJson(req));
   const user = await requireUser({ roles: EDIT, req });
   const capture = await loadReadableCapture({ id, user });
 
