@@ -1,6 +1,6 @@
 "use client";
 // Target rows: device, clock source and frequency, mode, timer, required
-// tolerance. Device choices come from the engine's catalogue.
+// tolerance, output polarity. Device choices come from the engine's catalogue.
 import { useFieldArray, useFormContext } from "react-hook-form";
 import { listDevices } from "@/lib/engine";
 import { defaultTarget, deviceById } from "@/lib/validation/target";
@@ -150,6 +150,17 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                   {...register(`targets.${i}.requiredTolerancePct`)}
                 />
                 {msg("requiredTolerancePct")}
+              </div>
+              <div className="flex items-center gap-2 sm:col-span-3">
+                <input
+                  type="checkbox"
+                  className="h-4 w-4 accent-accent"
+                  {...input("activeLow")}
+                  {...register(`targets.${i}.activeLow`)}
+                />
+                <label className="text-sm" htmlFor={`target-${i}-activeLow`}>
+                  Active-low output (the pin is low during the old stage&apos;s pulse)
+                </label>
               </div>
             </div>
           </div>

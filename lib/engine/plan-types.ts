@@ -19,6 +19,12 @@ export interface PlanRequest {
   clockSource?: string;
   /** Overrides the clock option's accuracy (ppm, symmetric). */
   clockAccuracyPpm?: number;
+  /**
+   * Output polarity. true: `highS` is the old stage's active pulse and the new
+   * output is active low, so the pin is LOW for highS and high for the rest;
+   * the plan's targetHighS and highS are then the pin's high time.
+   */
+  activeLow?: boolean;
 }
 
 /** Output pin of a plan. ISR plans drive the same pin as a plain GPIO (function "GPIO"). */
@@ -131,6 +137,8 @@ export interface TimerPlan {
   // --- additions ---
   /** Mode asked for (or "pwm" when omitted); differs from `mode` after a fallback. */
   requestedMode: TimerMode;
+  /** Active-low output: the pin is low for the old stage's active pulse (see PlanRequest.activeLow). */
+  activeLow: boolean;
   targetPeriodS: number;
   targetHighS: number;
   /** Register-level prescale (AVR/STM32/MSP430: = divider; PIC: Timer2 prescale; RP2040: DIV_INT + DIV_FRAC/16). */

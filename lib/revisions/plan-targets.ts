@@ -34,6 +34,7 @@ export function planRequestOf(analysis: StageAnalysis, t: TargetSnapshot): PlanR
   if (t.mode) req.mode = t.mode;
   if (t.timer) req.timer = t.timer.toUpperCase();
   if (t.clockAccuracyPpm !== null) req.clockAccuracyPpm = t.clockAccuracyPpm;
+  if (t.activeLow) req.activeLow = true;
   return req;
 }
 
@@ -75,6 +76,7 @@ export function snapshotOf(t: {
   mode?: string | null;
   timer?: string | null;
   requiredTolerancePct?: number | null;
+  activeLow?: boolean | null;
 }): TargetSnapshot {
   return {
     device: t.device,
@@ -84,5 +86,6 @@ export function snapshotOf(t: {
     mode: t.mode === "pwm" || t.mode === "toggle" || t.mode === "isr" ? t.mode : null,
     timer: t.timer ? t.timer : null,
     requiredTolerancePct: t.requiredTolerancePct ?? null,
+    activeLow: t.activeLow === true,
   };
 }

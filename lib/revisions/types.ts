@@ -12,6 +12,8 @@ export type TargetSnapshot = {
   mode: "pwm" | "toggle" | "isr" | null;
   timer: string | null;
   requiredTolerancePct: number | null;
+  /** Absent in revisions made before polarity was planned: active high. */
+  activeLow?: boolean;
 };
 
 /** revisions.plans: one entry per target, in target order. */

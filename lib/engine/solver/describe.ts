@@ -64,6 +64,7 @@ export function describePlan(
     registers: timer.registers(c),
     pin: { ...timer.pins[mode]! },
     requestedMode: r.mode,
+    activeLow: r.activeLow,
     targetPeriodS: r.periodS,
     targetHighS: r.highS,
     prescale: r.device.id === "pic12f1840" ? divider / 4 : divider,
@@ -92,6 +93,10 @@ function addNotes(
   steps: number,
 ): void {
   const n = p.notes;
+  if (r.activeLow)
+    n.push(
+      `Active-low output: the pin is low for the old stage's ${fmt(r.activeS)} s pulse and high for ${fmt(r.highS)} s; high-time figures are the pin's.`,
+    );
   if (timer.notes) n.push(...timer.notes(c));
   if (c.mode === "toggle") n.push("Compare toggle gives a fixed 50 % duty cycle.");
   if (c.mode === "pwm" && timer.highStep < 1)

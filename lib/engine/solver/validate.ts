@@ -13,6 +13,9 @@ export interface CheckedRequest {
   highS: number;
   clock: ClockOption;
   clockAccuracyPpm: number;
+  activeLow: boolean;
+  /** The old stage's active pulse as requested (equals highS unless activeLow). */
+  activeS: number;
 }
 
 const MODES: readonly TimerMode[] = ["pwm", "toggle", "isr"];
@@ -98,5 +101,22 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       );
     clockAccuracyPpm = a;
   }
-  return { device, timers, timerGiven, mode, clockHz, periodS, highS, clock, clockAccuracyPpm };
+  if (request.activeLow !== undefined && typeof request.activeLow !== "boolean")
+    throw new EngineError("invalid-request", "activeLow must be true or false.", "activeLow");
+  const activeLow = request.activeLow === true;
+  // Active low: the pin is low for the active pulse, so its high time is the rest.
+  const pinHighS = activeLow ? periodS - highS : highS;
+  return {
+    device,
+    timers,
+    timerGiven,
+    mode,
+    clockHz,
+    periodS,
+    highS: pinHighS,
+    clock,
+    clockAccuracyPpm,
+    activeLow,
+    activeS: highS,
+  };
 }
