@@ -38,8 +38,8 @@ wait_for_url "$MAIL_HTTP_URL/messages.json"
 echo "== unit and integration tests"
 npx vitest run
 
-echo "== serial tests (PostgreSQL restart under load; server log checks)"
-SERVER_LOG=.data/run/test-server.log npx vitest run --config vitest.serial.config.mts
-
 echo "== browser tests"
 npx vitest run --config vitest.browser.config.mts
+
+echo "== serial tests (PostgreSQL restart under load; server log checks, after everything else)"
+SERVER_LOG=.data/run/test-server.log npx vitest run --config vitest.serial.config.mts
