@@ -2,7 +2,7 @@
 import "server-only";
 import { and, asc, desc, eq, getTableColumns } from "drizzle-orm";
 import { db } from "@/db/client";
-import { revisionFiles, revisions, users, type Revision } from "@/db/schema";
+import { retrofits, revisionFiles, revisions, users, type Revision } from "@/db/schema";
 
 export type RevisionMeta = Omit<Revision, "bundle">;
 
@@ -33,10 +33,19 @@ export async function getRevisionById({ id }: { id: number }): Promise<RevisionM
   return row ?? null;
 }
 
-export async function getRevisionBundle({ id }: { id: number }) {
+/** What a bundle download needs, in one query: the read rule's inputs and the zip. */
+export async function getRevisionDownload({ id }: { id: number }) {
   const [row] = await db
-    .select({ bundle: revisions.bundle, sha256: revisions.bundleSha256 })
+    .select({
+      number: revisions.number,
+      state: revisions.state,
+      bundleSha256: revisions.bundleSha256,
+      bundle: revisions.bundle,
+      site: retrofits.site,
+      assetTag: retrofits.assetTag,
+    })
     .from(revisions)
+    .innerJoin(retrofits, eq(retrofits.id, revisions.retrofitId))
     .where(eq(revisions.id, id));
   return row ?? null;
 }

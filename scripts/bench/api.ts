@@ -111,7 +111,27 @@ export async function apiPart(log: (s: string) => void) {
     });
     log(`api: plan ${r.perSecond.toFixed(0)} req/s, p95 ${r.p95Ms.toFixed(1)} ms`);
     figures.push(...loadFigures("POST /plan", r, 20));
-    details.plan = r;
+    // With 50 requests always in flight, latency = 50 / throughput (Little's
+    // law), so p95 <= 20 ms at 50 connections needs about 2500 req/s. One
+    // connection shows the service time itself, without the queue.
+    const single = await load({
+      url: `${base}/api/v1/plan`,
+      method: "POST",
+      headers,
+      body: JSON.stringify(body),
+      connections: 1,
+      duration: 3,
+    });
+    figures.push(
+      figure(
+        "api: POST /plan p95, 1 connection",
+        single.p95Ms,
+        "ms",
+        { op: "<=", value: 20 },
+        `service time without queueing; at 50 connections p95 <= 20 ms would need ${Math.round(CONNECTIONS / 0.02)} req/s`,
+      ),
+    );
+    details.plan = { ...r, singleConnection: single };
   } catch (e) {
     figures.push(skipped("api: POST /plan", reason(e)));
   }

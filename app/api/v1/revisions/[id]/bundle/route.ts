@@ -6,21 +6,21 @@ import { apiRoute, parseId } from "@/lib/api/route";
 import { recordAudit } from "@/lib/audit";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
-import { getRevisionBundle } from "@/lib/retrofits/revisions";
+import { getRevisionDownload } from "@/lib/retrofits/revisions";
 import { bundleFileName, etagMatches } from "@/lib/revisions/bundle-http";
-import { loadReadableRevision } from "@/lib/revisions/load";
+import { assertCanReadRevision } from "@/lib/revisions/access";
 
 export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Revision");
   const user = await requireUser({ roles: ANY, req });
-  const { revision, retrofit } = await loadReadableRevision({ id, user });
+  const revision = await getRevisionDownload({ id });
+  if (!revision) throw notFound("Revision");
+  assertCanReadRevision(user, revision, revision);
   const etag = `"${revision.bundleSha256}"`;
   const common = { etag, "cache-control": "private, no-cache" };
   if (etagMatches(req.headers.get("if-none-match"), revision.bundleSha256)) {
     return new Response(null, { status: 304, headers: common });
   }
-  const bundle = await getRevisionBundle({ id });
-  if (!bundle) throw notFound("Revision");
   await recordAudit({
     actorId: user.id,
     action: "revision.download",
@@ -28,12 +28,12 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
     subjectId: id,
     details: { sha256: revision.bundleSha256, via: user.via },
   });
-  const name = bundleFileName(retrofit.assetTag, revision.number);
-  return new Response(new Uint8Array(bundle.bundle), {
+  const name = bundleFileName(revision.assetTag, revision.number);
+  return new Response(new Uint8Array(revision.bundle), {
     headers: {
       ...common,
       "content-type": "application/zip",
-      "content-length": String(bundle.bundle.length),
+      "content-length": String(revision.bundle.length),
       "content-disposition": `attachment; filename="${name}"`,
       "x-content-sha256": revision.bundleSha256,
     },
