@@ -4,6 +4,7 @@
 // system clock and clock options, interrupt response time.
 import { avr8bitTimer } from "./avr-8bit";
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
+import { AVR_COMMON_CLOCKS } from "./avr-clocks";
 
 const PDIP = "PDIP-28";
 // PDIP-28 pinout: PD3 = 5, PD5 = 11, PD6 = 12, PB1 = 15, PB3 = 17.
@@ -55,31 +56,7 @@ export const atmega328p: DeviceSpec = {
   isrLatencyCycles: 8,
   isrLatencySource: "datasheet interrupt response time, 4 + 4 cycles (from memory)",
   clocks: [
-    {
-      id: "crystal",
-      label: "Crystal 1-20 MHz",
-      minHz: 1e6,
-      maxHz: 20e6,
-      accuracyPpm: 50,
-      kind: "crystal",
-      accuracySource: "common practice",
-    },
-    {
-      id: "rc8m",
-      label: "Internal RC 8 MHz, factory calibrated",
-      hz: 8e6,
-      accuracyPpm: 100000,
-      kind: "internal",
-      accuracySource: "datasheet, from memory",
-    },
-    {
-      id: "rc8m-cal",
-      label: "Internal RC 8 MHz, user calibrated",
-      hz: 8e6,
-      accuracyPpm: 10000,
-      kind: "internal",
-      accuracySource: "datasheet, from memory",
-    },
+    ...AVR_COMMON_CLOCKS,
     {
       id: "rc128k",
       label: "Internal 128 kHz oscillator",

@@ -3,6 +3,7 @@
 // CTC1, CS13:10), pin configurations (8-pin PDIP/SOIC), clock sources.
 import { avr8bitTimer } from "./avr-8bit";
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
+import { AVR_COMMON_CLOCKS } from "./avr-clocks";
 
 const PDIP = "PDIP-8";
 // PDIP-8 pinout: PB0 = 5, PB1 = 6.
@@ -53,31 +54,7 @@ export const attiny85: DeviceSpec = {
   isrLatencyCycles: 8,
   isrLatencySource: "datasheet interrupt response time, 4 + 4 cycles (from memory)",
   clocks: [
-    {
-      id: "crystal",
-      label: "Crystal 1-20 MHz",
-      minHz: 1e6,
-      maxHz: 20e6,
-      accuracyPpm: 50,
-      kind: "crystal",
-      accuracySource: "common practice",
-    },
-    {
-      id: "rc8m",
-      label: "Internal RC 8 MHz, factory calibrated",
-      hz: 8e6,
-      accuracyPpm: 100000,
-      kind: "internal",
-      accuracySource: "datasheet, from memory",
-    },
-    {
-      id: "rc8m-cal",
-      label: "Internal RC 8 MHz, user calibrated",
-      hz: 8e6,
-      accuracyPpm: 10000,
-      kind: "internal",
-      accuracySource: "datasheet, from memory",
-    },
+    ...AVR_COMMON_CLOCKS,
     {
       id: "pll16m",
       label: "Internal PLL 16 MHz (from the RC oscillator)",
