@@ -4,9 +4,9 @@
 // Source: ON Semiconductor 2N6027/2N6028 datasheet (peak-point definition and
 // the same load-line condition as a UJT; from memory); first-order RC timing.
 import type { PutStage } from "../stage-types";
-import { relaxation, relaxationSegments, type RelaxationInput } from "./threshold";
-import { loadLineChecks } from "./ujt";
-import { stopped, type ModelResult, type StageModel } from "./model";
+import { relaxationSegments, type RelaxationInput } from "./threshold";
+import { negativeResistanceStage } from "./ujt";
+import type { ModelResult, StageModel } from "./model";
 
 export const PUT_DEFAULTS = {
   offsetV: 0.7,
@@ -41,22 +41,15 @@ const FIELDS = {
 };
 
 function evaluate(s: PutStage): ModelResult {
-  const x = putInput(s);
-  if (x.supplyV > x.peakV && x.peakV > x.valleyV) {
-    const line = loadLineChecks(
-      {
-        supplyV: x.supplyV,
-        r: x.r,
-        peakV: x.peakV,
-        valleyV: x.valleyV,
-        peakA: s.peakCurrentA ?? PUT_DEFAULTS.peakCurrentA,
-        valleyA: s.valleyCurrentA ?? PUT_DEFAULTS.valleyCurrentA,
-      },
-      "PUT",
-    );
-    if (line.length) return stopped(line);
-  }
-  return relaxation(x, FIELDS);
+  return negativeResistanceStage(
+    putInput(s),
+    {
+      peakA: s.peakCurrentA ?? PUT_DEFAULTS.peakCurrentA,
+      valleyA: s.valleyCurrentA ?? PUT_DEFAULTS.valleyCurrentA,
+    },
+    "PUT",
+    FIELDS,
+  );
 }
 
 export const putModel: StageModel<PutStage> = {

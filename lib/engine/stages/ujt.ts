@@ -68,6 +68,24 @@ export function loadLineChecks(
   ];
 }
 
+/**
+ * A negative-resistance stage (UJT, PUT): the load-line condition first, then
+ * the generic relaxation timing. Thresholds out of order are left to
+ * relaxation(), which explains them.
+ */
+export function negativeResistanceStage(
+  x: RelaxationInput,
+  currents: { peakA: number; valleyA: number },
+  device: string,
+  fields: Parameters<typeof relaxation>[1],
+): ModelResult {
+  if (x.supplyV > x.peakV && x.peakV > x.valleyV) {
+    const line = loadLineChecks({ ...x, ...currents }, device);
+    if (line.length) return stopped(line);
+  }
+  return relaxation(x, fields);
+}
+
 export function ujtInput(s: UjtStage): RelaxationInput {
   return {
     supplyV: s.supplyV,
@@ -82,22 +100,15 @@ export function ujtInput(s: UjtStage): RelaxationInput {
 const FIELDS = { supply: "supplyV", r: "timingR", peak: "eta", valley: "valleyV", discharge: "base1R" };
 
 function evaluate(s: UjtStage): ModelResult {
-  const x = ujtInput(s);
-  if (x.supplyV > x.peakV && x.peakV > x.valleyV) {
-    const line = loadLineChecks(
-      {
-        supplyV: x.supplyV,
-        r: x.r,
-        peakV: x.peakV,
-        valleyV: x.valleyV,
-        peakA: s.peakCurrentA ?? UJT_DEFAULTS.peakCurrentA,
-        valleyA: s.valleyCurrentA ?? UJT_DEFAULTS.valleyCurrentA,
-      },
-      "UJT",
-    );
-    if (line.length) return stopped(line);
-  }
-  return relaxation(x, FIELDS);
+  return negativeResistanceStage(
+    ujtInput(s),
+    {
+      peakA: s.peakCurrentA ?? UJT_DEFAULTS.peakCurrentA,
+      valleyA: s.valleyCurrentA ?? UJT_DEFAULTS.valleyCurrentA,
+    },
+    "UJT",
+    FIELDS,
+  );
 }
 
 export const ujtModel: StageModel<UjtStage> = {
