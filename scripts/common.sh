@@ -23,21 +23,25 @@ apt_ensure() {
   DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends -o DPkg::Lock::Timeout=600 "${missing[@]}" >/dev/null
 }
 
-# Start a background process once; its pid goes to .data/run/<name>.pid.
+# Start a background process once, in a session of its own so that stopping
+# it also stops its children (npx and tsx run the real program as a child);
+# its pid goes to .data/run/<name>.pid.
 start_bg() {
   local name=$1
   shift
   mkdir -p .data/run
   local pidfile=".data/run/$name.pid"
   if [[ -f $pidfile ]] && kill -0 "$(cat "$pidfile")" 2>/dev/null; then return 0; fi
-  nohup "$@" >".data/run/$name.log" 2>&1 &
+  setsid nohup "$@" >".data/run/$name.log" 2>&1 &
   echo $! >"$pidfile"
 }
 
 stop_bg() {
   local pidfile=".data/run/$1.pid"
   if [[ -f $pidfile ]]; then
-    kill "$(cat "$pidfile")" 2>/dev/null || true
+    local pid
+    pid=$(cat "$pidfile")
+    kill -TERM -- "-$pid" 2>/dev/null || kill "$pid" 2>/dev/null || true
     rm -f "$pidfile"
   fi
 }
