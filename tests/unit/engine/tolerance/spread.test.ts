@@ -186,37 +186,3 @@ describe("corners", () => {
     expect(a.checks.map((c) => c.code)).toContain("stops-within-tolerance");
   });
 });
-
-describe("speed", () => {
-  it("10 000 samples of a 9-parameter UJT stage, warm, in under 20 ms", () => {
-    const s: Stage = {
-      kind: "ujt",
-      supplyV: 20,
-      timingR: 47e3,
-      timingC: 100e-9,
-      eta: 0.63,
-      interbaseR: 6.8e3,
-      tolerances: {
-        supplyV: 0.1,
-        timingR: 0.05,
-        timingC: [0.2, 0.8],
-        eta: 0.05,
-        diodeV: 0.1,
-        valleyV: 0.2,
-        interbaseR: 0.2,
-        base1R: 0.05,
-        base2R: 0.05,
-      },
-    };
-    // CPU time of this process, best of 30 runs: the first runs include JIT
-    // warm-up, and wall time on a shared test machine measures the neighbours.
-    let best = Infinity;
-    for (let i = 0; i < 30; i++) {
-      const t0 = process.cpuUsage();
-      spreadOf(s);
-      const used = process.cpuUsage(t0);
-      best = Math.min(best, (used.user + used.system) / 1000);
-    }
-    expect(best).toBeLessThan(20);
-  });
-});
