@@ -6,7 +6,7 @@ cd "$(dirname "$0")/.."
 if [[ ! -f .env.local ]]; then
   secret=$(node -e 'console.log(require("crypto").randomBytes(32).toString("base64url"))')
   cat > .env.local <<ENV
-DATABASE_URL=postgres://postgres@127.0.0.1:54329/clockgraft
+DATABASE_URL=postgres://postgres@127.0.0.1:${PGPORT:-54329}/clockgraft
 NEXTAUTH_URL=http://localhost:3000
 NEXTAUTH_SECRET=$secret
 SMTP_HOST=127.0.0.1
