@@ -4,7 +4,7 @@
 // system clock and clock options, interrupt response time.
 import { avr8bitTimer } from "./avr-8bit";
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
-import { AVR_COMMON_CLOCKS } from "./avr-clocks";
+import { AVR_COMMON_CLOCKS, AVR_SLOW_AND_EXTERNAL_CLOCKS } from "./avr-clocks";
 
 const PDIP = "PDIP-28";
 // PDIP-28 pinout: PD3 = 5, PD5 = 11, PD6 = 12, PB1 = 15, PB3 = 17.
@@ -55,26 +55,7 @@ export const atmega328p: DeviceSpec = {
   // Interrupt response: 4 cycles, plus up to 4 to finish a multi-cycle instruction (from memory).
   isrLatencyCycles: 8,
   isrLatencySource: "datasheet interrupt response time, 4 + 4 cycles (from memory)",
-  clocks: [
-    ...AVR_COMMON_CLOCKS,
-    {
-      id: "rc128k",
-      label: "Internal 128 kHz oscillator",
-      hz: 128e3,
-      accuracyPpm: 100000,
-      kind: "internal",
-      accuracySource: "from memory",
-    },
-    {
-      id: "external",
-      label: "External clock 0-20 MHz",
-      minHz: 1e3,
-      maxHz: 20e6,
-      accuracyPpm: 50,
-      kind: "external",
-      accuracySource: "common practice",
-    },
-  ],
+  clocks: [...AVR_COMMON_CLOCKS, ...AVR_SLOW_AND_EXTERNAL_CLOCKS],
   defaultClock: "crystal",
   timers: [
     timer1,

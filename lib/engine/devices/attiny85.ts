@@ -3,7 +3,7 @@
 // CTC1, CS13:10), pin configurations (8-pin PDIP/SOIC), clock sources.
 import { avr8bitTimer } from "./avr-8bit";
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
-import { AVR_COMMON_CLOCKS } from "./avr-clocks";
+import { AVR_COMMON_CLOCKS, AVR_SLOW_AND_EXTERNAL_CLOCKS } from "./avr-clocks";
 
 const PDIP = "PDIP-8";
 // PDIP-8 pinout: PB0 = 5, PB1 = 6.
@@ -63,23 +63,7 @@ export const attiny85: DeviceSpec = {
       kind: "pll",
       accuracySource: "follows the RC oscillator, from memory",
     },
-    {
-      id: "rc128k",
-      label: "Internal 128 kHz oscillator",
-      hz: 128e3,
-      accuracyPpm: 100000,
-      kind: "internal",
-      accuracySource: "from memory",
-    },
-    {
-      id: "external",
-      label: "External clock 0-20 MHz",
-      minHz: 1e3,
-      maxHz: 20e6,
-      accuracyPpm: 50,
-      kind: "external",
-      accuracySource: "common practice",
-    },
+    ...AVR_SLOW_AND_EXTERNAL_CLOCKS,
   ],
   defaultClock: "crystal",
   timers: [
