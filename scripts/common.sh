@@ -23,6 +23,9 @@ apt_ensure() {
   DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends -o DPkg::Lock::Timeout=600 "${missing[@]}" >/dev/null
 }
 
+# The toolchains that build the bundles' firmware images (firmware.md), from Debian's packages.
+FIRMWARE_TOOLCHAINS=(make python3 gcc-avr avr-libc binutils-avr gcc-arm-none-eabi clang lld llvm msp430mcu gputils)
+
 # Start a background process once, in a session of its own so that stopping
 # it also stops its children (npx and tsx run the real program as a child);
 # its pid goes to .data/run/<name>.pid.

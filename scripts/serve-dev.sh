@@ -17,7 +17,7 @@ if [[ ${3:-} == --stop ]]; then
 fi
 mkdir -p .data/run
 cat >".data/run/$NAME.env" <<ENV
-DATABASE_URL=postgres://postgres@127.0.0.1:54329/clockgraft_$NAME
+DATABASE_URL=postgres://postgres@127.0.0.1:${PGPORT:-54329}/clockgraft_$NAME
 NEXTAUTH_URL=http://127.0.0.1:$PORT
 TEST_BASE_URL=http://127.0.0.1:$PORT
 NEXTAUTH_SECRET=dev-secret-$NAME-0000000000000000000000000000

@@ -6,7 +6,7 @@ set -euo pipefail
 source "$(dirname "$0")/common.sh"
 
 install_node_modules
-apt_ensure postgresql curl
+apt_ensure postgresql curl "${FIRMWARE_TOOLCHAINS[@]}"
 bash scripts/env-file.sh
 set -a && source .env.local && set +a
 prepare_database

@@ -30,6 +30,8 @@ export interface DeviceView {
   pin: PinFacts;
   /** anything else the device's templates read */
   extra: Record<string, unknown>;
+  /** How to put the image on the chip: one plain line per step (programmer commands, UF2 copy, SWD). */
+  flashing?: string[];
 }
 
 export function unsupported(plan: BundlePlan, what: string): never {

@@ -3,6 +3,7 @@ export { buildBundleFiles, buildBundleFilesWith } from "./build";
 export type { Planner } from "./build";
 export { zipBundle } from "./zip";
 export { sha256Hex } from "./hash";
+export { textOf, isTextFile } from "./text";
 export { checklistLimits, withinLimit, limitBasis, DEFAULT_CLOCK_ACCURACY_PPM } from "./limits";
 export type { ChecklistLimit, ChecklistBasis, LimitId } from "./limits";
 export { cautionLines, needsCautions } from "./safety";

@@ -31,7 +31,8 @@ export interface BundleSpec {
 
 export interface BundleFile {
   path: string;
-  content: string;
+  /** Text for sources and documents; bytes for the prebuilt images under <device>/firmware/. */
+  content: string | Uint8Array;
 }
 
 export interface BundlePin {

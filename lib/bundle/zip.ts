@@ -12,7 +12,7 @@ export async function zipBundle(files: BundleFile[]): Promise<Uint8Array> {
     zip.file(file.path, file.content, {
       date: FIXED_DATE,
       createFolders: false,
-      binary: false,
+      binary: typeof file.content !== "string",
       unixPermissions: 0o644,
     });
   }

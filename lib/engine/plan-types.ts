@@ -25,6 +25,8 @@ export interface PlanRequest {
    * the plan's targetHighS and highS are then the pin's high time.
    */
   activeLow?: boolean;
+  /** Package name from DeviceInfo.packages; omitted = the device's default package (the first listed). */
+  package?: string;
 }
 
 /** Output pin of a plan. ISR plans drive the same pin as a plain GPIO (function "GPIO"). */
@@ -177,6 +179,32 @@ export interface ClockOption {
   kind: ClockKind;
   /** Where the accuracy comes from ("datasheet", "common practice", "from memory"). */
   accuracySource: string;
+  /** Packages on which this source can run (a crystal needs both oscillator pins); omitted = every package. */
+  packages?: string[];
+  /** Discrete frequencies the source can make (PIC12F1840 IRCF steps); omitted = any in minHz..maxHz or hz. */
+  frequenciesHz?: number[];
+}
+
+/** A pin the board needs besides the timer output: supply, ground, reset, crystal, programming header. */
+export interface ServicePin {
+  /** Datasheet signal name: "VCC", "GND", "RESET", "XTAL1", "SWDIO", "ICSPDAT/RA0", "MCLR" ... */
+  signal: string;
+  role: "supply" | "ground" | "reset" | "crystal" | "clock-in" | "programming" | "boot";
+  /** Port name when the pin is also a port pin ("PC6", "PA13"). */
+  port?: string;
+  /** Package pin numbers (a supply or ground may have several). */
+  packagePins: number[];
+  /** Electrical note in plain words: decoupling, pull-up, which header pin. */
+  notes: string;
+  /** true where the number was not checked against the datasheet's pin table. */
+  fromMemory?: boolean;
+}
+
+/** One package of a device with the pins every board needs. */
+export interface PackageInfo {
+  /** "PDIP-28", "TSSOP-20", "QFN-56" ... as written in PinAssignment.package. */
+  name: string;
+  servicePins: ServicePin[];
 }
 
 export interface TimerInfo {
@@ -203,4 +231,6 @@ export interface DeviceInfo {
   clocks: ClockOption[];
   timers: TimerInfo[];
   toolchain: { compiler: string; target: string; header: string };
+  /** Packages, the default first, with their supply, ground, reset, crystal and programming pins. */
+  packages?: PackageInfo[];
 }

@@ -14,6 +14,7 @@ import {
   zipBundle,
   type BundleSpec,
   type BundleTargetRequest,
+  isTextFile,
 } from "@/lib/bundle";
 import { analyzeStage, ENGINE_VERSION, isEngineError, validateStage, type Stage } from "@/lib/engine";
 import { planOne, planRequestOf, snapshotOf } from "./plan-targets";
@@ -133,7 +134,7 @@ export async function generateRevision({
       })
       .returning();
     await tx.insert(revisionFiles).values(
-      files.map((f) => ({
+      files.filter(isTextFile).map((f) => ({
         revisionId: row.id,
         path: f.path,
         content: f.content,

@@ -33,6 +33,9 @@ export function deviceInfo(d: DeviceSpec): DeviceInfo {
     clocks: d.clocks.map((c) => ({ ...c })),
     timers: d.timers.map(timerInfo),
     toolchain: { ...d.toolchain },
+    ...(d.packages
+      ? { packages: d.packages.map((p) => ({ ...p, servicePins: p.servicePins.map((s) => ({ ...s })) })) }
+      : {}),
   };
 }
 

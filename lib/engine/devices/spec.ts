@@ -1,6 +1,6 @@
 // Internal device description the solver works from. The public view
 // (DeviceInfo) is derived from it in ./index.ts.
-import type { ClockOption, DeviceId, PinAssignment, TimerInfo, TimerMode } from "../plan-types";
+import type { ClockOption, DeviceId, PackageInfo, PinAssignment, TimerInfo, TimerMode } from "../plan-types";
 
 /** One solved configuration, in the units the registers use. */
 export interface TimerConfig {
@@ -55,6 +55,8 @@ export interface DeviceSpec {
   defaultClock: string;
   timers: TimerSpec[];
   toolchain: { compiler: string; target: string; header: string };
+  /** Packages, the default first, with their service pins (supply, ground, reset, crystal, programming). */
+  packages?: PackageInfo[];
 }
 
 export function timerInfo(t: TimerSpec): TimerInfo {

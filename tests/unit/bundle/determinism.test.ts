@@ -3,7 +3,7 @@
 // sanitised user text, typed error for an unplannable target.
 import JSZip from "jszip";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, cautionLines, sha256Hex, zipBundle } from "@/lib/bundle";
+import { buildBundleFiles, cautionLines, sha256Hex, textOf, zipBundle } from "@/lib/bundle";
 import { EngineError } from "@/lib/engine";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
@@ -60,7 +60,7 @@ describe("bundle determinism and layout", () => {
 
   it("plan.json has keys sorted at every depth and exact numbers", () => {
     const files = buildBundleFiles(spec());
-    const json = JSON.parse(files.find((f) => f.path === "plan.json")!.content);
+    const json = JSON.parse(textOf(files.find((f) => f.path === "plan.json")!));
     const check = (v: unknown): void => {
       if (Array.isArray(v)) return v.forEach(check);
       if (v && typeof v === "object") {
@@ -90,7 +90,7 @@ describe("bundle determinism and layout", () => {
     const files = buildBundleFiles(
       spec(TARGETS.slice(0, 1), { name: "Oven */ int x; /*\nrow | 2", site: "A|B", assetTag: "T`1`" }),
     );
-    const main = files.find((f) => f.path === "atmega328p/src/main.c")!.content;
+    const main = textOf(files.find((f) => f.path === "atmega328p/src/main.c")!);
     const header = main.slice(0, main.indexOf("*/") + 2);
     expect(header).toContain("Oven * / int x; / * row | 2");
     expect(main).not.toContain("int x;\n");

@@ -6,7 +6,7 @@ import { createTwoFilesPatch } from "diff";
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles } from "@/lib/bundle";
+import { buildBundleFiles, textOf } from "@/lib/bundle";
 import { TARGETS, spec } from "./fixtures";
 
 const ROOT = path.join(process.cwd(), "tests/golden/bundle-basic");
@@ -35,7 +35,7 @@ describe("golden bundle", () => {
     expect(files.map((f) => f.path).sort()).toEqual(listFiles(ROOT).sort());
   });
 
-  it.each(files.map((f) => [f.path, f.content] as const))("%s matches its golden copy", (p, content) => {
+  it.each(files.map((f) => [f.path, textOf(f)] as const))("%s matches its golden copy", (p, content) => {
     const golden = existsSync(path.join(ROOT, p)) ? readFileSync(path.join(ROOT, p), "utf8") : "";
     if (golden !== content) {
       const patch = createTwoFilesPatch(`golden/${p}`, `generated/${p}`, golden, content, "", "", {

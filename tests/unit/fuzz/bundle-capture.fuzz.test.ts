@@ -4,7 +4,7 @@
 // and every file must be produced; captures measure or fail with CaptureError.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles } from "@/lib/bundle";
+import { buildBundleFiles, textOf } from "@/lib/bundle";
 import { isCaptureError, measureCsv } from "@/lib/capture";
 import { isEngineError } from "@/lib/engine";
 import { nanPaths } from "./nan-paths";
@@ -49,7 +49,7 @@ describe("buildBundleFiles", () => {
         }
         expect(files.length).toBeGreaterThan(3);
         for (const f of files.filter((x) => /\.(c|h)$/.test(x.path))) {
-          const code = codeOnly(f.content);
+          const code = codeOnly(textOf(f));
           expect(code, f.path).not.toMatch(/\bevil\b/);
           // Comments are balanced: no stray opener or closer outside them.
           expect(code, f.path).not.toMatch(/\/\*|\*\//);
