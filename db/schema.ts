@@ -159,6 +159,23 @@ export const revisionFiles = pgTable(
   (t) => [uniqueIndex("revision_files_path_uq").on(t.revisionId, t.path)],
 );
 
+// Ready-to-flash images of a revision (<device>/firmware/*): bytes, kept apart
+// from the text files so diffs, comments and file views read text only.
+export const revisionImages = pgTable(
+  "revision_images",
+  {
+    id: serial("id").primaryKey(),
+    revisionId: integer("revision_id")
+      .notNull()
+      .references(() => revisions.id),
+    path: text("path").notNull(),
+    content: bytea("content").notNull(),
+    size: integer("size").notNull(),
+    sha256: text("sha256").notNull(),
+  },
+  (t) => [uniqueIndex("revision_images_path_uq").on(t.revisionId, t.path)],
+);
+
 export const reviews = pgTable("reviews", {
   id: serial("id").primaryKey(),
   revisionId: integer("revision_id")
@@ -281,11 +298,15 @@ export const retrofitsRelations = relations(retrofits, ({ one, many }) => ({
 export const revisionsRelations = relations(revisions, ({ one, many }) => ({
   retrofit: one(retrofits, { fields: [revisions.retrofitId], references: [retrofits.id] }),
   files: many(revisionFiles),
+  images: many(revisionImages),
   reviews: many(reviews),
   comments: many(comments),
 }));
 export const revisionFilesRelations = relations(revisionFiles, ({ one }) => ({
   revision: one(revisions, { fields: [revisionFiles.revisionId], references: [revisions.id] }),
+}));
+export const revisionImagesRelations = relations(revisionImages, ({ one }) => ({
+  revision: one(revisions, { fields: [revisionImages.revisionId], references: [revisions.id] }),
 }));
 export const stagesRelations = relations(stages, ({ one }) => ({
   retrofit: one(retrofits, { fields: [stages.retrofitId], references: [retrofits.id] }),
@@ -310,6 +331,7 @@ export type TargetRow = typeof targets.$inferSelect;
 export type Revision = typeof revisions.$inferSelect;
 export type RevisionState = (typeof revisionStateEnum.enumValues)[number];
 export type RevisionFile = typeof revisionFiles.$inferSelect;
+export type RevisionImage = typeof revisionImages.$inferSelect;
 export type Review = typeof reviews.$inferSelect;
 export type Comment = typeof comments.$inferSelect;
 export type Capture = typeof captures.$inferSelect;

@@ -9,9 +9,20 @@ import { oldOutputNote } from "./old-output";
 import { stableJson } from "./plan-json";
 import { render } from "./render";
 import { cautionLines } from "./safety";
+import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;
+
+/** Prebuilt images and the toolchains that made them (lib/firmware/bundle.ts builds them). */
+export interface BundleImages {
+  /** target folder -> its images, paths `<folder>/firmware/<name>` */
+  byFolder: Record<string, BundleFile[]>;
+  /** "command: first line of --version", sorted */
+  toolchains: string[];
+}
+
+const sizeOf = (c: string | Uint8Array) => (typeof c === "string" ? Buffer.byteLength(c, "utf8") : c.length);
 
 const byPath = (a: BundleFile, b: BundleFile) => (a.path < b.path ? -1 : a.path > b.path ? 1 : 0);
 
@@ -39,7 +50,16 @@ function analyze(spec: BundleSpec): StageAnalysis | null {
   }
 }
 
-export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): BundleFile[] {
+/**
+ * Sources, documents and plan.json of a bundle; with `images`, also the
+ * prebuilt images (listed in README, CHECKLIST and the checksums).
+ * Synchronous and free of toolchains: the golden and browser-free tests use it.
+ */
+export function buildBundleSourcesWith(
+  spec: BundleSpec,
+  planner: Planner,
+  images: BundleImages | null = null,
+): BundleFile[] {
   const plans = planAll(spec, planner);
   const analysis = analyze(spec);
   const folders = targetFolders(spec.targets.map((t) => t.device));
@@ -62,6 +82,14 @@ export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): Bundle
       );
     const view = entry.view(plan);
     const limits = checklistLimits(plan, analysis);
+    const own = images?.byFolder[folders[i]] ?? [];
+    const imageList = own.map((f) => ({
+      path: f.path,
+      name: f.path.slice(folders[i].length + 1),
+      sha256: sha256Hex(f.content),
+      size: sizeOf(f.content),
+    }));
+    files.push(...own);
     const ctx = {
       retrofit,
       revision: spec.revision,
@@ -82,6 +110,11 @@ export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): Bundle
       basis: limitBasis(plan),
       stage: analysis ?? { periodS: NaN, highS: NaN, outputLabel: "the old stage's output" },
       oldDrove: oldOutputNote(spec.retrofit, analysis),
+      servicePins: servicePinsOf(plan),
+      images: imageList,
+      hasImages: imageList.length > 0,
+      flashing: view.flashing ?? [],
+      limitsEnd: limits.length + 3,
     };
     for (const [out, tpl] of Object.entries(entry.files)) {
       files.push({ path: `${folders[i]}/${out}`, content: render(`${plan.device}/${tpl}`, ctx) });
@@ -89,7 +122,14 @@ export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): Bundle
     for (const name of ["PINMAP.md", "pinmap.csv", "CHECKLIST.md"]) {
       files.push({ path: `${folders[i]}/${name}`, content: render(`common/${name}.hbs`, ctx) });
     }
-    return { folder: folders[i], deviceName: entry.name, plan, limits };
+    return {
+      folder: folders[i],
+      deviceName: entry.name,
+      plan,
+      limits,
+      images: imageList,
+      flashing: view.flashing ?? [],
+    };
   });
   files.push({
     path: "plan.json",
@@ -115,12 +155,15 @@ export function buildBundleFilesWith(spec: BundleSpec, planner: Planner): Bundle
     cautions,
     hasCautions: cautions.length > 0,
     targets,
+    toolchains: images?.toolchains ?? [],
+    hasImages: images !== null,
     files: files.map((f) => ({ path: f.path, sha256: sha256Hex(f.content) })),
   });
   files.push({ path: "README.md", content: readme });
   return files.sort(byPath);
 }
 
-export function buildBundleFiles(spec: BundleSpec): BundleFile[] {
-  return buildBundleFilesWith(spec, (request) => planTarget(request));
+/** Sources only (no images): see buildBundleFiles in lib/firmware/bundle.ts for the full bundle. */
+export function buildBundleSources(spec: BundleSpec, images: BundleImages | null = null): BundleFile[] {
+  return buildBundleSourcesWith(spec, (request) => planTarget(request), images);
 }

@@ -4,6 +4,7 @@
 import { EngineError } from "@/lib/engine/errors";
 import { avrTimer8 } from "./avr-timer8";
 import { bits, intRange, unsupported, write, type DeviceView, type RegisterWrite } from "./device-view";
+import { avrClockView } from "./avr-clock-view";
 import { avrPin } from "./pins";
 import type { BundlePlan } from "./types";
 
@@ -95,10 +96,15 @@ export function atmega328pView(plan: BundlePlan): DeviceView {
           : null;
   if (!r) throw new EngineError("unknown-timer", `atmega328p: no timer ${plan.timer}`);
   const pin = avrPin(plan);
+  const clock = avrClockView(plan);
   return {
     writes: r.writes,
     pin,
+    flashing: clock.flashing,
     extra: {
+      fuses: clock.fuses,
+      clockLabel: clock.clockLabel,
+      calibratedRc: clock.calibratedRc,
       isr: r.isrVector !== null,
       isrVector: r.isrVector,
       portLetter: pin.port.charAt(1),

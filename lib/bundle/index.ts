@@ -1,6 +1,10 @@
 // Bundle contract (engine.md section 5): spec -> sorted files -> zip.
-export { buildBundleFiles, buildBundleFilesWith } from "./build";
-export type { Planner } from "./build";
+export { buildBundleSources, buildBundleSourcesWith } from "./build";
+export type { Planner, BundleImages } from "./build";
+// The full bundle with images runs the toolchains (server-only).
+export { buildBundleFiles, buildBundleImages } from "@/lib/firmware/bundle";
+export type { ImageBuildOptions, PrebuiltImages } from "@/lib/firmware/bundle";
+export { FirmwareBuildError } from "@/lib/firmware/build-images";
 export { zipBundle } from "./zip";
 export { sha256Hex } from "./hash";
 export { textOf, isTextFile } from "./text";

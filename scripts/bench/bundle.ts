@@ -1,6 +1,6 @@
 // Bundle part: files and zip of a six-device bundle, and its sha256 across runs.
 import { analyzeStage } from "@/lib/engine";
-import { buildBundleFiles, sha256Hex, zipBundle } from "@/lib/bundle";
+import { buildBundleSources, sha256Hex, zipBundle } from "@/lib/bundle";
 import { figure } from "./figures";
 import { median, percentile } from "./stats";
 import { sixDeviceSpec, STAGE } from "./workload";
@@ -18,7 +18,7 @@ export async function bundlePart(log: (s: string) => void) {
   let fileCount = 0;
   for (let i = 0; i < WARMUP + RUNS; i++) {
     const t0 = performance.now();
-    const built = await buildBundleFiles(spec);
+    const built = buildBundleSources(spec);
     const t1 = performance.now();
     const zip = await zipBundle(built);
     const t2 = performance.now();

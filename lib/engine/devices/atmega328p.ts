@@ -5,6 +5,7 @@
 import { avr8bitTimer } from "./avr-8bit";
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
 import { AVR_COMMON_CLOCKS, AVR_SLOW_AND_EXTERNAL_CLOCKS } from "./avr-clocks";
+import { ATMEGA328P_PDIP28 } from "./avr-packages";
 
 const PDIP = "PDIP-28";
 // PDIP-28 pinout: PD3 = 5, PD5 = 11, PD6 = 12, PB1 = 15, PB3 = 17.
@@ -76,5 +77,6 @@ export const atmega328p: DeviceSpec = {
       pinB: pin({ port: "PD3", function: "OC2B", packagePin: 5, package: PDIP, portName: "D", bit: 3 }),
     }),
   ],
+  packages: [ATMEGA328P_PDIP28],
   toolchain: { compiler: "avr-gcc", target: "-mmcu=atmega328p", header: "avr/io.h" },
 };

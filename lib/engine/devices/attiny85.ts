@@ -4,6 +4,7 @@
 import { avr8bitTimer } from "./avr-8bit";
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
 import { AVR_COMMON_CLOCKS, AVR_SLOW_AND_EXTERNAL_CLOCKS } from "./avr-clocks";
+import { ATTINY85_PDIP8 } from "./avr-packages";
 
 const PDIP = "PDIP-8";
 // PDIP-8 pinout: PB0 = 5, PB1 = 6.
@@ -77,5 +78,6 @@ export const attiny85: DeviceSpec = {
     }),
     timer1,
   ],
+  packages: [ATTINY85_PDIP8],
   toolchain: { compiler: "avr-gcc", target: "-mmcu=attiny85", header: "avr/io.h" },
 };

@@ -3,39 +3,39 @@
 // sanitised user text, typed error for an unplannable target.
 import JSZip from "jszip";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, cautionLines, sha256Hex, textOf, zipBundle } from "@/lib/bundle";
+import { buildBundleSources, cautionLines, sha256Hex, textOf, zipBundle } from "@/lib/bundle";
 import { EngineError } from "@/lib/engine";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
 describe("bundle determinism and layout", () => {
   it("two builds give the same files and the same zip sha256, with a second between them", async () => {
-    const a = buildBundleFiles(spec());
+    const a = buildBundleSources(spec());
     const za = await zipBundle(a);
     await new Promise((r) => setTimeout(r, 1100));
-    const b = buildBundleFiles(spec());
+    const b = buildBundleSources(spec());
     const zb = await zipBundle(b);
     expect(b).toEqual(a);
     expect(sha256Hex(zb)).toBe(sha256Hex(za));
   });
 
   it("the zip is the same in another time zone (fixed entry dates, no folder entries)", async () => {
-    const here = sha256Hex(await zipBundle(buildBundleFiles(spec(TARGETS.slice(0, 1)))));
+    const here = sha256Hex(await zipBundle(buildBundleSources(spec(TARGETS.slice(0, 1)))));
     // Node applies a TZ change at run time (Node docs, process.env.TZ)
     const saved = process.env.TZ;
     process.env.TZ = "Pacific/Kiritimati";
     expect(new Date(0).getTimezoneOffset()).not.toBe(0);
     try {
-      expect(sha256Hex(await zipBundle(buildBundleFiles(spec(TARGETS.slice(0, 1)))))).toBe(here);
+      expect(sha256Hex(await zipBundle(buildBundleSources(spec(TARGETS.slice(0, 1)))))).toBe(here);
     } finally {
       if (saved === undefined) delete process.env.TZ;
       else process.env.TZ = saved;
     }
-    const zip = await JSZip.loadAsync(await zipBundle(buildBundleFiles(spec(TARGETS.slice(0, 1)))));
+    const zip = await JSZip.loadAsync(await zipBundle(buildBundleSources(spec(TARGETS.slice(0, 1)))));
     expect(Object.values(zip.files).some((f) => f.dir)).toBe(false);
   });
 
   it("paths follow the product layout, sorted, one folder per target with -2, -3 for repeats", () => {
-    const files = buildBundleFiles(spec());
+    const files = buildBundleSources(spec());
     const paths = files.map((f) => f.path);
     expect(paths).toEqual([...paths].sort());
     expect(paths).toContain("README.md");
@@ -50,7 +50,7 @@ describe("bundle determinism and layout", () => {
   });
 
   it("README lists the sha256 of every other file and the engine version", () => {
-    const files = buildBundleFiles(spec());
+    const files = buildBundleSources(spec());
     const readme = files.find((f) => f.path === "README.md")!.content;
     for (const f of files.filter((x) => x.path !== "README.md")) {
       expect(readme).toContain(`${sha256Hex(f.content)}  ${f.path}`);
@@ -59,7 +59,7 @@ describe("bundle determinism and layout", () => {
   });
 
   it("plan.json has keys sorted at every depth and exact numbers", () => {
-    const files = buildBundleFiles(spec());
+    const files = buildBundleSources(spec());
     const json = JSON.parse(textOf(files.find((f) => f.path === "plan.json")!));
     const check = (v: unknown): void => {
       if (Array.isArray(v)) return v.forEach(check);
@@ -75,19 +75,21 @@ describe("bundle determinism and layout", () => {
   });
 
   it("cautions appear in README and every checklist when mains-powered or driving a thyristor, and not otherwise", () => {
-    const hazard = buildBundleFiles(spec(TARGETS.slice(0, 2)));
+    const hazard = buildBundleSources(spec(TARGETS.slice(0, 2)));
     const lines = cautionLines({ name: "x", mainsPowered: true, drivesThyristor: true });
     for (const f of hazard.filter((x) => x.path === "README.md" || x.path.endsWith("CHECKLIST.md"))) {
       for (const l of lines) expect(f.content).toContain(l);
       expect(f.content).toMatch(/lock/i);
       expect(f.content).toMatch(/absence of voltage/i);
     }
-    const safe = buildBundleFiles(spec(TARGETS.slice(0, 2), { mainsPowered: false, drivesThyristor: false }));
+    const safe = buildBundleSources(
+      spec(TARGETS.slice(0, 2), { mainsPowered: false, drivesThyristor: false }),
+    );
     for (const f of safe) expect(f.content).not.toMatch(/Caution|lock it out/);
   });
 
   it("user text cannot close a C comment, break a line or a Markdown table", () => {
-    const files = buildBundleFiles(
+    const files = buildBundleSources(
       spec(TARGETS.slice(0, 1), { name: "Oven */ int x; /*\nrow | 2", site: "A|B", assetTag: "T`1`" }),
     );
     const main = textOf(files.find((f) => f.path === "atmega328p/src/main.c")!);
@@ -103,7 +105,7 @@ describe("bundle determinism and layout", () => {
     const bad = [...TARGETS.slice(0, 1), { device: "attiny85", clockHz: 8e6, periodS: 1e-9, highS: 0.5e-9 }];
     let err: unknown;
     try {
-      buildBundleFiles(spec(bad));
+      buildBundleSources(spec(bad));
     } catch (e) {
       err = e;
     }

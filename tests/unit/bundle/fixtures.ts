@@ -39,7 +39,7 @@ export function spec(
   };
 }
 
-/** Folder names buildBundleFiles gives TARGETS, in order. */
+/** Folder names buildBundleSources gives TARGETS, in order. */
 export const FOLDERS = [
   "atmega328p",
   "atmega328p-2",

@@ -6,7 +6,7 @@ import { createTwoFilesPatch } from "diff";
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, textOf } from "@/lib/bundle";
+import { buildBundleSources, textOf } from "@/lib/bundle";
 import { TARGETS, spec } from "./fixtures";
 
 const ROOT = path.join(process.cwd(), "tests/golden/bundle-basic");
@@ -21,7 +21,7 @@ function listFiles(dir: string, base = ""): string[] {
 }
 
 describe("golden bundle", () => {
-  const files = buildBundleFiles(GOLDEN_SPEC);
+  const files = buildBundleSources(GOLDEN_SPEC);
 
   if (process.env.UPDATE_GOLDEN === "1") {
     rmSync(ROOT, { recursive: true, force: true });

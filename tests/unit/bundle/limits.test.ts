@@ -3,7 +3,7 @@
 // come from the plan: ATmega328P at 16 MHz, prescaler 8 -> one count = 0.5 us
 // (ATmega328P datasheet, Timer1 clock select), crystal ±50 ppm as the plan says.
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, checklistLimits, withinLimit, type BundlePlan } from "@/lib/bundle";
+import { buildBundleSources, checklistLimits, withinLimit, type BundlePlan } from "@/lib/bundle";
 import { eng } from "@/lib/bundle/format";
 import { planTarget } from "@/lib/engine";
 import { TARGETS, spec } from "./fixtures";
@@ -38,7 +38,7 @@ describe("checklist limits", () => {
   });
 
   it("the printed checklist shows the same limits", () => {
-    const list = buildBundleFiles(spec([TARGETS[0]])).find(
+    const list = buildBundleSources(spec([TARGETS[0]])).find(
       (f) => f.path === "atmega328p/CHECKLIST.md",
     )!.content;
     expect(list).toContain(`${eng(period.min, "s")} … ${eng(period.max, "s")}`);

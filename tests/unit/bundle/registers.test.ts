@@ -4,7 +4,7 @@
 // Sources: ATmega328P DS40002061, ATtiny25/45/85, RM0444, RP2040 datasheet,
 // PIC12F1840 DS40001441, MSP430x2xx user's guide SLAU144.
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundlePlan } from "@/lib/bundle";
+import { buildBundleSources, type BundlePlan } from "@/lib/bundle";
 import { DEVICES } from "@/lib/bundle/devices";
 import { planTarget } from "@/lib/engine";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
@@ -34,7 +34,7 @@ describe("register values", () => {
         }
       }
       expect(compared).toBeGreaterThanOrEqual(2);
-      const main = buildBundleFiles(spec([request])).find((f) => f.path.endsWith("src/main.c"))!.content;
+      const main = buildBundleSources(spec([request])).find((f) => f.path.endsWith("src/main.c"))!.content;
       const esc = (t: string) => t.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
       for (const w of view.writes) {
         // the comment names the formula and the final value; the statement uses the vendor's names

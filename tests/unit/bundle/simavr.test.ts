@@ -3,7 +3,7 @@
 // Method: verification recipe (trace prologue compiled beside main.c only in
 // the test; VCD per IEEE 1364 section 18). Plans come from planTarget.
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundlePlan, type BundleTargetRequest } from "@/lib/bundle";
+import { buildBundleSources, type BundlePlan, type BundleTargetRequest } from "@/lib/bundle";
 import { planTarget } from "@/lib/engine";
 import { buildAvr, simulateAvr, tracePrologue, writeText } from "@/tests/tools/avr";
 import { measure, parseVcd } from "@/tests/tools/vcd";
@@ -11,7 +11,7 @@ import { spec } from "./fixtures";
 
 function simulate(request: BundleTargetRequest, stopWdp: number) {
   const plan = planTarget(request) as BundlePlan;
-  const files = buildBundleFiles(spec([request]));
+  const files = buildBundleSources(spec([request]));
   const port = plan.pin.port.charAt(1);
   const bit = Number(plan.pin.port.slice(2));
   const mcu = request.device;

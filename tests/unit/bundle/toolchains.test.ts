@@ -4,13 +4,13 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles } from "@/lib/bundle";
+import { buildBundleSources } from "@/lib/bundle";
 import { buildAvr } from "@/tests/tools/avr";
 import { buildArm, hostSyntaxCheck, syntaxCheckFolder } from "@/tests/tools/c-check";
 import { writeFolder } from "@/tests/tools/files";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
-const files = buildBundleFiles(spec());
+const files = buildBundleSources(spec());
 const folderOf = (device: string) => FOLDERS.filter((f, i) => TARGETS[i].device === device && f.length > 0);
 
 describe("generated C builds with the device toolchains", () => {

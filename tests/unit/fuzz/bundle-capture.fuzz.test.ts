@@ -4,7 +4,7 @@
 // and every file must be produced; captures measure or fail with CaptureError.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, textOf } from "@/lib/bundle";
+import { buildBundleSources, textOf } from "@/lib/bundle";
 import { isCaptureError, measureCsv } from "@/lib/capture";
 import { isEngineError } from "@/lib/engine";
 import { nanPaths } from "./nan-paths";
@@ -31,13 +31,13 @@ function codeOnly(src: string): string {
   return src.replace(/\/\*[\s\S]*?\*\/|\/\/[^\n]*|"(?:\\.|[^"\\\n])*"|'(?:\\.|[^'\\\n])*'/g, " ");
 }
 
-describe("buildBundleFiles", () => {
+describe("buildBundleSources", () => {
   it("arbitrary names never leave a C comment and never break generation", () => {
     fc.assert(
       fc.property(nasty, nasty, nasty, (name, site, assetTag) => {
         let files;
         try {
-          files = buildBundleFiles({
+          files = buildBundleSources({
             retrofit: { name, site, assetTag, mainsPowered: true, drivesThyristor: true },
             revision: 1,
             stage: STAGE as never,

@@ -7,6 +7,7 @@
  */
 #include <avr/io.h>
 #include <avr/interrupt.h>
+#include <avr/power.h>
 #include <avr/sleep.h>
 #include <stdint.h>
 #include "timing.h"
@@ -38,6 +39,10 @@ ISR(TIMER1_COMPA_vect)
 
 int main(void)
 {
+  /* Full clock whatever CKDIV8 says (factory fuses divide by 8): CLKPR, ATmega328P
+   * datasheet, System Clock Prescaler. The fuses for Crystal 1-20 MHz are in the Makefile. */
+  clock_prescale_set(clock_div_1);
+
   /* PB1 as output (GPIO) */
   DDRB |= (1 << DDB1);
 
