@@ -2,7 +2,7 @@
 import "server-only";
 import { and, asc, desc, eq, getTableColumns } from "drizzle-orm";
 import { db } from "@/db/client";
-import { retrofits, revisionFiles, revisions, users, type Revision } from "@/db/schema";
+import { retrofits, revisionFiles, revisionImages, revisions, users, type Revision } from "@/db/schema";
 
 export type RevisionMeta = Omit<Revision, "bundle">;
 
@@ -63,5 +63,22 @@ export async function getRevisionFile({ revisionId, path }: { revisionId: number
     .select({ path: revisionFiles.path, sha256: revisionFiles.sha256, content: revisionFiles.content })
     .from(revisionFiles)
     .where(and(eq(revisionFiles.revisionId, revisionId), eq(revisionFiles.path, path)));
+  return row ?? null;
+}
+
+/** The revision's ready-to-flash images (<device>/firmware/*): path, size and sha256, no bytes. */
+export async function listRevisionImages({ revisionId }: { revisionId: number }) {
+  return db
+    .select({ path: revisionImages.path, size: revisionImages.size, sha256: revisionImages.sha256 })
+    .from(revisionImages)
+    .where(eq(revisionImages.revisionId, revisionId))
+    .orderBy(asc(revisionImages.path));
+}
+
+export async function getRevisionImage({ revisionId, path }: { revisionId: number; path: string }) {
+  const [row] = await db
+    .select({ path: revisionImages.path, sha256: revisionImages.sha256, content: revisionImages.content })
+    .from(revisionImages)
+    .where(and(eq(revisionImages.revisionId, revisionId), eq(revisionImages.path, path)));
   return row ?? null;
 }

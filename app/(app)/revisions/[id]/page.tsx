@@ -9,7 +9,7 @@ import { NotAllowed } from "@/components/ui/not-allowed";
 import { pageUser } from "@/lib/auth/page";
 import { ANY, READ_ALL, REVIEW_VIEW } from "@/lib/auth/roles";
 import { getRetrofitById } from "@/lib/retrofits/get";
-import { getRevisionById, listRevisionFiles } from "@/lib/retrofits/revisions";
+import { getRevisionById, listRevisionFiles, listRevisionImages } from "@/lib/retrofits/revisions";
 import { canReadRevision } from "@/lib/revisions/access";
 import type { StoredPlan } from "@/lib/revisions/types";
 import { FileView } from "./file-view";
@@ -31,6 +31,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
     );
   }
   const files = await listRevisionFiles({ revisionId: revision.id });
+  const images = await listRevisionImages({ revisionId: revision.id });
   const plans = revision.plans as StoredPlan[];
   const folders = [...new Set(files.filter((f) => f.path.includes("/")).map((f) => f.path.split("/")[0]))];
   const byPath = new Map(files.map((f) => [f.path, f]));
@@ -108,6 +109,42 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
           <FileView key={f.path} path={f.path} content={f.content} sha256={f.sha256} />
         ))}
       </section>
+
+      {images.length > 0 && (
+        <section aria-labelledby="images-title" className="space-y-2">
+          <h2 id="images-title" className="font-semibold">
+            Ready-to-flash images ({images.length})
+          </h2>
+          <table className="w-full text-sm">
+            <thead>
+              <tr className="text-left">
+                <th scope="col">File</th>
+                <th scope="col">Bytes</th>
+                <th scope="col">sha256</th>
+              </tr>
+            </thead>
+            <tbody>
+              {images.map((img) => (
+                <tr key={img.path} data-testid="image-row">
+                  <td>
+                    <a
+                      className="num underline"
+                      href={`/api/v1/revisions/${revision.id}/files/${img.path.split("/").map(encodeURIComponent).join("/")}`}
+                      download
+                    >
+                      {img.path}
+                    </a>
+                  </td>
+                  <td className="num">{img.size}</td>
+                  <td>
+                    <code className="num break-all">{img.sha256}</code>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+      )}
     </div>
   );
 }

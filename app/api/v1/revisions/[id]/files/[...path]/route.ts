@@ -1,9 +1,10 @@
-// GET /api/v1/revisions/:id/files/<path>: one file as text/plain.
+// GET /api/v1/revisions/:id/files/<path>: one file as text/plain, or an image
+// (<device>/firmware/*) as application/octet-stream.
 import { notFound } from "@/lib/api/errors";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
-import { getRevisionFile } from "@/lib/retrofits/revisions";
+import { getRevisionFile, getRevisionImage } from "@/lib/retrofits/revisions";
 import { loadReadableRevision } from "@/lib/revisions/load";
 
 export const GET = apiRoute<{ id: string; path: string[] }>(async (req, ctx) => {
@@ -13,7 +14,18 @@ export const GET = apiRoute<{ id: string; path: string[] }>(async (req, ctx) => 
   const user = await requireUser({ roles: ANY, req });
   await loadReadableRevision({ id, user });
   const file = await getRevisionFile({ revisionId: id, path });
-  if (!file) throw notFound(`File ${path}`);
+  if (!file) {
+    const image = await getRevisionImage({ revisionId: id, path });
+    if (!image) throw notFound(`File ${path}`);
+    return new Response(new Uint8Array(image.content), {
+      headers: {
+        "content-type": "application/octet-stream",
+        "content-disposition": `attachment; filename="${path.split("/").pop()}"`,
+        etag: `"${image.sha256}"`,
+        "x-content-sha256": image.sha256,
+      },
+    });
+  }
   return new Response(file.content, {
     headers: {
       "content-type": "text/plain; charset=utf-8",
