@@ -14,6 +14,7 @@ const PARTS: Record<string, () => Promise<Part>> = {
   solver: async () => (await import("./solver")).solverPart,
   engine: async () => (await import("./engine")).enginePart,
   bundle: async () => (await import("./bundle")).bundlePart,
+  images: async () => (await import("./images")).imagesPart,
   capture: async () => (await import("./capture")).capturePart,
   pages: async () => (await import("./pages")).pagesPart,
   api: async () => (await import("./api")).apiPart,
