@@ -3,6 +3,7 @@
  * Revision r2, engine 1.0.0; target 3 (stm32g031)
  * TIM2, mode pwm, clock 16.00000 MHz, output PA0 (TIM2_CH1, pin 7)
  * Period 20.00000 ms (+0.000 ppm), high 1.500000 ms (+0.000 ppm)
+ * Part STM32G031F8P6 (TSSOP-20), clock source hsi16
  * Register values: RM0444 reference manual.
  */
 #include <stdint.h>
