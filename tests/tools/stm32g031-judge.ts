@@ -105,6 +105,11 @@ export function judgeStm32(run: Stm32Run, plan: TimerPlan, request: Request): st
       problems.push(`pin repeats every ${lp.period} interrupts, plan says ${plan.softwareDivider}`);
     if (lp.high !== plan.highCounts)
       problems.push(`pin high for ${lp.high} interrupts, plan says ${plan.highCounts}`);
+    if (
+      plan.interruptIntervalS !== null &&
+      !near(interval, plan.interruptIntervalS, plan.interruptIntervalS * 1e-9)
+    )
+      problems.push(`interrupt every ${interval} s, plan.json says ${plan.interruptIntervalS} s`);
     periodS = lp.period * interval;
     highS = lp.high * interval;
     // Half a count per interrupt for the period; the high time steps in whole interrupts.

@@ -9,10 +9,13 @@
 // from the final registers, interrupt plans by calling the handler from the
 // vector table as the NVIC would and reading the pin after each call.
 // Each planted fault below must be caught by the same judge.
-import { readFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { buildBundleFiles, type BundleTargetRequest } from "@/lib/bundle";
 import type { TimerPlan } from "@/lib/engine";
+import { buildTargetImages } from "@/lib/firmware/build-images";
 import { buildStm32, runStm32, type RunOptions } from "@/tests/tools/stm32g031-emu";
 import { DATASHEET_CH1_PIN, DATASHEET_IRQ, judgeStm32 } from "@/tests/tools/stm32g031-judge";
 import { spec } from "./fixtures";
@@ -120,6 +123,23 @@ describe("STM32G031 images run in the instruction-level emulator", () => {
   });
 });
 
+describe("the server's image builder (lib/firmware/build-images.ts) on an STM32G031 folder", () => {
+  it("makes elf, hex and bin, the same bytes as a second build, and the image runs as planned", async () => {
+    const { folder, plan, request } = target(1);
+    const a = await buildTargetImages(files, folder, "stm32g031");
+    const b = await buildTargetImages(files, folder, "stm32g031");
+    expect(a.map((f) => f.path)).toEqual([
+      `${folder}/firmware/firmware.bin`,
+      `${folder}/firmware/firmware.elf`,
+      `${folder}/firmware/firmware.hex`,
+    ]);
+    a.forEach((f, i) => expect(Buffer.from(f.content).equals(Buffer.from(b[i].content))).toBe(true));
+    const elf = path.join(mkdtempSync(path.join(tmpdir(), "cg-stm-")), "firmware.elf");
+    writeFileSync(elf, a[1].content);
+    expect(judgeStm32(runStm32(elf, options(1)), plan, request)).toEqual([]);
+  });
+});
+
 describe("planted faults the STM32G031 harness must catch", () => {
   it("a missing timer clock enable (RCC_APBENR1 TIM2EN removed)", () => {
     const { folder, plan, request } = target(1);
@@ -155,6 +175,22 @@ describe("planted faults the STM32G031 harness must catch", () => {
     const problems = judgeStm32(runStm32(b.elf, options(5)), plan, request);
     expect(problems).toContain(`TIM3_ARR is ${arr + 1}, plan.json says ${arr}`);
     expect(problems.some((p) => /^period /.test(p))).toBe(true);
+  });
+
+  it("the wrong interrupt enabled in the NVIC (TIM3's IRQ 16 for a TIM2 plan)", () => {
+    const { folder, plan, request } = target(4);
+    const b = buildStm32(files, folder, (s) =>
+      s.replace("NVIC_ISER = (1u << 15);", "NVIC_ISER = (1u << 16);"),
+    );
+    expect(judgeStm32(runStm32(b.elf, options(4)), plan, request)).toContain(
+      "NVIC IRQ 15 (TIM2) not enabled",
+    );
+  });
+
+  it("a handler that leaves UIF set", () => {
+    const { folder, plan, request } = target(4);
+    const b = buildStm32(files, folder, (s) => s.replace(/\n\s*TIM2->SR = 0u; \/\* clear UIF \*\//, ""));
+    expect(judgeStm32(runStm32(b.elf, options(4)), plan, request)).toContain("the handler left UIF set");
   });
 
   it("a wait on HSERDY with a crystal on the 20-pin package (HSEON without HSEBYP)", () => {
