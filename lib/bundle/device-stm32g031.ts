@@ -2,51 +2,41 @@
 // general-purpose timers (PSC, ARR, CCRx, CCMRx OCxM = 110 PWM mode 1,
 // 011 toggle), RCC (HSIDIV, PLL, IOPENR, APBENR1), GPIO (MODER, AFRx, BSRR).
 // Alternate function numbers: STM32G031 datasheet port A/B AF tables (TIM3
-// channels on AF1, TIM2 channels on AF2; from memory).
+// channels on AF1, TIM2 channels on AF2 on the pins used here).
+import { stm32ClockTree, type Stm32ClockTree } from "@/lib/engine/devices/stm32g031-clock-tree";
 import { EngineError } from "@/lib/engine/errors";
 import { intRange, unsupported, write, type DeviceView, type RegisterWrite } from "./device-view";
 import { pinFacts } from "./pins";
 import type { BundlePlan } from "./types";
 
-const HSI16 = 16e6;
+/**
+ * The part the linker script and pin map are written for: STM32G031F8P6,
+ * TSSOP-20, 64 KiB flash, 8 KiB SRAM (DS12992 ordering information and
+ * memory map: x4 16 KiB, x6 32 KiB, x8 64 KiB flash; 8 KiB SRAM on all).
+ */
+export const STM32_PART = { name: "STM32G031F8P6", flashKiB: 64, ramKiB: 8 } as const;
 
-export interface StmClock {
-  kind: "hsi" | "pll" | "hse";
-  /** PLL input: HSI16, or an 8 MHz HSE crystal (common practice, no source) */
-  pllFromHse?: boolean;
-  hsidiv?: number;
-  pllN?: number;
-  pllR?: number;
-  flashLatency: number;
+/** How the clock tree reaches clockHz from the plan's clock source; refuses what the engine would refuse. */
+export function stmClock(plan: BundlePlan): Stm32ClockTree {
+  // A plan without a source (older callers) means the engine default, HSI16.
+  const tree = stm32ClockTree(plan.clockSource ?? "hsi16", plan.clockHz);
+  if (!tree)
+    throw new EngineError(
+      "clock-out-of-range",
+      `stm32g031: no clock set-up for ${plan.clockHz} Hz from ${plan.clockSource}`,
+      "clockHz",
+    );
+  return tree;
 }
 
-/** 8 MHz HSE crystal behind the PLL (common practice, no source). */
-export const HSE_PLL_CRYSTAL_HZ = 8e6;
-
-/** How the clock tree reaches clockHz from the plan's clock source (RM0444 RCC chapter). */
-export function stmClock(clockHz: number, source = "hsi16"): StmClock {
-  const latency = clockHz > 48e6 ? 2 : clockHz > 24e6 ? 1 : 0;
-  const hsi = source.startsWith("hsi");
-  if (hsi) {
-    for (let k = 0; k <= 7; k++) {
-      if (HSI16 / 2 ** k === clockHz) return { kind: "hsi", hsidiv: k, flashLatency: latency };
-    }
-  }
-  if (source === "hse") {
-    if (clockHz >= 4e6 && clockHz <= 48e6) return { kind: "hse", flashLatency: latency };
-  } else if (source !== "lse") {
-    const fin = hsi ? HSI16 : HSE_PLL_CRYSTAL_HZ;
-    for (let r = 2; r <= 8; r++) {
-      for (let n = 8; n <= 86; n++) {
-        const vco = fin * n;
-        if (vco >= 64e6 && vco <= 344e6 && vco / r === clockHz && clockHz <= 64e6) {
-          return { kind: "pll", pllN: n, pllR: r, pllFromHse: !hsi, flashLatency: latency };
-        }
-      }
-    }
-  }
-  throw new EngineError("clock-out-of-range", `stm32g031: no clock set-up for ${clockHz} Hz from ${source}`);
-}
+/** Programming steps: SWD with openocd's stm32g0x target, or the ROM bootloader over USART2 with stm32flash. */
+export const STM32_FLASHING = [
+  "SWD (Debian package openocd), probe on SWDIO pin 18, SWCLK pin 19, NRST pin 6, GND pin 5, target powered:",
+  'make flash   (runs: openocd -f interface/stlink.cfg -f target/stm32g0x.cfg -c "program build/firmware.elf verify reset exit"; use your probe\'s interface file)',
+  "Or the ROM bootloader over the serial line (Debian package stm32flash), a 3.3 V USB-serial adapter on PA2 pin 9 (TX) and PA3 pin 10 (RX); a blank part starts its bootloader by itself:",
+  "stm32flash -w firmware/firmware.bin -v -S 0x08000000 /dev/ttyUSB0",
+  "Then power-cycle or pulse NRST and check the output against CHECKLIST.md.",
+];
 
 export function stm32g031View(plan: BundlePlan): DeviceView {
   const tim = plan.timer.toUpperCase();
@@ -66,6 +56,7 @@ export function stm32g031View(plan: BundlePlan): DeviceView {
     write("ARR", arr, String(arr), `ARR = periodCounts - 1; update every (PSC+1)*(ARR+1)/f_TIM`),
   ];
   const isr = plan.mode === "isr";
+  const clock = stmClock(plan);
   if (plan.mode === "pwm") {
     const ccr = intRange(plan, `CCR${ch}`, plan.highCounts, 0, arr + 1);
     writes.push(
@@ -117,7 +108,9 @@ export function stm32g031View(plan: BundlePlan): DeviceView {
       afr: portBit < 8 ? 0 : 1,
       afShift: (portBit % 8) * 4,
       modeShift: portBit * 2,
-      clock: stmClock(plan.clockHz, plan.clockSource),
+      clock: { ...clock, hsiDivisor: clock.kind === "hsisys" ? 2 ** clock.hsidiv : 1 },
+      part: STM32_PART,
     },
+    flashing: STM32_FLASHING,
   };
 }

@@ -12,6 +12,10 @@ export interface BundleTargetRequest {
   highS: number;
   mode?: PlanMode;
   timer?: string;
+  /** Clock option id from listDevices, passed to the engine unchanged (firmware.md); omitted = the device default. */
+  clockSource?: string;
+  /** Package name from DeviceInfo.packages; omitted = the device's default package. */
+  package?: string;
 }
 
 export interface BundleRetrofit {

@@ -63,6 +63,17 @@ export const targetSchema = z
           message:
             lo === hi ? `${clock.label} runs at ${lo} Hz.` : `${clock.label} runs from ${lo} Hz to ${hi} Hz.`,
         });
+      } else if (clock.frequenciesHz && !clock.frequenciesHz.includes(t.clockHz)) {
+        // Discrete sources (dividers, PLL steps): name the nearest frequencies it can make.
+        const near = [...clock.frequenciesHz]
+          .sort((a, b) => Math.abs(a - t.clockHz) - Math.abs(b - t.clockHz))
+          .slice(0, 2)
+          .sort((a, b) => a - b);
+        ctx.addIssue({
+          code: "custom",
+          path: ["clockHz"],
+          message: `${clock.label} cannot make ${t.clockHz} Hz; nearest: ${near.join(" Hz or ")} Hz.`,
+        });
       }
     }
     if (t.timer && !device.timers.some((x) => x.name === t.timer!.toUpperCase())) {

@@ -15,13 +15,13 @@ export const STAGE: UjtStage = {
 
 /**
  * A usual clock per device, from its clock options: crystal 16 MHz, crystal
- * 8 MHz, HSE + PLL 64 MHz, XOSC + PLL 125 MHz (the RP2040 SDK default),
+ * 8 MHz, HSI16 + PLL 64 MHz, XOSC + PLL 125 MHz (the RP2040 SDK default),
  * 8 MHz x 4 PLL, calibrated DCO 16 MHz.
  */
 const CLOCKS: [string, string, number][] = [
   ["atmega328p", "crystal", 16e6],
   ["attiny85", "crystal", 8e6],
-  ["stm32g031", "hse-pll", 64e6],
+  ["stm32g031", "hsi16", 64e6],
   ["rp2040", "xosc-pll", 125e6],
   ["pic12f1840", "crystal-pll", 32e6],
   ["msp430g2553", "dco-cal", 16e6],

@@ -57,6 +57,12 @@ export interface DeviceSpec {
   toolchain: { compiler: string; target: string; header: string };
   /** Packages, the default first, with their service pins (supply, ground, reset, crystal, programming). */
   packages?: PackageInfo[];
+  /**
+   * Device-specific clock check run after the generic ones: throws an
+   * EngineError naming clockSource, clockHz or package when this source
+   * cannot make clockHz on this package.
+   */
+  checkClock?: (clock: ClockOption, clockHz: number, packageName: string) => void;
 }
 
 export function timerInfo(t: TimerSpec): TimerInfo {

@@ -16,6 +16,8 @@ export interface CheckedRequest {
   activeLow: boolean;
   /** The old stage's active pulse as requested (equals highS unless activeLow). */
   activeS: number;
+  /** Package the plan is for (the device's first listed package when omitted). */
+  packageName?: string;
 }
 
 const MODES: readonly TimerMode[] = ["pwm", "toggle", "isr"];
@@ -90,6 +92,20 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `${device.name} has no clock option "${clockId}". Options: ${device.clocks.map((c) => c.id).join(", ")}.`,
       "clockSource",
     );
+  const packageName = checkPackage(device, request.package);
+  if (packageName !== undefined && clock.packages && !clock.packages.includes(packageName))
+    throw new EngineError(
+      "invalid-request",
+      `${device.name}: ${clock.label} cannot run on the ${packageName} package; it needs ${clock.packages.join(" or ")}.`,
+      "clockSource",
+    );
+  if (clock.frequenciesHz && !clock.frequenciesHz.includes(clockHz))
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name}: ${clock.label} cannot make ${clockHz} Hz.`,
+      "clockHz",
+    );
+  device.checkClock?.(clock, clockHz, packageName ?? "");
   let clockAccuracyPpm = clock.accuracyPpm;
   if (request.clockAccuracyPpm !== undefined) {
     const a = request.clockAccuracyPpm;
@@ -118,5 +134,21 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
     clockAccuracyPpm,
     activeLow,
     activeS: highS,
+    ...(packageName !== undefined ? { packageName } : {}),
   };
+}
+
+/** The requested package, checked against the device's list; the first listed when omitted. */
+function checkPackage(device: DeviceSpec, requested: unknown): string | undefined {
+  const names = (device.packages ?? []).map((p) => p.name);
+  if (requested === undefined || requested === null || requested === "") return names[0];
+  if (typeof requested !== "string" || !names.includes(requested.trim()))
+    throw new EngineError(
+      "invalid-request",
+      names.length > 0
+        ? `${device.name} has no package "${String(requested)}". Packages: ${names.join(", ")}.`
+        : `${device.name} lists no packages, so package must be left out.`,
+      "package",
+    );
+  return requested.trim();
 }

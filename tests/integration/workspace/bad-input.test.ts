@@ -102,11 +102,11 @@ describe("bad input stores nothing", () => {
   });
 
   it("generate: a target that cannot make the period is refused with 422 naming it", async () => {
-    // A 10 µs period is shorter than one cycle of a 32.768 kHz clock (30.5 µs).
+    // A 10 µs period is 1.25 cycles of HSI16 / 128 = 125 kHz (RM0444 HSIDIV): below the timer's 2 counts.
     const body = {
       ...newRetrofitBody(),
       stage: { kind: "measured", periodS: "10u", highS: "5u" },
-      targets: [{ device: "stm32g031", clockSource: "lse", clockHz: "32768", mode: "pwm" }],
+      targets: [{ device: "stm32g031", clockSource: "hsi16", clockHz: "125k", mode: "pwm" }],
     };
     const created = await api("/api/v1/retrofits", { method: "POST", body });
     const id = ((await created.json()) as { retrofit: { id: number } }).retrofit.id;

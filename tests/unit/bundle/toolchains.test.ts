@@ -8,6 +8,7 @@ import { buildBundleSources } from "@/lib/bundle";
 import { buildAvr } from "@/tests/tools/avr";
 import { buildArm, hostSyntaxCheck, syntaxCheckFolder } from "@/tests/tools/c-check";
 import { writeFolder } from "@/tests/tools/files";
+import { buildStm32 } from "@/tests/tools/stm32g031-emu";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
 const files = buildBundleSources(spec());
@@ -20,6 +21,23 @@ describe("generated C builds with the device toolchains", () => {
     const b = buildAvr(files, folder, mcu);
     expect(readFileSync(b.elf).length).toBeGreaterThan(0);
   });
+
+  // STM32G031: the bundle's own Makefile (firmware.md build contract) makes build/firmware.elf, .hex and .bin;
+  // two builds give the same bytes. Intel HEX records: Intel Hexadecimal Object File Format Specification.
+  it.each(folderOf("stm32g031"))(
+    "%s builds with make into build/ and twice gives the same bytes",
+    (folder) => {
+      const a = buildStm32(files, folder);
+      const b = buildStm32(files, folder);
+      for (const k of ["elf", "bin", "hex"] as const) {
+        expect(readFileSync(a[k]).length).toBeGreaterThan(64);
+        expect(readFileSync(a[k]).equals(readFileSync(b[k]))).toBe(true);
+      }
+      const hex = readFileSync(a.hex, "utf8");
+      expect(hex).toMatch(/^:020000040800F2/); // extended linear address 0x0800: flash at 0x08000000
+      expect(hex.trimEnd().endsWith(":00000001FF")).toBe(true);
+    },
+  );
 
   // arm-none-eabi-gcc (Debian gcc-arm-none-eabi), freestanding -nostdlib link with the bundle's own start-up and linker script
   it.each([...folderOf("stm32g031"), ...folderOf("rp2040")])(

@@ -91,11 +91,13 @@ describe("pin facts", () => {
     });
   });
 
-  it("STM32G031 TIM2_CH1 = PA0 AF2, TIM3_CH1 = PA6 AF1 (alternate function table; TSSOP-20 pin numbers from memory)", () => {
+  // ST's pin data for the STM32G031 (alternate function table); DS12992 TSSOP20 pinout: PA0 pin 7, PA6 pin 13.
+  it("STM32G031 TIM2_CH1 = PA0 AF2 pin 7, TIM3_CH1 = PA6 AF1 pin 13 on the TSSOP-20", () => {
     const p2 = plan("stm32g031", "TIM2", "pwm", 64e6).pin;
     const p3 = plan("stm32g031", "TIM3", "pwm", 64e6).pin;
-    expect(p2).toMatchObject({ port: "PA0", function: "TIM2_CH1", alternateFunction: 2, fromMemory: true });
-    expect(p3).toMatchObject({ port: "PA6", function: "TIM3_CH1", alternateFunction: 1, fromMemory: true });
+    expect(p2).toMatchObject({ port: "PA0", function: "TIM2_CH1", alternateFunction: 2, packagePin: 7 });
+    expect(p3).toMatchObject({ port: "PA6", function: "TIM3_CH1", alternateFunction: 1, packagePin: 13 });
+    expect(p2.package).toBe("TSSOP-20");
   });
 
   it("RP2040: slice = (gpio >> 1) & 7, channel = gpio & 1, FUNCSEL 4 = PWM (RP2040 datasheet; QFN-56 pin numbers from memory)", () => {

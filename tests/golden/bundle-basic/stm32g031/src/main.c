@@ -3,6 +3,7 @@
  * Revision r2, engine 1.0.0; target 3 (stm32g031)
  * TIM2, mode pwm, clock 16.00000 MHz, output PA0 (TIM2_CH1, pin 7)
  * Period 20.00000 ms (+0.000 ppm), high 1.500000 ms (+0.000 ppm)
+ * Part STM32G031F8P6 (TSSOP-20), clock source hsi16
  * Register values: RM0444 reference manual.
  */
 #include <stdint.h>
@@ -11,19 +12,10 @@
 
 static void clock_init(void)
 {
-  /* SYSCLK = HSE * N / (M * R) = 8 MHz crystal * 8 / (1 * 4) = 16.00000 MHz */
-  RCC_CR |= (1u << 16); /* HSEON */
-  while ((RCC_CR & (1u << 17)) == 0u) {
-  } /* HSERDY */
-  FLASH_ACR = (FLASH_ACR & ~7u) | 0u; /* LATENCY wait states */
-  /* PLLR = R - 1, PLLREN, PLLN, PLLM = /1, PLLSRC = HSE (11) */
-  RCC_PLLCFGR = ((4u - 1u) << 29) | (1u << 28) | (8u << 8) | (0u << 4) | 3u;
-  RCC_CR |= (1u << 24); /* PLLON */
-  while ((RCC_CR & (1u << 25)) == 0u) {
-  } /* PLLRDY */
-  RCC_CFGR = (RCC_CFGR & ~7u) | 2u; /* SW = PLLRCLK */
-  while (((RCC_CFGR >> 3) & 7u) != 2u) {
-  }
+  /* SYSCLK = HSISYS = HSI16 / 2^HSIDIV = 16 MHz / 1 = 16.00000 MHz.
+   * HSI16 runs from reset; HSIDIV = 0 (RCC_CR bits 13:11). At most 16 MHz: 0 flash wait states. */
+  FLASH_ACR = (FLASH_ACR & ~7u) | 0u; /* LATENCY */
+  RCC_CR = (RCC_CR & ~(7u << 11)) | (0u << 11); /* HSIDIV */
 }
 
 int main(void)
