@@ -12,6 +12,8 @@ export interface BundleTargetRequest {
   highS: number;
   mode?: PlanMode;
   timer?: string;
+  /** Clock option id from listDevices, passed to the engine unchanged; omitted = the device's default. */
+  clockSource?: string;
 }
 
 export interface BundleRetrofit {

@@ -90,6 +90,24 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `${device.name} has no clock option "${clockId}". Options: ${device.clocks.map((c) => c.id).join(", ")}.`,
       "clockSource",
     );
+  // A source with discrete frequencies (calibrated DCO steps, IRCF steps) makes no other.
+  if (clock.frequenciesHz && !clock.frequenciesHz.some((hz) => Math.abs(hz - clockHz) <= hz * 1e-9))
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name} clock option ${clock.id} makes only ${clock.frequenciesHz.join(", ")} Hz; ${clockHz} Hz is not one of them.`,
+      "clockHz",
+    );
+  // Opt-in per device until every device's options state ranges that the solver tests respect.
+  if (
+    device.strictClockRange === true &&
+    ((clock.minHz !== undefined && clockHz < clock.minHz * (1 - 1e-9)) ||
+      (clock.maxHz !== undefined && clockHz > clock.maxHz * (1 + 1e-9)))
+  )
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name} clock option ${clock.id} runs from ${clock.minHz ?? device.minClockHz} Hz to ${clock.maxHz ?? device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
+      "clockHz",
+    );
   let clockAccuracyPpm = clock.accuracyPpm;
   if (request.clockAccuracyPpm !== undefined) {
     const a = request.clockAccuracyPpm;
