@@ -63,6 +63,15 @@ export const targetSchema = z
           message:
             lo === hi ? `${clock.label} runs at ${lo} Hz.` : `${clock.label} runs from ${lo} Hz to ${hi} Hz.`,
         });
+      } else if (
+        clock.frequenciesHz &&
+        !clock.frequenciesHz.some((hz) => Math.abs(hz - t.clockHz) <= hz * 1e-9)
+      ) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["clockHz"],
+          message: `${clock.label} runs at ${clock.frequenciesHz.join(", ")} Hz only.`,
+        });
       }
     }
     if (t.timer && !device.timers.some((x) => x.name === t.timer!.toUpperCase())) {
