@@ -41,5 +41,9 @@ export const DEVICES: Record<string, DeviceEntry> = {
     },
   },
   pic12f1840: { name: "PIC12F1840", view: pic12f1840View, files: AVR_FILES },
-  msp430g2553: { name: "MSP430G2553", view: msp430g2553View, files: AVR_FILES },
+  msp430g2553: {
+    name: "MSP430G2553",
+    view: msp430g2553View,
+    files: { ...AVR_FILES, "src/startup.S": "startup.S.hbs", "src/device.ld": "device.ld.hbs" },
+  },
 };

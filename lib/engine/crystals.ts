@@ -31,7 +31,10 @@ export function suggestCrystals(request: Omit<PlanRequest, "clockHz">): CrystalS
   for (const hz of COMMON_CRYSTALS_HZ) {
     if (device && (hz < device.minClockHz || hz > device.maxClockHz)) continue;
     try {
-      const p = planTarget({ ...request, clockHz: hz, clockSource: undefined } as PlanRequest);
+      // Plan on the device's crystal oscillator where it names one, so a part
+      // that takes only some crystals (MSP430 LFXT1: 32.768 kHz) refuses the rest.
+      const clockSource = device?.clocks.find((c) => c.kind === "crystal")?.id;
+      const p = planTarget({ ...request, clockHz: hz, clockSource } as PlanRequest);
       out.push({
         clockHz: hz,
         exact: p.periodErrorPpm === 0,
@@ -45,7 +48,7 @@ export function suggestCrystals(request: Omit<PlanRequest, "clockHz">): CrystalS
       });
     } catch (e) {
       // An invalid request is invalid at every frequency: report it once.
-      if (!isEngineError(e) || e.code !== "unreachable-period") throw e;
+      if (!isEngineError(e) || (e.code !== "unreachable-period" && e.code !== "clock-out-of-range")) throw e;
     }
   }
   const wanted = request.mode ?? "pwm";

@@ -63,7 +63,10 @@ export const targetSchema = z
           message:
             lo === hi ? `${clock.label} runs at ${lo} Hz.` : `${clock.label} runs from ${lo} Hz to ${hi} Hz.`,
         });
-      } else if (clock.frequenciesHz && !clock.frequenciesHz.includes(t.clockHz)) {
+      } else if (
+        clock.frequenciesHz &&
+        !clock.frequenciesHz.some((hz) => Math.abs(hz - t.clockHz) <= hz * 1e-9)
+      ) {
         // Discrete sources (dividers, PLL steps): name the nearest frequencies it can make.
         const near = [...clock.frequenciesHz]
           .sort((a, b) => Math.abs(a - t.clockHz) - Math.abs(b - t.clockHz))

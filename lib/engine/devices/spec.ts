@@ -33,7 +33,8 @@ export interface TimerSpec {
   /** pwm high-time step in counts (PIC 10-bit duty: 0.25). */
   highStep: number;
   pins: Partial<Record<TimerMode, PinAssignment>>;
-  registers(config: TimerConfig): Record<string, number>;
+  /** Register values; `clock` is the chosen clock option where the timer's clock select depends on it (MSP430 TASSEL). */
+  registers(config: TimerConfig, clock?: ClockOption): Record<string, number>;
   /** Facts to repeat in every plan on this timer. */
   notes?: (config: TimerConfig) => string[];
 }
@@ -53,6 +54,8 @@ export interface DeviceSpec {
   isrLatencySource: string;
   clocks: ClockOption[];
   defaultClock: string;
+  /** Refuse a clockHz outside the chosen clock option's minHz..maxHz (EngineError on clockHz) instead of planning it. */
+  strictClockRange?: boolean;
   timers: TimerSpec[];
   toolchain: { compiler: string; target: string; header: string };
   /** Packages, the default first, with their service pins (supply, ground, reset, crystal, programming). */

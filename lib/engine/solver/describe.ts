@@ -61,7 +61,7 @@ export function describePlan(
     highS,
     periodErrorPpm: ppm(periodS, r.periodS),
     highErrorPpm: ppm(highS, r.highS),
-    registers: timer.registers(c),
+    registers: timer.registers(c, r.clock),
     pin: { ...timer.pins[mode]! },
     requestedMode: r.mode,
     activeLow: r.activeLow,

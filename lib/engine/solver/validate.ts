@@ -99,10 +99,21 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `${device.name}: ${clock.label} cannot run on the ${packageName} package; it needs ${clock.packages.join(" or ")}.`,
       "clockSource",
     );
-  if (clock.frequenciesHz && !clock.frequenciesHz.includes(clockHz))
+  if (clock.frequenciesHz && !clock.frequenciesHz.some((hz) => Math.abs(hz - clockHz) <= hz * 1e-9))
     throw new EngineError(
       "clock-out-of-range",
       `${device.name}: ${clock.label} cannot make ${clockHz} Hz.`,
+      "clockHz",
+    );
+  // Opt-in per device until every device's options state ranges that the solver tests respect.
+  if (
+    device.strictClockRange === true &&
+    ((clock.minHz !== undefined && clockHz < clock.minHz * (1 - 1e-9)) ||
+      (clock.maxHz !== undefined && clockHz > clock.maxHz * (1 + 1e-9)))
+  )
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name} clock option ${clock.id} runs from ${clock.minHz ?? device.minClockHz} Hz to ${clock.maxHz ?? device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
       "clockHz",
     );
   device.checkClock?.(clock, clockHz, packageName ?? "");

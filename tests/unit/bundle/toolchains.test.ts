@@ -1,6 +1,8 @@
 // Every device's generated code, for hardware and interrupt (software
 // divider) plans, goes through the device's real toolchain or, where none is
-// free, a host syntax check against the datasheet-named stubs.
+// free, a host syntax check against the datasheet-named stubs. The MSP430
+// folders build with their own Makefile (Debian clang + lld against the
+// msp430mcu headers, firmware.md build contract).
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
@@ -8,6 +10,7 @@ import { buildBundleSources } from "@/lib/bundle";
 import { buildAvr } from "@/tests/tools/avr";
 import { buildArm, hostSyntaxCheck, syntaxCheckFolder } from "@/tests/tools/c-check";
 import { writeFolder } from "@/tests/tools/files";
+import { buildMsp430 } from "@/tests/tools/msp430-build";
 import { buildStm32 } from "@/tests/tools/stm32g031-emu";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
@@ -49,19 +52,37 @@ describe("generated C builds with the device toolchains", () => {
     },
   );
 
-  // host gcc -fsyntax-only -std=c11 against stubs naming the datasheet's registers (PIC12F1840 DS40001441, SLAU144/SLAS735)
-  it.each([...folderOf("pic12f1840"), ...folderOf("msp430g2553")])(
-    "%s passes the syntax check against the device stub",
+  // clang --target=msp430 -Werror with msp430mcu's msp430g2553.h (register names as in SLAU144/SLAS735), ld.lld, llvm-objcopy
+  it.each(folderOf("msp430g2553"))(
+    "%s builds with clang + lld into build/firmware.elf and .hex",
     (folder) => {
-      const r = syntaxCheckFolder(files, folder);
-      expect(r.stderr).toBe("");
-      expect(r.status).toBe(0);
+      const b = buildMsp430(files, folder);
+      expect(b.make.stderr).toBe("");
+      expect(b.make.status).toBe(0);
+      expect(readFileSync(b.hex, "utf8")).toMatch(/^:10C00000/); // first record at the start of flash, 0xC000 (SLAS735 memory map)
     },
   );
 
+  it("a register the MSP430G2553 header lacks fails the clang build", () => {
+    // Timer0_A3 has TACCR0..TACCR2 only (SLAS735), so msp430g2553.h declares no TA0CCR3
+    const b = buildMsp430(files, "msp430g2553", {
+      file: "src/main.c",
+      from: "\n  TA0CCR1 =",
+      to: "\n  TA0CCR3 =",
+    });
+    expect(b.make.status).not.toBe(0);
+    expect(b.make.stderr).toContain("TA0CCR3");
+  });
+
+  // host gcc -fsyntax-only -std=c11 against stubs naming the datasheet's registers (PIC12F1840 DS40001441)
+  it.each([...folderOf("pic12f1840")])("%s passes the syntax check against the device stub", (folder) => {
+    const r = syntaxCheckFolder(files, folder);
+    expect(r.stderr).toBe("");
+    expect(r.status).toBe(0);
+  });
+
   it.each([
     ["pic12f1840", "\n  PR2 =", "\n  PR3 ="], // Timer2 period register; the PIC12F1840 has no Timer3
-    ["msp430g2553", "\n  TA0CCR1 =", "\n  TA0CCR3 ="], // Timer0_A3 has CCR0..CCR2 only
   ])("a register the %s datasheet lacks fails the check", (folder, good, bad) => {
     const dir = writeFolder(files, folder);
     const main = path.join(dir, "src/main.c");

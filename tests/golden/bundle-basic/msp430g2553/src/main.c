@@ -1,9 +1,11 @@
 /* MSP430G2553 replacement timing stage
  * Retrofit: Kiln 3 firing stage | site: North plant | asset: K3-TS1
  * Revision r2, engine 1.0.0; target 6 (msp430g2553)
- * TIMER0_A3, mode isr, clock 1.000000 MHz, output P1.2 (GPIO, pin 4)
+ * TIMER0_A3, mode isr, clock 1.000000 MHz (calibrated DCO 1 MHz), output P1.2 (GPIO, pin 4)
  * Period 2.000000 s (+0.000 ppm), high 500.0000 ms (+0.000 ppm)
- * Register values: MSP430x2xx Family User's Guide (Timer_A, BCS+). Compiler: TI msp430-gcc.
+ * Register values: MSP430x2xx Family User's Guide (SLAU144: Timer_A, Basic
+ * Clock Module+). Builds with clang --target=msp430 against the msp430mcu
+ * headers (see Makefile); start-up and vectors are in startup.S and device.ld.
  */
 #include <msp430.h>
 #include <stdint.h>
@@ -14,7 +16,10 @@
 static volatile uint32_t tick;
 static volatile uint8_t level_next = (0 < TIMING_HIGH_TICKS);
 
-void __interrupt_vec(TIMER0_A0_VECTOR) timing_isr(void)
+/* clang's MSP430 interrupt(N) puts the handler address in section
+ * __interrupt_vector_N; device.ld places slot N at 0xFFE0 + 2*N. The
+ * msp430mcu header gives vectors as byte offsets from 0xFFE0, hence / 2. */
+__attribute__((interrupt(TIMER0_A0_VECTOR / 2))) void timing_isr(void)
 {
   if (level_next) {
     P1OUT |= BIT2;
@@ -31,13 +36,15 @@ void __interrupt_vec(TIMER0_A0_VECTOR) timing_isr(void)
 
 int main(void)
 {
-  WDTCTL = WDTPW | WDTHOLD; /* stop the watchdog */
-  if (CALBC1_1MHZ == 0xFF) {
+  /* startup.S already stopped the watchdog before copying .data and .bss. */
+  if (CALBC1_1MHZ == 0xFF || CALDCO_1MHZ == 0xFF) {
     for (;;) {
-    } /* calibration data erased: do not run on a wrong clock */
+    } /* calibration data erased: never run the output on a wrong clock */
   }
-  BCSCTL1 = CALBC1_1MHZ; /* DCO = 1 MHz, factory calibration */
-  DCOCTL = CALDCO_1MHZ;
+  DCOCTL = 0; /* lowest DCO step first, so the range change cannot overshoot 16 MHz */
+  BCSCTL1 = CALBC1_1MHZ; /* DCO range for 1 MHz, factory calibration */
+  DCOCTL = CALDCO_1MHZ; /* DCO step and modulation for 1 MHz */
+  BCSCTL2 = SELM_0 | DIVS_0; /* MCLK and SMCLK = DCO, undivided */
 
   P1OUT &= (uint8_t)~BIT2;
   P1DIR |= BIT2; /* P1.2 output (GPIO) */
@@ -49,7 +56,8 @@ int main(void)
   /* SMCLK, divide by 8, up mode; starts the timer -> 0x02D0 */
   TA0CTL = TASSEL_2 | ID_3 | MC_1;
 
-  __bis_SR_register(LPM0_bits | GIE); /* sleep; the timer runs from SMCLK/ACLK */
+  /* Sleep in LPM0: CPU off, SMCLK and ACLK keep the timer running. */
+  __asm__ volatile("bis.w %0, r2\n\tnop" : : "i"(LPM0_bits | GIE));
   for (;;) {
   }
 }

@@ -1,0 +1,209 @@
+// Runs an MSP430 ELF in mspdebug's simulator (Debian package mspdebug 0.22,
+// `mspdebug sim`) with its simio devices: timer (Timer_A), gpio, wdt
+// (Watchdog Timer+, resets the CPU when it expires) and tracer (clock
+// counters MCLK/SMCLK/ACLK and the IO write history). The simulator models
+// no Basic Clock Module (its ACLK is a fixed fraction of SMCLK, no oscillator
+// fault), no factory calibration data and no Timer_A output unit, so tests
+// check the clock set-up from the IO writes the image makes and the output
+// from the timer registers.
+import { spawnSync } from "node:child_process";
+import { requireTool } from "./require-tool";
+
+/** Test-only DCO calibration bytes at 0x10F8..0x10FF (CALDCO_16MHZ .. CALBC1_1MHZ); any value but 0xFF is "calibrated". */
+export const SIM_CALIBRATION = [0x95, 0x8f, 0x9e, 0x8e, 0x92, 0x8d, 0xb5, 0x86] as const;
+
+export interface SimOptions {
+  /** Write SIM_CALIBRATION into information memory before running (a real G2553 has it from the factory). */
+  calibration?: boolean;
+  /** Add the Watchdog Timer+ model (default true). */
+  watchdog?: boolean;
+}
+
+export interface IsrStop {
+  pc: number;
+  smclk: number;
+  aclk: number;
+  /** P1 output state printed by the gpio device after the previous stop ("---- -H--"), if it changed. */
+  p1Changes: string[];
+}
+
+export interface TimerSample {
+  smclk: number;
+  aclk: number;
+  tactl: number;
+  tar: number;
+  ccr: number[];
+  cctl: number[];
+}
+
+export interface IoWrite {
+  at: number;
+  width: "b" | "w";
+  addr: number;
+  value: number;
+}
+
+function devices(o: SimOptions): string[] {
+  const cmds = [
+    // Timer0_A3 at 0x0160, TA0IV at 0x012E, CCR0 vector slot 9 (0xFFF2), CCR1/TAIFG slot 8 (0xFFF0): SLAS735 tables
+    "simio add timer ta0 3",
+    "simio config ta0 base 0x160",
+    "simio config ta0 iv 0x12e",
+    "simio config ta0 irq0 9",
+    "simio config ta0 irq1 8",
+    // P1 at 0x0020, P2 at 0x0028 (SLAS735 peripheral file map)
+    "simio add gpio p1",
+    "simio config p1 base 0x20",
+    "simio config p1 verbose",
+    "simio add gpio p2",
+    "simio config p2 base 0x28",
+    "simio add tracer tr 4096",
+  ];
+  if (o.watchdog !== false) cmds.push("simio add wdt wdt");
+  if (o.calibration !== false)
+    cmds.push(`mw 0x10f8 ${SIM_CALIBRATION.map((b) => `0x${b.toString(16)}`).join(" ")}`);
+  return cmds;
+}
+
+function mspdebug(elf: string, cmds: string[], timeoutMs: number): string {
+  requireTool("mspdebug", "mspdebug");
+  const r = spawnSync("mspdebug", ["-q", "sim", `prog ${elf}`, ...cmds], {
+    encoding: "utf8",
+    timeout: timeoutMs,
+    maxBuffer: 64 * 1024 * 1024,
+  });
+  if (r.error) throw r.error;
+  if (r.status !== 0)
+    throw new Error(`mspdebug sim failed (${r.status}):\n${r.stderr}${r.stdout.slice(-2000)}`);
+  return r.stdout;
+}
+
+const num = (re: RegExp, text: string, what: string, radix = 10): number => {
+  const m = re.exec(text);
+  if (!m) throw new Error(`mspdebug output has no ${what}:\n${text.slice(0, 1500)}`);
+  return Number.parseInt(m[1], radix);
+};
+
+function clocks(block: string): { smclk: number; aclk: number } {
+  return {
+    smclk: num(/SMCLK\s+(\d+)/, block, "SMCLK counter"),
+    aclk: num(/ACLK:\s+(\d+)/, block, "ACLK counter"),
+  };
+}
+
+/**
+ * Breaks at `isrSymbol` and at `resetSymbol`, runs `stops` times and returns
+ * every stop with the clock counters. A stop at the reset entry means the CPU
+ * was reset (watchdog, PUC): the caller sees it in `pc`.
+ */
+export function runToBreaks(
+  elf: string,
+  isrSymbol: string,
+  resetSymbol: string,
+  stops: number,
+  o: SimOptions = {},
+): { stops: IsrStop[]; io: IoWrite[] } {
+  const cmds = [...devices(o), `setbreak ${isrSymbol}`, `setbreak ${resetSymbol}`];
+  for (let i = 0; i < stops; i++) cmds.push("run", "simio info tr");
+  const out = mspdebug(elf, cmds, 120_000);
+  const parts = out.split("Running. Press Ctrl+C to interrupt...").slice(1);
+  const result: IsrStop[] = [];
+  for (const part of parts) {
+    const pcm = /\( PC: ([0-9a-f]+)\)/.exec(part);
+    if (!pcm) continue;
+    const { smclk, aclk } = clocks(part);
+    const p1Changes = [...part.matchAll(/state change on p1: ([-LHlh]{4} [-LHlh]{4})/g)].map((m) => m[1]);
+    result.push({ pc: Number.parseInt(pcm[1], 16), smclk, aclk, p1Changes });
+  }
+  return { stops: result, io: ioWrites(out) };
+}
+
+/**
+ * Steps `settle` simulator steps (start-up, then one SMCLK cycle per step in
+ * LPM0), then takes `samples` timer samples `stepCycles` SMCLK cycles apart.
+ */
+export function sampleTimer(
+  elf: string,
+  settle: number,
+  stepCycles: number,
+  samples: number,
+  o: SimOptions = {},
+): { samples: TimerSample[]; io: IoWrite[] } {
+  const cmds = [...devices(o), `step ${settle}`, "simio info ta0", "simio info tr"];
+  for (let i = 0; i < samples; i++) cmds.push(`step ${stepCycles}`, "simio info ta0", "simio info tr");
+  const out = mspdebug(elf, cmds, 120_000);
+  const blocks = out.split("Base address: 0x0160").slice(1);
+  const list = blocks.map((b): TimerSample => {
+    const ccr: number[] = [];
+    const cctl: number[] = [];
+    for (const m of b.matchAll(/Channel\s+(\d), TACTL = 0x([0-9a-f]+), TACCR = 0x([0-9a-f]+)/g)) {
+      cctl[Number(m[1])] = Number.parseInt(m[2], 16);
+      ccr[Number(m[1])] = Number.parseInt(m[3], 16);
+    }
+    return {
+      ...clocks(b),
+      tactl: num(/TACTL:\s+0x([0-9a-f]+)/, b, "TACTL", 16),
+      tar: num(/TAR:\s+0x([0-9a-f]+)/, b, "TAR", 16),
+      ccr,
+      cctl,
+    };
+  });
+  return { samples: list, io: ioWrites(out) };
+}
+
+function ioWrites(out: string): IoWrite[] {
+  // The tracer prints its whole history at every "simio info tr": keep the last, longest copy.
+  const histories = out.split("IO event history (oldest first):").slice(1);
+  const last = histories[histories.length - 1] ?? "";
+  return [...last.matchAll(/^\s+(\d+): write\.([bw]) => 0x([0-9a-f]+) 0x([0-9a-f]+)/gm)].map((m) => ({
+    at: Number(m[1]),
+    width: m[2] as "b" | "w",
+    addr: Number.parseInt(m[3], 16),
+    value: Number.parseInt(m[4], 16),
+  }));
+}
+
+/** The value of the last write to `addr`, or undefined. */
+export function lastWrite(io: IoWrite[], addr: number): number | undefined {
+  let v: number | undefined;
+  for (const w of io) if (w.addr === addr) v = w.value;
+  return v;
+}
+
+/**
+ * Timer period in counts from TAR samples taken a whole number of counts
+ * apart: between two samples the counter advances by d counts modulo N, so a
+ * wrap gives N = TAR_i + d - TAR_(i+1). Returns every N seen (empty when the
+ * counter never wrapped or never ran).
+ */
+export function periodsFromSamples(s: TimerSample[], divider: number, useAclk = false): number[] {
+  const out: number[] = [];
+  for (let i = 1; i < s.length; i++) {
+    const dt = useAclk ? s[i].aclk - s[i - 1].aclk : s[i].smclk - s[i - 1].smclk;
+    const d = dt / divider;
+    if (s[i].tar === s[i - 1].tar && d > 0) continue; // stopped (or a whole period exactly)
+    if (s[i].tar < s[i - 1].tar + d) out.push(s[i - 1].tar + d - s[i].tar);
+  }
+  return out;
+}
+
+/**
+ * Bounded look before running to breakpoints (a `run` that never meets a
+ * breakpoint would not return): steps `steps` simulator steps (each at least
+ * one SMCLK cycle) and counts accepted interrupts in the given vector slot and
+ * CPU resets in the tracer's history.
+ */
+export function countEvents(
+  elf: string,
+  steps: number,
+  slot: number,
+  o: SimOptions = {},
+): { irqs: number; resets: number; io: IoWrite[] } {
+  const out = mspdebug(elf, [...devices(o), `step ${steps}`, "simio info tr"], 120_000);
+  const hist = out.split("IO event history (oldest first):").pop() ?? "";
+  return {
+    irqs: [...hist.matchAll(new RegExp(`irq handle ${slot}\\b`, "g"))].length,
+    resets: [...hist.matchAll(/system reset/g)].length,
+    io: ioWrites(out),
+  };
+}
