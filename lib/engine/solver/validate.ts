@@ -90,6 +90,23 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `${device.name} has no clock option "${clockId}". Options: ${device.clocks.map((c) => c.id).join(", ")}.`,
       "clockSource",
     );
+  // A source with discrete frequencies (a PLL from a fixed crystal, IRCF steps)
+  // runs only at those: refuse any other before a plan or a bundle is made.
+  if (clock.frequenciesHz && !clock.frequenciesHz.includes(clockHz)) {
+    const others = device.clocks.filter(
+      (c) => c.id !== clock.id && (c.frequenciesHz ? c.frequenciesHz.includes(clockHz) : c.hz === clockHz),
+    );
+    const near = [...clock.frequenciesHz]
+      .sort((a, b) => Math.abs(a - clockHz) - Math.abs(b - clockHz) || a - b)
+      .slice(0, 2)
+      .sort((a, b) => a - b);
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name}: ${clock.label} cannot run at ${clockHz} Hz; nearest it makes: ${near.join(" Hz, ")} Hz` +
+        (others.length ? `; ${clockHz} Hz is clock source ${others.map((c) => c.id).join(", ")}.` : "."),
+      "clockHz",
+    );
+  }
   let clockAccuracyPpm = clock.accuracyPpm;
   if (request.clockAccuracyPpm !== undefined) {
     const a = request.clockAccuracyPpm;
