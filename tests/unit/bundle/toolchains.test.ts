@@ -8,6 +8,8 @@ import { buildBundleFiles } from "@/lib/bundle";
 import { buildAvr } from "@/tests/tools/avr";
 import { buildArm, hostSyntaxCheck, syntaxCheckFolder } from "@/tests/tools/c-check";
 import { writeFolder } from "@/tests/tools/files";
+import { buildRp2040 } from "@/tests/unit/firmware/rp2040-build";
+import { elfFlashContent } from "@/tests/unit/firmware/rp2040-image-readers";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
 const files = buildBundleFiles(spec());
@@ -22,14 +24,22 @@ describe("generated C builds with the device toolchains", () => {
   });
 
   // arm-none-eabi-gcc (Debian gcc-arm-none-eabi), freestanding -nostdlib link with the bundle's own start-up and linker script
-  it.each([...folderOf("stm32g031"), ...folderOf("rp2040")])(
-    "%s builds and links with arm-none-eabi-gcc",
-    (folder) => {
-      const { size } = buildArm(files, folder);
-      const text = Number(/\n\s*(\d+)/.exec(size)?.[1]);
-      expect(text).toBeGreaterThan(64); // more than the vector table: main and the init code were linked
-    },
-  );
+  it.each([...folderOf("stm32g031")])("%s builds and links with arm-none-eabi-gcc", (folder) => {
+    const { size } = buildArm(files, folder);
+    const text = Number(/\n\s*(\d+)/.exec(size)?.[1]);
+    expect(text).toBeGreaterThan(64); // more than the vector table: main and the init code were linked
+  });
+
+  // RP2040: the bundle's own Makefile (firmware.md build contract) with arm-none-eabi-gcc and python3;
+  // the image must carry stage 2 (256 bytes), the vector table (192) and main's code beyond them.
+  it.each([...folderOf("rp2040")])("%s builds with make into build/firmware.elf, .hex and .uf2", (folder) => {
+    const imgs = buildRp2040(files, folder);
+    const flash = elfFlashContent(imgs.elf);
+    expect(flash.base).toBe(0x10000000);
+    expect(flash.bytes.length).toBeGreaterThan(256 + 192 + 64);
+    expect(imgs.hex.startsWith(":")).toBe(true);
+    expect(imgs.uf2.length % 512).toBe(0);
+  });
 
   // host gcc -fsyntax-only -std=c11 against stubs naming the datasheet's registers (PIC12F1840 DS40001441, SLAU144/SLAS735)
   it.each([...folderOf("pic12f1840"), ...folderOf("msp430g2553")])(
