@@ -102,7 +102,7 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       .sort((a, b) => a - b);
     throw new EngineError(
       "clock-out-of-range",
-      `${device.name}: ${clock.label} cannot run at ${clockHz} Hz; nearest it makes: ${near.join(" Hz, ")} Hz` +
+      `clockHz ${clockHz} Hz: ${device.name} ${clock.label} cannot run at it; nearest it makes: ${near.join(" Hz, ")} Hz` +
         (others.length ? `; ${clockHz} Hz is clock source ${others.map((c) => c.id).join(", ")}.` : "."),
       "clockHz",
     );
