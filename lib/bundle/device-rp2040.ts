@@ -1,39 +1,53 @@
 // RP2040 PWM slice. RP2040 datasheet: PWM chapter (CSR, DIV 8.4 fixed point,
 // CC, TOP; slice = (gpio >> 1) & 7, channel = gpio & 1; PH_CORRECT counts up
 // and down), clocks (XOSC, PLL_SYS: f = fref/REFDIV*FBDIV/(POSTDIV1*POSTDIV2)),
-// IO_BANK0 FUNCSEL (4 = PWM, 5 = SIO), RESETS.
+// IO_BANK0 FUNCSEL (4 = PWM, 5 = SIO), RESETS. Clock facts live in the
+// engine (lib/engine/devices/rp2040-clocks.ts) so plans and code agree.
+import { RP2040_XOSC_HZ, rp2040PllSetting, rp2040XoscStartupDelay } from "@/lib/engine/devices/rp2040-clocks";
 import { EngineError } from "@/lib/engine/errors";
 import { intRange, unsupported, write, type DeviceView, type RegisterWrite } from "./device-view";
 import { pinFacts } from "./pins";
 import type { BundlePlan } from "./types";
 
-/** Crystal on the usual RP2040 boards (Raspberry Pi Pico: 12 MHz). */
-export const XOSC_HZ = 12e6;
-
 export interface RpClock {
   kind: "xosc" | "pll";
+  refdiv?: number;
   fbdiv?: number;
   postdiv1?: number;
   postdiv2?: number;
   vcoHz?: number;
 }
 
-/** PLL_SYS settings for clockHz from the 12 MHz crystal, REFDIV = 1, VCO 750..1600 MHz (datasheet PLL section, from memory). */
-export function rpClock(clockHz: number): RpClock {
-  if (clockHz === XOSC_HZ) return { kind: "xosc" };
-  for (let fbdiv = 16; fbdiv <= 320; fbdiv++) {
-    const vco = XOSC_HZ * fbdiv;
-    if (vco < 750e6 || vco > 1600e6) continue;
-    for (let p1 = 7; p1 >= 1; p1--)
-      for (let p2 = p1; p2 >= 1; p2--)
-        if (vco / (p1 * p2) === clockHz)
-          return { kind: "pll", fbdiv, postdiv1: p1, postdiv2: p2, vcoHz: vco };
+/**
+ * The clock set-up main.c makes for clockHz: the 12 MHz crystal direct, or
+ * PLL_SYS from it. The engine refuses other frequencies before a plan exists
+ * (lib/engine/devices/rp2040-clocks.ts); this is the last guard.
+ */
+export function rpClock(plan: BundlePlan): RpClock {
+  if (plan.clockSource === "xosc" || (plan.clockSource !== "xosc-pll" && plan.clockHz === RP2040_XOSC_HZ)) {
+    if (plan.clockHz !== RP2040_XOSC_HZ)
+      throw new EngineError(
+        "clock-out-of-range",
+        `rp2040: the crystal runs at ${RP2040_XOSC_HZ} Hz, not ${plan.clockHz} Hz`,
+        "clockHz",
+      );
+    return { kind: "xosc" };
   }
-  throw new EngineError(
-    "clock-out-of-range",
-    `rp2040: ${clockHz} Hz is not reachable from the 12 MHz crystal with PLL_SYS`,
-  );
+  const s = rp2040PllSetting(plan.clockHz);
+  if (!s)
+    throw new EngineError(
+      "clock-out-of-range",
+      `rp2040: PLL_SYS cannot make ${plan.clockHz} Hz from the 12 MHz crystal`,
+      "clockHz",
+    );
+  return { kind: "pll", ...s };
 }
+
+/** How a technician puts the image on the chip (RP2040 datasheet, bootrom USB drive; openocd's rp2040 target). */
+export const RP2040_FLASHING: string[] = [
+  "USB: hold BOOTSEL (QSPI_SS to GND) while plugging in or pressing RUN; the RPI-RP2 drive appears; copy firmware/firmware.uf2 onto it; the chip restarts into the new image.",
+  'SWD: connect SWCLK, SWD (SWDIO) and GND to a CMSIS-DAP probe; with the Debian package openocd: openocd -f interface/cmsis-dap.cfg -f target/rp2040.cfg -c "adapter speed 5000" -c "program firmware/firmware.elf verify reset exit"',
+];
 
 export function rp2040View(plan: BundlePlan): DeviceView {
   const m = /^GPIO(\d{1,2})$/i.exec(plan.pin.port) ?? unsupported(plan, `pin ${plan.pin.port}`);
@@ -83,6 +97,18 @@ export function rp2040View(plan: BundlePlan): DeviceView {
   return {
     writes,
     pin: pinFacts(plan),
-    extra: { gpio, slice, channel, isr, phCorrect, divInt, divFrac, clock: rpClock(plan.clockHz) },
+    extra: {
+      gpio,
+      slice,
+      channel,
+      isr,
+      phCorrect,
+      divInt,
+      divFrac,
+      clock: rpClock(plan),
+      xoscStartup: rp2040XoscStartupDelay(RP2040_XOSC_HZ),
+      xoscStartupMs: Math.round((rp2040XoscStartupDelay(RP2040_XOSC_HZ) * 256 * 1000) / RP2040_XOSC_HZ),
+    },
+    flashing: RP2040_FLASHING,
   };
 }

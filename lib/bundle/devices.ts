@@ -38,6 +38,8 @@ export const DEVICES: Record<string, DeviceEntry> = {
       "src/startup.c": "startup.c.hbs",
       "src/device.ld": "device.ld.hbs",
       "src/rp2040_regs.h": "rp2040_regs.h.hbs",
+      "src/boot2.S": "boot2.S.hbs",
+      "src/rp2040_image.py": "rp2040_image.py.hbs",
     },
   },
   pic12f1840: { name: "PIC12F1840", view: pic12f1840View, files: AVR_FILES },

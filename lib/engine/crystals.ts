@@ -47,7 +47,8 @@ export function suggestCrystals(request: Omit<PlanRequest, "clockHz">): CrystalS
         softwareDivider: p.softwareDivider,
       });
     } catch (e) {
-      // An invalid request is invalid at every frequency: report it once.
+      // An invalid request is invalid at every frequency: report it once. A
+      // crystal the clock source cannot run at is left out like an unreachable one.
       if (!isEngineError(e) || (e.code !== "unreachable-period" && e.code !== "clock-out-of-range")) throw e;
     }
   }

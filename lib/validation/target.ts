@@ -56,7 +56,13 @@ export const targetSchema = z
     } else {
       const lo = clock.hz ?? clock.minHz ?? device.minClockHz;
       const hi = clock.hz ?? clock.maxHz ?? device.maxClockHz;
-      if (t.clockHz < lo * (1 - 1e-9) || t.clockHz > hi * (1 + 1e-9)) {
+      if (clock.frequenciesHz && !clock.frequenciesHz.includes(t.clockHz)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["clockHz"],
+          message: `${clock.label} cannot run at ${t.clockHz} Hz; pick one of the frequencies it makes.`,
+        });
+      } else if (t.clockHz < lo * (1 - 1e-9) || t.clockHz > hi * (1 + 1e-9)) {
         ctx.addIssue({
           code: "custom",
           path: ["clockHz"],

@@ -99,12 +99,23 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `${device.name}: ${clock.label} cannot run on the ${packageName} package; it needs ${clock.packages.join(" or ")}.`,
       "clockSource",
     );
-  if (clock.frequenciesHz && !clock.frequenciesHz.some((hz) => Math.abs(hz - clockHz) <= hz * 1e-9))
+  // A source with discrete frequencies (a PLL from a fixed crystal, IRCF steps)
+  // runs only at those: refuse any other before a plan or a bundle is made.
+  if (clock.frequenciesHz && !clock.frequenciesHz.some((hz) => Math.abs(hz - clockHz) <= hz * 1e-9)) {
+    const others = device.clocks.filter(
+      (c) => c.id !== clock.id && (c.frequenciesHz ? c.frequenciesHz.includes(clockHz) : c.hz === clockHz),
+    );
+    const near = [...clock.frequenciesHz]
+      .sort((a, b) => Math.abs(a - clockHz) - Math.abs(b - clockHz) || a - b)
+      .slice(0, 2)
+      .sort((a, b) => a - b);
     throw new EngineError(
       "clock-out-of-range",
-      `${device.name}: ${clock.label} cannot make ${clockHz} Hz.`,
+      `clockHz ${clockHz} Hz: ${device.name} ${clock.label} cannot make ${clockHz} Hz; nearest it makes: ${near.join(" Hz, ")} Hz` +
+        (others.length ? `; ${clockHz} Hz is clock source ${others.map((c) => c.id).join(", ")}.` : "."),
       "clockHz",
     );
+  }
   // Opt-in per device until every device's options state ranges that the solver tests respect.
   if (
     device.strictClockRange === true &&

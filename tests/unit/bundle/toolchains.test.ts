@@ -12,6 +12,8 @@ import { buildArm, hostSyntaxCheck, syntaxCheckFolder } from "@/tests/tools/c-ch
 import { writeFolder } from "@/tests/tools/files";
 import { buildMsp430 } from "@/tests/tools/msp430-build";
 import { buildStm32 } from "@/tests/tools/stm32g031-emu";
+import { buildRp2040 } from "@/tests/unit/firmware/rp2040-build";
+import { elfFlashContent } from "@/tests/unit/firmware/rp2040-image-readers";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
 const files = buildBundleSources(spec());
@@ -43,14 +45,22 @@ describe("generated C builds with the device toolchains", () => {
   );
 
   // arm-none-eabi-gcc (Debian gcc-arm-none-eabi), freestanding -nostdlib link with the bundle's own start-up and linker script
-  it.each([...folderOf("stm32g031"), ...folderOf("rp2040")])(
-    "%s builds and links with arm-none-eabi-gcc",
-    (folder) => {
-      const { size } = buildArm(files, folder);
-      const text = Number(/\n\s*(\d+)/.exec(size)?.[1]);
-      expect(text).toBeGreaterThan(64); // more than the vector table: main and the init code were linked
-    },
-  );
+  it.each([...folderOf("stm32g031")])("%s builds and links with arm-none-eabi-gcc", (folder) => {
+    const { size } = buildArm(files, folder);
+    const text = Number(/\n\s*(\d+)/.exec(size)?.[1]);
+    expect(text).toBeGreaterThan(64); // more than the vector table: main and the init code were linked
+  });
+
+  // RP2040: the bundle's own Makefile (firmware.md build contract) with arm-none-eabi-gcc and python3;
+  // the image must carry stage 2 (256 bytes), the vector table (192) and main's code beyond them.
+  it.each([...folderOf("rp2040")])("%s builds with make into build/firmware.elf, .hex and .uf2", (folder) => {
+    const imgs = buildRp2040(files, folder);
+    const flash = elfFlashContent(imgs.elf);
+    expect(flash.base).toBe(0x10000000);
+    expect(flash.bytes.length).toBeGreaterThan(256 + 192 + 64);
+    expect(imgs.hex.startsWith(":")).toBe(true);
+    expect(imgs.uf2.length % 512).toBe(0);
+  });
 
   // clang --target=msp430 -Werror with msp430mcu's msp430g2553.h (register names as in SLAU144/SLAS735), ld.lld, llvm-objcopy
   it.each(folderOf("msp430g2553"))(

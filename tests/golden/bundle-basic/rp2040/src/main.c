@@ -3,7 +3,8 @@
  * Revision r2, engine 1.0.0; target 4 (rp2040)
  * PWM0, mode pwm, clock 125.0000 MHz, output GPIO0 (PWM0_A, pin 2)
  * Period 20.00000 ms (+0.000 ppm), high 1.499840 ms (-106.667 ppm)
- * Register values: RP2040 datasheet, PWM and clocks chapters.
+ * Register values: RP2040 datasheet, PWM, clocks, XOSC, PLL, RESETS and IO_BANK0 sections.
+ * Boot: src/boot2.S (our stage 2) sets up XIP and VTOR, then Reset_Handler in src/startup.c runs main.
  */
 #include <stdint.h>
 #include "rp2040_regs.h"
@@ -11,30 +12,35 @@
 
 static void clock_init(void)
 {
-  /* XOSC 12 MHz: FREQ_RANGE = 1_15MHZ (0xAA0), STARTUP delay = 12 MHz / 1000 / 256 + 1 cycles x256 */
+  /* XOSC, 12 MHz crystal: FREQ_RANGE = 1_15MHZ (0xAA0); STARTUP DELAY in
+   * units of 256 crystal periods: 1 ms = 12 MHz / 1000 / 256 rounded up = 47
+   * (RP2040 datasheet, XOSC start-up delay), times 64 as margin for slow
+   * crystals = 3008 (about 64 ms). */
   XOSC_CTRL = 0xAA0u;
-  XOSC_STARTUP = 47u;
+  XOSC_STARTUP = 3008u;
   XOSC_CTRL = 0xAA0u | (0xFABu << 12); /* ENABLE */
   while ((XOSC_STATUS & (1u << 31)) == 0u) {
   } /* STABLE */
-  CLK_REF_CTRL = 2u; /* clk_ref = xosc */
+  CLK_REF_CTRL = 2u; /* clk_ref = xosc_clksrc */
   while ((CLK_REF_SELECTED & (1u << 2)) == 0u) {
   }
-  CLK_SYS_CTRL = 0u; /* clk_sys = clk_ref while the PLL starts */
+  CLK_SYS_CTRL = 0u; /* clk_sys = clk_ref (the crystal) */
   while ((CLK_SYS_SELECTED & 1u) == 0u) {
   }
-  /* PLL_SYS: 12 MHz / REFDIV 1 * FBDIV 125 = VCO 1.500000 GHz; / POSTDIV1 6 / POSTDIV2 2 = 125.0000 MHz */
+  /* PLL_SYS (RP2040 datasheet, PLL): f = 12 MHz / REFDIV 1 * FBDIV 125 = VCO 1.500000 GHz
+   * (750..1600 MHz), / POSTDIV1 6 / POSTDIV2 2 = 125.0000 MHz. */
   RESETS_RESET_CLR = RESETS_PLL_SYS;
   while ((RESETS_RESET_DONE & RESETS_PLL_SYS) == 0u) {
   }
   PLL_SYS_CS = 1u; /* REFDIV */
   PLL_SYS_FBDIV_INT = 125u;
-  PLL_SYS_PWR &= ~((1u << 0) | (1u << 5)); /* PD, VCOPD off */
+  PLL_SYS_PWR &= ~((1u << 0) | (1u << 5)); /* PD and VCOPD off: VCO runs */
   while ((PLL_SYS_CS & (1u << 31)) == 0u) {
   } /* LOCK */
   PLL_SYS_PRIM = (6u << 16) | (2u << 12);
   PLL_SYS_PWR &= ~(1u << 3); /* POSTDIVPD off */
-  CLK_SYS_CTRL = (0u << 5) | 1u; /* AUXSRC = clksrc_pll_sys, SRC = aux */
+  CLK_SYS_CTRL = (0u << 5); /* AUXSRC = clksrc_pll_sys, changed while SRC is still clk_ref */
+  CLK_SYS_CTRL = (0u << 5) | 1u; /* SRC = clksrc_clk_sys_aux (glitchless switch) */
   while ((CLK_SYS_SELECTED & 2u) == 0u) {
   }
 }

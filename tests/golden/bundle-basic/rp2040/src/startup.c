@@ -1,7 +1,8 @@
-/* Minimal Cortex-M0+ start-up for the RP2040: vector table (RP2040
- * datasheet, interrupt list: PWM_IRQ_WRAP = IRQ 4), .data copy, .bss clear.
- * The flash image needs the board's 256-byte second-stage boot loader in
- * .boot2 (see the Makefile); loaded into SRAM over SWD it runs as is. */
+/* Minimal Cortex-M0+ start-up for the RP2040: vector table at 0x10000100
+ * (RP2040 datasheet, interrupt list: PWM_IRQ_WRAP = IRQ 4), .data copy,
+ * .bss clear. Boot stage 2 (src/boot2.S, first 256 bytes of flash) sets
+ * VTOR to this table, loads SP from its first word and jumps to
+ * Reset_Handler; the code runs in place from flash at 0x10000000. */
 #include <stdint.h>
 
 extern uint32_t _sidata, _sdata, _edata, _sbss, _ebss, _estack;
