@@ -90,6 +90,13 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `${device.name} has no clock option "${clockId}". Options: ${device.clocks.map((c) => c.id).join(", ")}.`,
       "clockSource",
     );
+  // A source with discrete steps (PIC12F1840 IRCF) makes nothing in between.
+  if (clock.frequenciesHz && !clock.frequenciesHz.includes(clockHz))
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name} clock option "${clock.id}" makes only ${clock.frequenciesHz.join(", ")} Hz; ${clockHz} Hz is not one of them.`,
+      "clockHz",
+    );
   let clockAccuracyPpm = clock.accuracyPpm;
   if (request.clockAccuracyPpm !== undefined) {
     const a = request.clockAccuracyPpm;
