@@ -8,6 +8,7 @@ import { buildBundleFiles } from "@/lib/bundle";
 import { buildAvr } from "@/tests/tools/avr";
 import { buildArm, hostSyntaxCheck, syntaxCheckFolder } from "@/tests/tools/c-check";
 import { writeFolder } from "@/tests/tools/files";
+import { buildPic } from "@/tests/tools/gpsim";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
 const files = buildBundleFiles(spec());
@@ -30,6 +31,12 @@ describe("generated C builds with the device toolchains", () => {
       expect(text).toBeGreaterThan(64); // more than the vector table: main and the init code were linked
     },
   );
+
+  // gpasm (Debian gputils) with the bundle's own Makefile: the PIC image is assembled from src/main.asm
+  it.each(folderOf("pic12f1840"))("%s assembles into build/firmware.hex with gpasm", (folder) => {
+    const dir = buildPic(files, folder);
+    expect(readFileSync(path.join(dir, "build/firmware.hex"), "utf8")).toMatch(/^:[0-9A-F]+\r?\n/);
+  });
 
   // host gcc -fsyntax-only -std=c11 against stubs naming the datasheet's registers (PIC12F1840 DS40001441, SLAU144/SLAS735)
   it.each([...folderOf("pic12f1840"), ...folderOf("msp430g2553")])(
