@@ -27,6 +27,8 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
       {fields.map((field, i) => {
         const deviceId = watch(`targets.${i}.device`);
         const device = deviceById(deviceId);
+        // A source with discrete steps (PIC12F1840 internal oscillator) lists them; the engine refuses others.
+        const steps = device?.clocks.find((c) => c.id === watch(`targets.${i}.clockSource`))?.frequenciesHz;
         const err = rowsErrors[i] ?? {};
         const input = (name: string) => ({
           id: `target-${i}-${name}`,
@@ -110,7 +112,18 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                   autoComplete="off"
                   {...input("clockHz")}
                   {...register(`targets.${i}.clockHz`)}
+                  list={steps ? `target-${i}-clockHz-steps` : undefined}
                 />
+                {steps && (
+                  <>
+                    <datalist id={`target-${i}-clockHz-steps`}>
+                      {steps.map((hz) => (
+                        <option key={hz} value={String(hz)} />
+                      ))}
+                    </datalist>
+                    <p className="text-xs text-ink-soft">This source makes only: {steps.join(", ")} Hz.</p>
+                  </>
+                )}
                 {msg("clockHz")}
               </div>
               <div>

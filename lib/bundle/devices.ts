@@ -42,7 +42,11 @@ export const DEVICES: Record<string, DeviceEntry> = {
       "src/rp2040_image.py": "rp2040_image.py.hbs",
     },
   },
-  pic12f1840: { name: "PIC12F1840", view: pic12f1840View, files: AVR_FILES },
+  pic12f1840: {
+    name: "PIC12F1840",
+    view: pic12f1840View,
+    files: { ...AVR_FILES, "src/main.asm": "main.asm.hbs" },
+  },
   msp430g2553: {
     name: "MSP430G2553",
     view: msp430g2553View,

@@ -11,6 +11,12 @@
 
 /* OSCCON: SPLLEN IRCF<3:0> - SCS<1:0> (Oscillator Module chapter) */
 extern volatile uint8_t OSCCON;
+/* OSCSTAT: T1OSCR PLLR OSTS HFIOFR HFIOFL MFIOFR LFIOFR HFIOFS (Register 5-2) */
+extern volatile uint8_t OSCSTAT;
+typedef union {
+  struct { unsigned HFIOFS : 1, LFIOFR : 1, MFIOFR : 1, HFIOFL : 1, HFIOFR : 1, OSTS : 1, PLLR : 1, T1OSCR : 1; };
+} OSCSTATbits_t;
+extern volatile OSCSTATbits_t OSCSTATbits;
 /* PORTA / LATA / TRISA / ANSELA (I/O Ports chapter) */
 extern volatile uint8_t PORTA, LATA, TRISA, ANSELA;
 typedef union {

@@ -14,6 +14,7 @@ import { buildMsp430 } from "@/tests/tools/msp430-build";
 import { buildStm32 } from "@/tests/tools/stm32g031-emu";
 import { buildRp2040 } from "@/tests/unit/firmware/rp2040-build";
 import { elfFlashContent } from "@/tests/unit/firmware/rp2040-image-readers";
+import { buildPic } from "@/tests/tools/gpsim";
 import { FOLDERS, TARGETS, spec } from "./fixtures";
 
 const files = buildBundleSources(spec());
@@ -82,6 +83,12 @@ describe("generated C builds with the device toolchains", () => {
     });
     expect(b.make.status).not.toBe(0);
     expect(b.make.stderr).toContain("TA0CCR3");
+  });
+
+  // gpasm (Debian gputils) with the bundle's own Makefile: the PIC image is assembled from src/main.asm
+  it.each(folderOf("pic12f1840"))("%s assembles into build/firmware.hex with gpasm", (folder) => {
+    const dir = buildPic(files, folder);
+    expect(readFileSync(path.join(dir, "build/firmware.hex"), "utf8")).toMatch(/^:[0-9A-F]+\r?\n/);
   });
 
   // host gcc -fsyntax-only -std=c11 against stubs naming the datasheet's registers (PIC12F1840 DS40001441)

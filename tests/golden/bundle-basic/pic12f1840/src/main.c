@@ -1,32 +1,45 @@
-/* PIC12F1840 replacement timing stage
+/* PIC12F1840 replacement timing stage, for MPLAB XC8 users
  * Retrofit: Kiln 3 firing stage | site: North plant | asset: K3-TS1
  * Revision r2, engine 1.0.0; target 5 (pic12f1840)
  * TIMER2, mode pwm, clock 16.00000 MHz, output RA2 (CCP1, pin 5)
  * Period 1.000000 ms (+0.000 ppm), high 250.0000 us (+0.000 ppm)
- * Register values: PIC12(L)F1840 datasheet, Timer2 and CCP chapters. Compiler: MPLAB XC8.
+ * Register values: PIC12(L)F1840 datasheet (DS40001441), Timer2 and CCP chapters.
+ * The flashed image is built from src/main.asm, which makes the same steps in
+ * the same order; this file is for builds with the vendor's C compiler.
  */
 #include <xc.h>
 #include <stdint.h>
 #include "timing.h"
 
-#pragma config FOSC = HS, WDTE = OFF, PWRTE = ON, MCLRE = ON, PLLEN = OFF
+/* HS: 16 MHz crystal on OSC1/OSC2 (datasheet Register 4-1 CONFIG1, 4-2 CONFIG2) */
+#pragma config FOSC = HS, WDTE = OFF, PWRTE = ON, MCLRE = ON, CP = OFF, CPD = OFF, BOREN = ON, CLKOUTEN = OFF, IESO = OFF, FCMEN = OFF
+#pragma config WRT = OFF, PLLEN = OFF, STVREN = ON, BORV = HI, LVP = OFF
 
 int main(void)
 {
-  ANSELA = 0x00; /* digital I/O */
-  LATAbits.LATA2 = 0;
-  TRISAbits.TRISA2 = 0; /* RA2 output (CCP1) */
-
-  /* PR2 = periodCounts - 1; period = (PR2+1)*4*Tosc*prescale -> 0xF9 */
-  PR2 = 249;
+  /* all of PORTA digital -> 0x00 */
+  ANSELA = 0x00;
+  /* output latch low before the driver is on -> 0x00 */
+  LATA = 0x00;
+  /* PWM setup 1: RA2 driver off (TRISA2 = 1) -> 0x3F */
+  TRISA = 0x3F;
   /* CCP1SEL = 0: CCP1 on RA2 -> 0x00 */
   APFCON = 0x00;
-  /* CCPR1L:DC1B = 250 (highCounts*4); pulse = 250*Tosc*prescale -> 0x3E */
-  CCPR1L = 62;
-  /* DC1B = 2, CCP1M = 1100 (PWM, active high) -> 0x2C */
+  /* PR2 = periodCounts - 1; period = (PR2+1)*4*Tosc*prescale -> 0xF9 */
+  PR2 = 249;
+  /* PWM setup 3: DC1B = 2, CCP1M = 1100 (PWM, active high) -> 0x2C */
   CCP1CON = 0x2C;
+  /* PWM setup 4: CCPR1L:DC1B = 250 (highCounts*4); pulse = 250*Tosc*prescale -> 0x3E */
+  CCPR1L = 62;
+  /* PWM setup 5: clear TMR2IF before Timer2 starts */
+  PIR1bits.TMR2IF = 0;
   /* TMR2ON = 1, T2CKPS = 2 (prescale 1:16), postscale 1:1 -> 0x06 */
   T2CON = 0x06;
+  /* PWM setup 6: Timer2 has overflowed once */
+  while (!PIR1bits.TMR2IF) {
+  }
+  /* PWM setup 6: RA2 driver on (TRISA2 = 0) -> 0x3B */
+  TRISA = 0x3B;
 
   for (;;) {
   }
