@@ -41,6 +41,9 @@ export const users = pgTable("users", {
   // Technicians see approved bundles of this site only; null = every site.
   site: text("site"),
   disabled: boolean("disabled").notNull().default(false),
+  // Raised on sign-out, disabling and re-enabling: every session cookie
+  // carrying an older value stops working at once (lib/auth/guard.ts).
+  sessionVersion: integer("session_version").notNull().default(0),
   createdAt: createdAt(),
 });
 

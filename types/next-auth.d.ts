@@ -13,5 +13,9 @@ declare module "next-auth/jwt" {
   interface JWT {
     uid: number;
     role: Role;
+    /** users.session_version at sign-in. */
+    sv: number;
+    /** Sign-in time (ms since the epoch): sessions end SESSION_ABSOLUTE_S after it, however active. */
+    authAt: number;
   }
 }

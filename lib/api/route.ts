@@ -2,14 +2,18 @@
 // Handlers still read top to bottom: validate -> authenticate -> load ->
 // authorise -> act.
 import { ApiError, toResponse } from "./errors";
+import { checkCookieMutation, type BodyType } from "./same-origin";
 
 type Ctx<P> = { params: Promise<P> };
 
+/** bodyTypes: what a cookie-authenticated mutation may send (JSON unless the route takes uploads). */
 export function apiRoute<P = Record<string, string>>(
   handler: (req: Request, ctx: Ctx<P>) => Promise<Response>,
+  opts: { bodyTypes?: readonly BodyType[] } = {},
 ): (req: Request, ctx: Ctx<P>) => Promise<Response> {
   return async (req, ctx) => {
     try {
+      checkCookieMutation(req, opts.bodyTypes);
       return await handler(req, ctx);
     } catch (err) {
       return toResponse(err);

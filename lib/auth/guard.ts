@@ -2,11 +2,14 @@
 // it for the user and the roles allowed; nothing relies on hidden buttons.
 import { and, eq, isNull } from "drizzle-orm";
 import { getServerSession } from "next-auth";
+import { getToken } from "next-auth/jwt";
+import { cookies, headers } from "next/headers";
 import { db } from "@/db/client";
 import { apiTokens, users, type Role } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { authOptions } from "./options";
 import { hashToken, TOKEN_PREFIX } from "./tokens";
+import { sessionStillValid } from "./sessions";
 
 export type AuthUser = {
   id: number;
@@ -17,18 +20,23 @@ export type AuthUser = {
   via: "session" | "token";
 };
 
-async function loadUser(id: number, via: AuthUser["via"]): Promise<AuthUser | null> {
-  const [u] = await db.select().from(users).where(eq(users.id, id));
-  if (!u || u.disabled) return null;
-  return { id: u.id, email: u.email, name: u.name, role: u.role, site: u.site, via };
-}
-
 /** The signed-in user from the session cookie, re-read from the database so a
  *  role change or a disabled account takes effect at once. */
 export async function sessionUser(): Promise<AuthUser | null> {
   const session = await getServerSession(authOptions);
   const id = session?.user?.id;
-  return typeof id === "number" ? loadUser(id, "session") : null;
+  if (typeof id !== "number") return null;
+  // The cookie's own claims: version and sign-in time (lib/auth/sessions.ts).
+  const cookieList = (await cookies()).getAll();
+  const claims = await getToken({
+    req: {
+      headers: Object.fromEntries((await headers()).entries()),
+      cookies: Object.fromEntries(cookieList.map((c) => [c.name, c.value])),
+    } as never,
+  });
+  const [u] = await db.select().from(users).where(eq(users.id, id));
+  if (!u || u.disabled || !claims || !sessionStillValid(u, claims)) return null;
+  return { id: u.id, email: u.email, name: u.name, role: u.role, site: u.site, via: "session" };
 }
 
 // last_used_at is written at most once a minute per token: a busy script

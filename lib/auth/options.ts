@@ -9,6 +9,7 @@ import { users, type Role } from "@/db/schema";
 import { recordAudit } from "@/lib/audit";
 import { verifyPassword } from "./password";
 import { clearFailures, lockedUntil, recordFailure } from "./throttle";
+import { endSessions } from "./sessions";
 
 const credentials = z.object({
   email: z.string().trim().toLowerCase().email(),
@@ -23,6 +24,8 @@ export const SIGN_IN_ERRORS = {
 } as const;
 
 export const SESSION_MAX_AGE_S = 8 * 60 * 60;
+/** A session ends this long after sign-in however often it is used (the cookie is re-issued on use, its end is not). */
+export const SESSION_ABSOLUTE_S = 8 * 60 * 60;
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_S },
@@ -49,15 +52,31 @@ export const authOptions: NextAuthOptions = {
         if (user.disabled) throw new Error(SIGN_IN_ERRORS.disabled);
         await clearFailures(email);
         await recordAudit({ actorId: user.id, action: "sign-in", subjectType: "user", subjectId: user.id });
-        return { id: String(user.id), email: user.email, name: user.name, role: user.role };
+        return {
+          id: String(user.id),
+          email: user.email,
+          name: user.name,
+          role: user.role,
+          sessionVersion: user.sessionVersion,
+        };
       },
     }),
   ],
+  events: {
+    // Sign-out ends this user's sessions on the server too: a copied cookie
+    // stops working (the version check in guard.ts), not only this browser's.
+    async signOut({ token }) {
+      const uid = (token as { uid?: unknown } | null)?.uid;
+      if (typeof uid === "number") await endSessions(uid);
+    },
+  },
   callbacks: {
     async jwt({ token, user }) {
       if (user) {
         token.uid = Number(user.id);
         token.role = (user as { role: Role }).role;
+        token.sv = (user as unknown as { sessionVersion: number }).sessionVersion;
+        token.authAt = Date.now();
       }
       return token;
     },

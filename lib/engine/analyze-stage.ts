@@ -15,6 +15,7 @@ import { STAGE_MODELS, modelOf } from "./stages";
 import type { ModelResult } from "./stages/model";
 import { cornerSpread, monteCarloSpread, type MonteCarloOptions } from "./tolerance";
 import { fmt } from "./stages/model";
+import { LONGEST_PERIOD_S } from "./solver/validate";
 
 /** The stage kinds for pickers and forms: label, output, and the input fields. */
 export const STAGE_KINDS: readonly {
@@ -203,6 +204,12 @@ export function analyzeStage(stage: Stage, options: MonteCarloOptions = {}): Sta
   const model = modelOf(valid);
   const result = model.evaluate(valid);
   const checks = [...result.checks, ...(model.warnings?.(valid, result) ?? []), ...rangeWarnings(valid)];
+  if (result.oscillates && result.periodS > LONGEST_PERIOD_S)
+    checks.push({
+      level: "error",
+      code: "period-beyond-targets",
+      message: `The period ${fmt(result.periodS, "s")} is longer than any target can make (${fmt(LONGEST_PERIOD_S, "s")} at the slowest clock of any device). Check the part values.`,
+    });
   const analysis: StageAnalysis = {
     ...timingOf(valid.kind, result),
     outputSignal: model.outputSignal,

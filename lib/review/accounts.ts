@@ -2,10 +2,10 @@
 // audit event in the same transaction. An admin cannot change their own role
 // or disable themselves, so the last admin cannot lock everyone out.
 import "server-only";
-import { eq } from "drizzle-orm";
+import { and, eq, isNull } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
-import { users } from "@/db/schema";
+import { apiTokens, users } from "@/db/schema";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
@@ -54,6 +54,15 @@ export async function changeUser(admin: AuthUser, userId: number, raw: unknown) 
       events.push({ action: input.disabled ? "user.disable" : "user.enable", details: {} });
     }
     if (events.length === 0) return publicUser(before);
+    // Disabling or re-enabling ends every session and token the user had, so
+    // re-enabling revives none of them (issue 15 point 4).
+    if (set.disabled !== undefined) {
+      set.sessionVersion = before.sessionVersion + 1;
+      await tx
+        .update(apiTokens)
+        .set({ revokedAt: new Date() })
+        .where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)));
+    }
     const [after] = await tx.update(users).set(set).where(eq(users.id, userId)).returning();
     for (const e of events) {
       await recordAudit(

@@ -1,5 +1,5 @@
 // Runs the benchmark parts in turn, prints the table and writes
-// bench-results.json. Parts: solver, engine, bundle, capture, pages, api.
+// bench-results.json. Parts: solver, adversarial, engine, bundle, capture, pages, api.
 //   npx tsx scripts/bench/main.ts [--only=solver,engine]
 // The api and pages parts need the production server and build that
 // scripts/bench.sh starts (BENCH_BASE_URL, NEXT_DIST_DIR).
@@ -12,6 +12,7 @@ type Part = (log: (s: string) => void) => Promise<PartResult>;
 
 const PARTS: Record<string, () => Promise<Part>> = {
   solver: async () => (await import("./solver")).solverPart,
+  adversarial: async () => (await import("./adversarial")).adversarialPart,
   engine: async () => (await import("./engine")).enginePart,
   bundle: async () => (await import("./bundle")).bundlePart,
   images: async () => (await import("./images")).imagesPart,

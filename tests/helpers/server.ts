@@ -23,6 +23,9 @@ export class Session {
   async fetch(path: string, init: RequestInit = {}): Promise<Response> {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set("cookie", this.cookieHeader());
+    // As a browser does on every non-GET request from our own pages.
+    if (!headers.has("origin") && (init.method ?? "GET").toUpperCase() !== "GET")
+      headers.set("origin", this.base);
     const res = await fetch(this.base + path, { ...init, headers, redirect: "manual" });
     this.remember(res);
     return res;

@@ -22,6 +22,35 @@ export interface CheckedRequest {
 
 const MODES: readonly TimerMode[] = ["pwm", "toggle", "isr"];
 
+/** Clock cycles the solver counts exactly (totals x 16 divider quanta stay below 2^50). */
+export const MAX_PLAN_CYCLES = 2 ** 46;
+// The firmware's interrupt counter is 32 bits (isr.ts MAX_SOFTWARE_DIVIDER).
+const MAX_SOFTWARE_DIVIDER = 2 ** 32 - 1;
+
+/** Most clock cycles one period can span on this device: largest divider x largest count x software divider, within the exact-count limit. */
+export function longestPeriodCycles(device: DeviceSpec): number {
+  let most = 0;
+  for (const t of device.timers) {
+    const isr = t.counts.isr;
+    if (isr) most = Math.max(most, t.isrDividers[t.isrDividers.length - 1] * isr.max * MAX_SOFTWARE_DIVIDER);
+    for (const mode of ["pwm", "toggle"] as const) {
+      const range = t.counts[mode];
+      const factors = t.modeFactors[mode];
+      if (range && factors)
+        most = Math.max(most, t.dividers[t.dividers.length - 1] * Math.max(...factors) * range.max);
+    }
+  }
+  return Math.min(most, MAX_PLAN_CYCLES);
+}
+
+/** Longest period any plan on this device can make, at its slowest clock (seconds). */
+export function longestPeriodS(device: DeviceSpec): number {
+  return longestPeriodCycles(device) / device.minClockHz;
+}
+
+/** Longest period any plan on any device can make (seconds): a stage slower than this has no target. */
+export const LONGEST_PERIOD_S = Math.max(...DEVICES.map(longestPeriodS));
+
 function positive(value: unknown, field: string): number {
   if (typeof value !== "number" || !Number.isFinite(value) || value <= 0)
     throw new EngineError(
@@ -71,6 +100,14 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       "clock-out-of-range",
       `${device.name} runs from ${device.minClockHz} Hz to ${device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
       "clockHz",
+    );
+  // Bounds the solver's work too: every search below counts at most this many cycles.
+  const most = longestPeriodCycles(device);
+  if (periodS * clockHz > most)
+    throw new EngineError(
+      "unreachable-period",
+      `Period ${periodS} s is ${Number((periodS * clockHz).toPrecision(4))} clock cycles at ${clockHz} Hz; ${device.name} plans can span at most ${Number(most.toPrecision(4))} (${Number((most / clockHz).toPrecision(4))} s at this clock). Use a slower clock.`,
+      "periodS",
     );
   let timers = device.timers;
   const timerGiven = request.timer !== undefined && request.timer !== null && request.timer !== "";

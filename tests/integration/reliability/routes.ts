@@ -57,6 +57,28 @@ const planBody = () => ({
 const fresh = async (w: World) => makeRetrofit(w, w.author.id);
 
 export const ROUTES: RouteEntry[] = [
+  // Unknown API paths answer our JSON 404 for everyone (issue 15 point 8).
+  {
+    method: "GET",
+    pattern: "/api/v1/[...rest]",
+    allowed: "public",
+    ok: [404],
+    build: async () => ({ path: "/api/v1/no-such-thing/7" }),
+  },
+  {
+    method: "POST",
+    pattern: "/api/v1/[...rest]",
+    allowed: "public",
+    ok: [404],
+    build: async () => ({ path: "/api/v1/retrofits/1/no-such-thing", json: {} }),
+  },
+  ...(["PUT", "PATCH", "DELETE"] as const).map((method): RouteEntry => ({
+    method,
+    pattern: "/api/v1/[...rest]",
+    allowed: "public",
+    ok: [404],
+    build: async () => ({ path: "/api/v1/users/1/no-such-thing" }),
+  })),
   { method: "GET", pattern: "/api/health", allowed: "public", build: async () => ({ path: "/api/health" }) },
   {
     method: "GET",

@@ -16,39 +16,42 @@ function retrofitParam(req: Request): number | null {
   return raw ? parseId(raw, "Retrofit") : null;
 }
 
-export const POST = apiRoute(async (req) => {
-  const retrofitId = retrofitParam(req);
-  const user = await requireUser({ roles: CAPTURE, req });
-  if (retrofitId !== null) {
-    const retrofit = await getRetrofit({ id: retrofitId });
-    const visible =
-      retrofit && (user.role !== "technician" || (await technicianSeesRetrofit({ user, retrofitId })));
-    if (!visible) throw new ApiError("not_found", "Retrofit was not found.");
-  }
-  const upload = await readCaptureUpload(req, env().CAPTURE_MAX_BYTES);
-  const id = await insertCapture({
-    retrofitId,
-    uploadedBy: user.id,
-    fileName: upload.fileName,
-    content: upload.content,
-    sha256: upload.sha256,
-    measurement: upload.measurement,
-  });
-  await recordAudit({
-    actorId: user.id,
-    action: "capture.upload",
-    subjectType: "capture",
-    subjectId: id,
-    details: {
-      fileName: upload.fileName,
-      byteSize: upload.content.length,
-      sha256: upload.sha256,
+export const POST = apiRoute(
+  async (req) => {
+    const retrofitId = retrofitParam(req);
+    const user = await requireUser({ roles: CAPTURE, req });
+    if (retrofitId !== null) {
+      const retrofit = await getRetrofit({ id: retrofitId });
+      const visible =
+        retrofit && (user.role !== "technician" || (await technicianSeesRetrofit({ user, retrofitId })));
+      if (!visible) throw new ApiError("not_found", "Retrofit was not found.");
+    }
+    const upload = await readCaptureUpload(req, env().CAPTURE_MAX_BYTES);
+    const id = await insertCapture({
       retrofitId,
-    },
-  });
-  const row = await getCaptureRow({ id });
-  return Response.json({ capture: captureView(row!) }, { status: 201 });
-});
+      uploadedBy: user.id,
+      fileName: upload.fileName,
+      content: upload.content,
+      sha256: upload.sha256,
+      measurement: upload.measurement,
+    });
+    await recordAudit({
+      actorId: user.id,
+      action: "capture.upload",
+      subjectType: "capture",
+      subjectId: id,
+      details: {
+        fileName: upload.fileName,
+        byteSize: upload.content.length,
+        sha256: upload.sha256,
+        retrofitId,
+      },
+    });
+    const row = await getCaptureRow({ id });
+    return Response.json({ capture: captureView(row!) }, { status: 201 });
+  },
+  { bodyTypes: ["multipart/form-data"] },
+);
 
 export const GET = apiRoute(async (req) => {
   const retrofitId = retrofitParam(req);
