@@ -2,6 +2,7 @@
 import { EngineError } from "../errors";
 import { DEVICES, findDevice, type DeviceSpec, type TimerSpec } from "../devices";
 import type { ClockOption, PlanRequest, TimerMode } from "../plan-types";
+import { checkStart, type CheckedStart } from "./start";
 
 export interface CheckedRequest {
   device: DeviceSpec;
@@ -16,6 +17,8 @@ export interface CheckedRequest {
   activeLow: boolean;
   /** The old stage's active pulse as requested (equals highS unless activeLow). */
   activeS: number;
+  /** start, delayS, edge, retrigger (engine.md section 6); "free" for free-running plans. */
+  trigger: CheckedStart;
 }
 
 const MODES: readonly TimerMode[] = ["pwm", "toggle", "isr"];
@@ -118,5 +121,6 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
     clockAccuracyPpm,
     activeLow,
     activeS: highS,
+    trigger: checkStart(request, periodS, highS),
   };
 }
