@@ -27,5 +27,8 @@ export {
   type BudgetInput,
   type BudgetTerm,
   type ClockVerdict,
+  type GateDrive,
+  type GateVerdict,
+  gateVerdict,
 } from "./budget";
 export { COMMON_CRYSTALS_HZ, suggestCrystals, type CrystalSuggestion } from "./crystals";
