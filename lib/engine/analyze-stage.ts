@@ -16,6 +16,21 @@ import type { ModelResult } from "./stages/model";
 import { cornerSpread, monteCarloSpread, type MonteCarloOptions } from "./tolerance";
 import { fmt } from "./stages/model";
 import { LONGEST_PERIOD_S } from "./solver/validate";
+import { checkSync, evaluateSynced, syncOf, syncWarnings, type SyncableStage } from "./stages/synced";
+import type { MainsSync } from "./stage-types";
+
+type SyncedStage = SyncableStage & { sync: MainsSync };
+
+/** The stage's timing per parameter set: synchronised stages fire once per half cycle. */
+function evaluateAny(stage: Stage): ModelResult {
+  return syncOf(stage) ? evaluateSynced(stage as SyncedStage).result : modelOf(stage).evaluate(stage);
+}
+
+/** Firing delay as the "period" of a timing function, so the spread helpers can sweep it. */
+function delayTiming(stage: Stage) {
+  const r = evaluateSynced(stage as SyncedStage);
+  return { periodS: r.sync ? r.sync.firingDelayS : NaN, highS: r.result.highS };
+}
 
 /** The stage kinds for pickers and forms: label, output, and the input fields. */
 export const STAGE_KINDS: readonly {
@@ -135,6 +150,7 @@ export function validateStage(input: unknown): Stage {
     checkValue(f, value);
   }
   checkTolerances(model.fields, stage.tolerances, stage);
+  checkSync(stage);
   const typed = input as Stage;
   modelOf(typed).crossCheck?.(typed);
   return typed;
@@ -157,16 +173,23 @@ export interface SpreadOptions extends MonteCarloOptions {
 export function spreadOf(stage: Stage, options: SpreadOptions = {}): StageSpread & { checks: StageCheck[] } {
   const tolerances = options.tolerances ?? stage.tolerances ?? {};
   const full = withDefaults(validateStage({ ...stage, tolerances }));
-  const model = modelOf(full);
-  const fn = (p: Stage) => model.evaluate(p);
+  const fn = (p: Stage) => evaluateAny(p);
   const corners = cornerSpread(full, tolerances, fn);
   const mc = monteCarloSpread(full, tolerances, fn, options);
+  let firingDelayS: StageSpread["firingDelayS"];
+  if (syncOf(full)) {
+    const dc = cornerSpread(full, tolerances, delayTiming);
+    const dm = monteCarloSpread(full, tolerances, delayTiming, options);
+    firingDelayS = { corners: dc.periodS, monteCarlo: dm.periodS, failed: dc.failed + dm.failed };
+  }
   const checks: StageCheck[] = [];
   if (corners.failed > 0) {
     checks.push({
       level: "warning",
       code: "stops-within-tolerance",
-      message: `${corners.failed} of ${corners.count} tolerance corners and ${mc.failed} of ${mc.samples} random samples do not oscillate: a stage built at the edges of these tolerances may not run. The spread shown covers only the running cases.`,
+      message: syncOf(full)
+        ? `${corners.failed} of ${corners.count} tolerance corners and ${mc.failed} of ${mc.samples} random samples do not fire within the half cycle: a stage built at the edges of these tolerances may leave the load off. The spread shown covers only the firing cases.`
+        : `${corners.failed} of ${corners.count} tolerance corners and ${mc.failed} of ${mc.samples} random samples do not oscillate: a stage built at the edges of these tolerances may not run. The spread shown covers only the running cases.`,
     });
   }
   return {
@@ -179,6 +202,7 @@ export function spreadOf(stage: Stage, options: SpreadOptions = {}): StageSpread
       highS: mc.highS,
       histogram: mc.histogram,
     },
+    ...(firingDelayS ? { firingDelayS } : {}),
     checks,
   };
 }
@@ -202,7 +226,8 @@ function timingOf(kind: StageKind, r: ModelResult) {
 export function analyzeStage(stage: Stage, options: MonteCarloOptions = {}): StageAnalysis {
   const valid = validateStage(stage);
   const model = modelOf(valid);
-  const result = model.evaluate(valid);
+  const synced = syncOf(valid) ? evaluateSynced(valid as SyncedStage) : null;
+  const result = synced ? synced.result : model.evaluate(valid);
   const checks = [...result.checks, ...(model.warnings?.(valid, result) ?? []), ...rangeWarnings(valid)];
   if (result.oscillates && result.periodS > LONGEST_PERIOD_S)
     checks.push({
@@ -210,12 +235,14 @@ export function analyzeStage(stage: Stage, options: MonteCarloOptions = {}): Sta
       code: "period-beyond-targets",
       message: `The period ${fmt(result.periodS, "s")} is longer than any target can make (${fmt(LONGEST_PERIOD_S, "s")} at the slowest clock of any device). Check the part values.`,
     });
+  if (synced?.sync) checks.push(...syncWarnings(valid as SyncedStage, synced.sync));
   const analysis: StageAnalysis = {
     ...timingOf(valid.kind, result),
     outputSignal: model.outputSignal,
     outputLabel: model.outputLabel,
     oscillates: result.oscillates,
     checks,
+    ...(synced?.sync ? { sync: synced.sync } : {}),
   };
   const tolerances = valid.tolerances;
   if (result.oscillates && tolerances && Object.keys(tolerances).length > 0) {

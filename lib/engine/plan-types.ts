@@ -6,6 +6,12 @@ export type DeviceId = "atmega328p" | "attiny85" | "stm32g031" | "rp2040" | "pic
 
 export type TimerMode = "pwm" | "toggle" | "isr";
 
+/** How an output period starts (engine.md section 6): free-running, on a trigger edge, on each mains zero crossing. */
+export type PlanStart = "free" | "trigger" | "zero-cross";
+export type InputEdge = "rising" | "falling" | "both";
+/** A trigger while the delay or pulse runs: ignored, or it starts the delay again. */
+export type RetriggerRule = "ignore" | "restart";
+
 export interface PlanRequest {
   device: string;
   clockHz: number;
@@ -27,6 +33,18 @@ export interface PlanRequest {
   activeLow?: boolean;
   /** Package name from DeviceInfo.packages; omitted = the device's default package (the first listed). */
   package?: string;
+  /**
+   * Default "free". "trigger" / "zero-cross": the output pulse follows an input
+   * edge by `delayS`; `highS` is the pulse width and `periodS` the shortest time
+   * between input edges (zero-cross: the half cycle).
+   */
+  start?: PlanStart;
+  /** Input edge to the output pulse's leading edge; default 0. Triggered starts only. */
+  delayS?: number;
+  /** Input edge that starts the delay; default "falling" for a trigger, "both" for zero-cross (one edge per crossing). */
+  edge?: InputEdge;
+  /** Triggers only; default "ignore". */
+  retrigger?: RetriggerRule;
 }
 
 /** Output pin of a plan. ISR plans drive the same pin as a plain GPIO (function "GPIO"). */
@@ -163,6 +181,31 @@ export interface TimerPlan {
   clockSource: string;
   clockAccuracyPpm: number;
   notes: string[];
+
+  // --- triggered plans only (start "trigger" | "zero-cross"; engine.md section 6) ---
+  // The timer is started from the input's interrupt and counts from 0: the
+  // pulse is on from delayCounts to delayCounts + highCounts, then the timer
+  // stops. periodS and targetPeriodS are the shortest time between input
+  // edges (set outside, not by the timer; periodErrorPpm 0), periodCounts the
+  // counts of one run (delayCounts + highCounts), softwareDivider 1.
+  start?: PlanStart;
+  /** Achieved delay from timer start to the pulse: delayCounts*divider/clockHz. */
+  delayS?: number;
+  targetDelayS?: number;
+  delayCounts?: number;
+  delayErrorS?: number;
+  /** Worst-case input edge to timer start: interrupt response + handler cycles (see latencyBasis). */
+  latencyS?: number;
+  latencyCycles?: number;
+  latencyBasis?: string;
+  /** The input pin (external interrupt, pin-change or EXTI line). */
+  input?: PinAssignment;
+  edge?: InputEdge;
+  /** How the edge is selected, in the datasheet's register words. */
+  edgeSetting?: string;
+  retrigger?: RetriggerRule;
+  /** What must sit between the outside signal and the input pin. */
+  inputConditioning?: string;
 }
 
 export type ClockKind = "crystal" | "internal" | "pll" | "external";

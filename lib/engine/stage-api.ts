@@ -23,7 +23,19 @@ export type {
   OpampRelaxationStage,
   TransistorAstableStage,
   MeasuredStage,
+  MainsSync,
+  StageSync,
 } from "./stage-types";
+export { SYNC_KINDS, SYNC_FIELDS, isSyncable, suggestTimingR } from "./stages/synced";
+export type { SyncableStage } from "./stages/synced";
+export {
+  angleForPowerFraction,
+  delayForAngle,
+  loadRmsFraction,
+  syncCapacitorV,
+  firingDelay,
+} from "./stages/sync";
+export type { SyncCircuit } from "./stages/sync";
 export {
   analyzeStage,
   validateStage,

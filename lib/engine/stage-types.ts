@@ -9,7 +9,32 @@ interface StageBase {
   tolerances?: Tolerances;
 }
 
+/**
+ * Mains synchronisation of a threshold, UJT or PUT stage (engine.md section 6):
+ * the supply is the full-wave rectified mains clipped at `supplyV` (the zener
+ * clamp), and the capacitor starts from 0 V at every zero crossing.
+ */
+export interface MainsSync {
+  mainsHz: number;
+  mainsVrms: number;
+}
+
+/** What a synchronised stage does in each half cycle (resistive load, full-wave control). */
+export interface StageSync {
+  halfCycleS: number;
+  /** zero crossing to the first firing */
+  firingDelayS: number;
+  firingAngleDeg: number;
+  conductionAngleDeg: number;
+  /** load RMS voltage / full-sine RMS: sqrt(1 - a/pi + sin(2a)/(2 pi)) */
+  loadRmsFraction: number;
+  /** loadRmsFraction squared */
+  loadPowerFraction: number;
+}
+
 export interface ThresholdStage extends StageBase {
+  /** present: synchronised to the mains, supplyV is the clamp voltage */
+  sync?: MainsSync;
   kind: "threshold";
   supplyV: number;
   timingR: number;
@@ -20,6 +45,8 @@ export interface ThresholdStage extends StageBase {
 }
 
 export interface UjtStage extends StageBase {
+  /** present: synchronised to the mains, supplyV is the clamp voltage */
+  sync?: MainsSync;
   kind: "ujt";
   supplyV: number;
   timingR: number;
@@ -35,6 +62,8 @@ export interface UjtStage extends StageBase {
 }
 
 export interface PutStage extends StageBase {
+  /** present: synchronised to the mains, supplyV is the clamp voltage */
+  sync?: MainsSync;
   kind: "put";
   supplyV: number;
   timingR: number;
@@ -161,6 +190,8 @@ export interface StageSpread {
     /** histogram of the period */
     histogram: Histogram;
   };
+  /** synchronised stages: spread of the firing delay (corners and Monte Carlo; failed = never fires) */
+  firingDelayS?: { corners: MinMax; monteCarlo: Quantiles; failed: number };
 }
 
 export interface StageAnalysis {
@@ -179,14 +210,16 @@ export interface StageAnalysis {
   checks: StageCheck[];
   /** present when the stage carries tolerances and oscillates */
   spread?: StageSpread;
+  /** present for a mains-synchronised stage that fires within the half cycle */
+  sync?: StageSync;
 }
 
 /** One input of a stage, for forms and validation. */
 export interface StageField {
   name: string;
   label: string;
-  /** "Ω", "F", "V", "A", "s", "" (ratio) or "bool" */
-  unit: "Ω" | "F" | "V" | "A" | "s" | "" | "bool";
+  /** "Ω", "F", "V", "A", "s", "Hz" (sync fields only), "" (ratio) or "bool" */
+  unit: "Ω" | "F" | "V" | "A" | "s" | "Hz" | "" | "bool";
   optional: boolean;
   default?: number | boolean;
   /** a default that depends on other fields, in words */

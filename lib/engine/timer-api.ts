@@ -7,7 +7,10 @@ export type {
   ClockOption,
   DeviceId,
   DeviceInfo,
+  InputEdge,
   PinAssignment,
+  PlanStart,
+  RetriggerRule,
   PlanRequest,
   TimerInfo,
   TimerMode,
@@ -25,5 +28,8 @@ export {
   type BudgetInput,
   type BudgetTerm,
   type ClockVerdict,
+  type GateDrive,
+  type GateVerdict,
+  gateVerdict,
 } from "./budget";
 export { COMMON_CRYSTALS_HZ, suggestCrystals, type CrystalSuggestion } from "./crystals";

@@ -8,6 +8,7 @@ import { nearestHighCounts } from "./high-time";
 import { bestIsr, betterIsr, type IsrChoice } from "./isr";
 import { checkRequest, type CheckedRequest } from "./validate";
 import { describePlan } from "./describe";
+import { planTriggered } from "./triggered";
 
 /** Interrupt handlers get at least this many CPU cycles (common practice, no source). */
 export const MIN_ISR_CPU_CYCLES = 500;
@@ -63,6 +64,7 @@ function fmt(x: number): string {
 
 export function planTarget(request: PlanRequest): TimerPlan {
   const r = checkRequest(request);
+  if (r.trigger.start !== "free") return planTriggered(r);
   if (r.periodS * r.clockHz * 16 > MAX_TOTAL_QUANTA)
     throw new EngineError(
       "unreachable-period",

@@ -2,6 +2,7 @@
 import { EngineError } from "../errors";
 import { DEVICES, findDevice, type DeviceSpec, type TimerSpec } from "../devices";
 import type { ClockOption, PlanRequest, TimerMode } from "../plan-types";
+import { checkStart, type CheckedStart } from "./start";
 
 export interface CheckedRequest {
   device: DeviceSpec;
@@ -18,6 +19,8 @@ export interface CheckedRequest {
   activeS: number;
   /** Package the plan is for (the device's first listed package when omitted). */
   packageName?: string;
+  /** start, delayS, edge, retrigger (engine.md section 6); "free" for free-running plans. */
+  trigger: CheckedStart;
 }
 
 const MODES: readonly TimerMode[] = ["pwm", "toggle", "isr"];
@@ -194,6 +197,7 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
     activeLow,
     activeS: highS,
     ...(packageName !== undefined ? { packageName } : {}),
+    trigger: checkStart(request, periodS, highS),
   };
 }
 

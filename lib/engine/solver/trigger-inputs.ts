@@ -1,0 +1,148 @@
+// Input pin and worst-case input-to-timer latency of a triggered plan, per
+// device (engine.md section 6). The latency is the datasheet's interrupt
+// response plus the cycles of the handler up to the write that starts the
+// timer. Triggered firmware is not generated yet: the handler counts below
+// are the budget the generated handler must keep (entry, then one store to
+// the timer's control register, nothing before it), and the templates'
+// tests must count them again when they land.
+import type { DeviceId, PinAssignment } from "../plan-types";
+import { pin } from "../devices/spec";
+
+export type InputEdge = "rising" | "falling" | "both";
+
+export interface TriggerInput {
+  input: PinAssignment;
+  /** How the pin detects the edge, in the datasheet's words. */
+  edgeHow: Record<InputEdge, string>;
+  /** Worst case, in clock cycles (the clockHz of the plan). */
+  responseCycles: number;
+  handlerCycles: number;
+  /** Where each count comes from. */
+  basis: string;
+}
+
+export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
+  // ATmega328P datasheet (DS40002061): 13.2 EICRA (ISC01:0 = 01 any change, 10
+  // falling, 11 rising); 7.7.1 Interrupt Response Time (4 cycles to the vector,
+  // 3 for the vector's jump); pin table 1.1, PDIP-28: PD2 (INT0) = pin 4.
+  atmega328p: {
+    input: pin({ port: "PD2", function: "INT0", packagePin: 4, package: "PDIP-28", portName: "D", bit: 2 }),
+    edgeHow: {
+      rising: "EICRA ISC01:0 = 11",
+      falling: "EICRA ISC01:0 = 10",
+      both: "EICRA ISC01:0 = 01 (any change)",
+    },
+    responseCycles: 4 + 3 + 2,
+    handlerCycles: 13,
+    basis:
+      "ATmega328P datasheet, Interrupt Response Time: 4 cycles to the vector + 3 for its jump, + 2 to finish the idle loop's rjmp; handler 13 cycles to the TCCR1B store (avr-gcc prologue push r1, push r0, in r0 SREG, push r0, clr r1, push r24 = 10; ldi + sts = 3; AVR Instruction Set Manual cycle counts)",
+  },
+  // ATtiny25/45/85 datasheet: 9.2 MCUCR ISC01:0 (same encoding), 4.7.1
+  // Interrupt Response Time; pin table: PB2 (INT0) = PDIP-8 pin 7.
+  attiny85: {
+    input: pin({ port: "PB2", function: "INT0", packagePin: 7, package: "PDIP-8", portName: "B", bit: 2 }),
+    edgeHow: {
+      rising: "MCUCR ISC01:0 = 11",
+      falling: "MCUCR ISC01:0 = 10",
+      both: "MCUCR ISC01:0 = 01 (any change)",
+    },
+    responseCycles: 4 + 2 + 2,
+    handlerCycles: 13,
+    basis:
+      "ATtiny85 datasheet, Interrupt Response Time: 4 cycles to the vector + 2 for its rjmp, + 2 to finish the idle loop's rjmp; handler 13 cycles to the timer control store (avr-gcc prologue 10, ldi + out/sts 3; AVR Instruction Set Manual)",
+  },
+  // RM0444 (STM32G0x1): EXTI rising/falling trigger selection registers
+  // (EXTI_RTSR1, EXTI_FTSR1; both set = both edges), EXTICR port selection.
+  // Cortex-M0+ Technical Reference Manual: 15-cycle exception entry with
+  // zero-wait-state memory. Pin: TSSOP-20 PA1 (from memory).
+  stm32g031: {
+    input: pin({
+      port: "PA1",
+      function: "EXTI1",
+      packagePin: 8,
+      package: "TSSOP-20",
+      portName: "A",
+      bit: 1,
+      fromMemory: true,
+    }),
+    edgeHow: {
+      rising: "EXTI_RTSR1 bit 1",
+      falling: "EXTI_FTSR1 bit 1",
+      both: "EXTI_RTSR1 and EXTI_FTSR1 bit 1",
+    },
+    responseCycles: 3 + 15 + 12,
+    handlerCycles: 8,
+    basis:
+      "EXTI input synchroniser 3 cycles (from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ TRM) + 12 for flash wait states on the vector and stack fetches at 2 wait states (RM0444 FLASH_ACR LATENCY; from memory); handler 8 cycles to the TIMx_CR1 store (ldr 2, movs 1, str 2, plus the literal fetch; ARMv6-M cycle counts)",
+  },
+  // RP2040 datasheet 2.19 GPIO: IO_BANK0 PROC0_INTE EDGE_HIGH / EDGE_LOW per
+  // GPIO; Cortex-M0+ 15-cycle entry. Pin: QFN-56 GPIO15 = pin 18 (from memory).
+  rp2040: {
+    input: pin({
+      port: "GPIO15",
+      function: "GPIO edge interrupt (IO_IRQ_BANK0)",
+      packagePin: 18,
+      package: "QFN-56",
+      portName: "GPIO",
+      bit: 15,
+      gpio: 15,
+      funcSel: 5,
+      fromMemory: true,
+    }),
+    edgeHow: {
+      rising: "PROC0_INTE EDGE_HIGH",
+      falling: "PROC0_INTE EDGE_LOW",
+      both: "PROC0_INTE EDGE_HIGH and EDGE_LOW",
+    },
+    responseCycles: 2 + 15,
+    handlerCycles: 8,
+    basis:
+      "GPIO input synchroniser 2 cycles (RP2040 datasheet, GPIO; from memory) + Cortex-M0+ exception entry 15 cycles; handler 8 cycles to the CSR EN store, with the handler and vector table in SRAM (an XIP cache miss would add far more)",
+  },
+  // PIC12F1840 datasheet: 13.0 Interrupt-on-change (IOCAP/IOCAN per pin select
+  // the edge), 7.3 Interrupt latency (3 to 5 instruction cycles); RA1 = PDIP-8 pin 6.
+  pic12f1840: {
+    input: pin({
+      port: "RA1",
+      function: "IOC (IOCAP1/IOCAN1)",
+      packagePin: 6,
+      package: "PDIP-8",
+      portName: "A",
+      bit: 1,
+    }),
+    edgeHow: { rising: "IOCAP1 = 1", falling: "IOCAN1 = 1", both: "IOCAP1 = 1 and IOCAN1 = 1" },
+    responseCycles: 5 * 4,
+    handlerCycles: 4 * 4,
+    basis:
+      "PIC12F1840 datasheet, interrupt latency up to 5 instruction cycles for an asynchronous interrupt (automatic context save); handler 4 instruction cycles to the TMR2ON set (btfss IOCAF, goto, movlb, bsf); 4 clocks per instruction cycle",
+  },
+  // MSP430x2xx family user's guide: 8.2 Digital I/O P1IES/P1IE (one edge per
+  // setting: both edges by flipping P1IES in the handler), 2.2.3 interrupt
+  // acceptance 6 cycles after the current instruction; G2553 datasheet PDIP-20: P1.3 = pin 5.
+  msp430g2553: {
+    input: pin({
+      port: "P1.3",
+      function: "P1.3 port interrupt (P1IE/P1IES)",
+      packagePin: 5,
+      package: "PDIP-20",
+      portName: "1",
+      bit: 3,
+    }),
+    edgeHow: {
+      rising: "P1IES bit 3 = 0",
+      falling: "P1IES bit 3 = 1",
+      both: "P1IES bit 3 flipped in the handler after each edge",
+    },
+    responseCycles: 6 + 6,
+    handlerCycles: 5,
+    basis:
+      "MSP430x2xx family user's guide, interrupt acceptance 6 cycles + up to 6 to finish the current instruction; handler 5 cycles to the TA0CTL store (bis.w #MC_1,&TA0CTL; family guide instruction cycle table); CPU kept awake (no low-power mode) so no wake-up time adds",
+  },
+};
+
+/** Plain words on conditioning the input, for the pin map and the checklist. */
+export function inputConditioning(start: "trigger" | "zero-cross"): string {
+  return start === "zero-cross"
+    ? "Mains zero crossings only through an isolated zero-cross detector (optocoupler or transformer-isolated), never a direct connection to the mains; its output to the input pin with the pull-up it needs."
+    : "Contacts or open-collector sources: pull-up to the supply and an RC or firmware debounce; logic sources: a series resistor; anything from the mains through an isolated detector.";
+}
