@@ -1,0 +1,57 @@
+/* STM32G031 replacement timing stage
+ * Retrofit: Ostberg pump house lead-lag timer | site: Ostberg Valley Water Board, station 4 | asset: OVWB-PH4-T2
+ * Revision r3, engine 1.0.0; target 1 (stm32g031)
+ * TIM2, mode pwm, clock 16.00000 MHz, output PA0 (TIM2_CH1, pin 7)
+ * Period 1.000000 ms (+0.000 ppm), high 250.0000 us (+0.000 ppm)
+ * Register values: RM0444 reference manual.
+ */
+#include <stdint.h>
+#include "stm32g031_regs.h"
+#include "timing.h"
+
+static void clock_init(void)
+{
+  /* SYSCLK = HSE * N / (M * R) = 8 MHz crystal * 8 / (1 * 4) = 16.00000 MHz */
+  RCC_CR |= (1u << 16); /* HSEON */
+  while ((RCC_CR & (1u << 17)) == 0u) {
+  } /* HSERDY */
+  FLASH_ACR = (FLASH_ACR & ~7u) | 0u; /* LATENCY wait states */
+  /* PLLR = R - 1, PLLREN, PLLN, PLLM = /1, PLLSRC = HSE (11) */
+  RCC_PLLCFGR = ((4u - 1u) << 29) | (1u << 28) | (8u << 8) | (0u << 4) | 3u;
+  RCC_CR |= (1u << 24); /* PLLON */
+  while ((RCC_CR & (1u << 25)) == 0u) {
+  } /* PLLRDY */
+  RCC_CFGR = (RCC_CFGR & ~7u) | 2u; /* SW = PLLRCLK */
+  while (((RCC_CFGR >> 3) & 7u) != 2u) {
+  }
+}
+
+int main(void)
+{
+  clock_init();
+  RCC_IOPENR |= (1u << 0); /* GPIOAEN */
+  RCC_APBENR1 |= (1u << 0); /* TIM2EN */
+
+  /* PA0 as alternate function AF2 (TIM2_CH1) */
+  GPIOA->AFR[0] = (GPIOA->AFR[0] & ~(15u << 0)) | (2u << 0);
+  GPIOA->MODER = (GPIOA->MODER & ~(3u << 0)) | (2u << 0);
+
+  /* PSC = divider - 1; counter clock = f_TIM/1 -> 0x00000000 */
+  TIM2->PSC = 0;
+  /* ARR = periodCounts - 1; update every (PSC+1)*(ARR+1)/f_TIM -> 0x00003E7F */
+  TIM2->ARR = 15999;
+  /* PWM mode 1: high while CNT < CCR1; high = CCR1*(PSC+1)/f_TIM -> 0x00000FA0 */
+  TIM2->CCR1 = 4000;
+  /* OC1M = 110 (PWM mode 1), OC1PE = 1 -> 0x00000068 */
+  TIM2->CCMR1 = (6u << 4) | (1u << 3);
+  /* CC1E = 1: output enabled, active high -> 0x00000001 */
+  TIM2->CCER = 1u << 0;
+  /* UG = 1: load PSC and ARR before the start -> 0x00000001 */
+  TIM2->EGR = 1u << 0;
+  /* ARPE = 1 (buffered ARR), CEN = 1: starts the counter -> 0x00000081 */
+  TIM2->CR1 = (1u << 7) | (1u << 0);
+
+  for (;;) {
+    __asm__ volatile("wfi");
+  }
+}
