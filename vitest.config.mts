@@ -10,6 +10,8 @@ export default defineConfig({
   },
   test: {
     include: ["tests/unit/**/*.test.ts", "tests/integration/**/*.test.ts"],
+    // fixed fast-check seed for every property (tests/setup/seed.ts)
+    setupFiles: ["tests/setup/seed.ts"],
     environment: "node",
     testTimeout: 60_000,
     hookTimeout: 120_000,

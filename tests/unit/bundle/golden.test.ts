@@ -1,16 +1,16 @@
-// Golden files: the generated bundle for a fixed spec is compared with
-// tests/golden/bundle-basic/. A template change shows up as a unified diff
-// (jsdiff createTwoFilesPatch) a reviewer can read; after checking it,
-// regenerate with UPDATE_GOLDEN=1 npx vitest run tests/unit/bundle/golden.test.ts
+// Golden files: every bundle of tests/golden/cases.ts (each device with every
+// timer and mode the solver emits, plus checklist variants) is compared with
+// tests/golden/<case>/. This test never writes: after a deliberate change run
+// `npm run golden:update` (scripts/golden-update.ts) and read the diff. A
+// text change shows as a unified diff (jsdiff createTwoFilesPatch); binary
+// images compare byte for byte.
 import { createTwoFilesPatch } from "diff";
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleSources, textOf } from "@/lib/bundle";
-import { TARGETS, spec } from "./fixtures";
-
-const ROOT = path.join(process.cwd(), "tests/golden/bundle-basic");
-const GOLDEN_SPEC = spec([TARGETS[0], TARGETS[1], TARGETS[6], TARGETS[8], TARGETS[10], TARGETS[13]]);
+import { buildBundleSources, type BundleFile } from "@/lib/bundle";
+import { listDevices, planTarget } from "@/lib/engine";
+import { GOLDEN_CASES, GOLDEN_ROOT } from "@/tests/golden/cases";
 
 function listFiles(dir: string, base = ""): string[] {
   if (!existsSync(dir)) return [];
@@ -20,29 +20,53 @@ function listFiles(dir: string, base = ""): string[] {
   });
 }
 
-describe("golden bundle", () => {
-  const files = buildBundleSources(GOLDEN_SPEC);
+const UPDATE = "run `npm run golden:update` to accept, after reading the change";
 
-  if (process.env.UPDATE_GOLDEN === "1") {
-    rmSync(ROOT, { recursive: true, force: true });
-    for (const f of files) {
-      mkdirSync(path.dirname(path.join(ROOT, f.path)), { recursive: true });
-      writeFileSync(path.join(ROOT, f.path), f.content);
-    }
-  }
-
-  it("has the same file list as the golden folder", () => {
-    expect(files.map((f) => f.path).sort()).toEqual(listFiles(ROOT).sort());
+describe("golden bundle set", () => {
+  it("covers every device, timer and mode the solver offers, each planned as asked", () => {
+    const wanted = listDevices().flatMap((d) =>
+      d.timers.flatMap((t) => t.modes.map((m) => `${d.id} ${t.name} ${m}`)),
+    );
+    const planned = new Set<string>();
+    for (const c of GOLDEN_CASES)
+      for (const req of c.spec.targets) {
+        const plan = planTarget(req);
+        // a fallback (pwm request planned as isr) would leave a mode untested
+        expect([req.device, req.timer ?? plan.timer, req.mode]).toEqual([plan.device, plan.timer, plan.mode]);
+        planned.add(`${plan.device} ${plan.timer} ${plan.mode}`);
+      }
+    expect(wanted.filter((w) => !planned.has(w))).toEqual([]);
   });
 
-  it.each(files.map((f) => [f.path, textOf(f)] as const))("%s matches its golden copy", (p, content) => {
-    const golden = existsSync(path.join(ROOT, p)) ? readFileSync(path.join(ROOT, p), "utf8") : "";
-    if (golden !== content) {
-      const patch = createTwoFilesPatch(`golden/${p}`, `generated/${p}`, golden, content, "", "", {
-        context: 3,
+  it("has no golden folder without a case", () => {
+    const folders = readdirSync(GOLDEN_ROOT).filter((n) => statSync(path.join(GOLDEN_ROOT, n)).isDirectory());
+    expect(folders.sort()).toEqual(GOLDEN_CASES.map((c) => c.name).sort());
+  });
+
+  for (const c of GOLDEN_CASES)
+    describe(c.name, async () => {
+      const root = path.join(GOLDEN_ROOT, c.name);
+      const files: BundleFile[] = await buildBundleSources(c.spec);
+
+      it("has the same file list as its golden folder", () => {
+        expect(files.map((f) => f.path).sort(), UPDATE).toEqual(listFiles(root).sort());
       });
-      throw new Error(`${p} differs from its golden copy (UPDATE_GOLDEN=1 to accept):\n${patch}`);
-    }
-    expect(content).toBe(golden);
-  });
+
+      it.each(files.map((f) => [f.path, f] as const))("%s matches its golden copy", (p, f) => {
+        const file = path.join(root, p);
+        const golden = existsSync(file) ? readFileSync(file) : Buffer.alloc(0);
+        if (typeof f.content !== "string") {
+          expect(Buffer.from(f.content).equals(golden), `${p}: image bytes differ; ${UPDATE}`).toBe(true);
+          return;
+        }
+        const text = golden.toString("utf8");
+        if (text !== f.content) {
+          const patch = createTwoFilesPatch(`golden/${p}`, `generated/${p}`, text, f.content, "", "", {
+            context: 3,
+          });
+          throw new Error(`${c.name}/${p} differs from its golden copy (${UPDATE}):\n${patch}`);
+        }
+        expect(f.content).toBe(text);
+      });
+    });
 });

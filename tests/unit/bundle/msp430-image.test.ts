@@ -6,7 +6,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles } from "@/lib/bundle";
+import { buildBundleSources } from "@/lib/bundle";
 import { buildTargetImages } from "@/lib/firmware/build-images";
 import { buildMsp430, symbolAddress } from "@/tests/tools/msp430-build";
 import { run } from "@/tests/tools/require-tool";
@@ -36,7 +36,7 @@ const word = (m: Map<number, number>, a: number) => (m.get(a) ?? -1) | ((m.get(a
 
 describe("MSP430G2553 image", () => {
   it("vectors: reset at 0xFFFE -> reset_entry, TACCR0 at 0xFFF2 -> timing_isr, every other slot -> unexpected_irq", () => {
-    const b = buildMsp430(buildBundleFiles(spec([ISR])), "msp430g2553");
+    const b = buildMsp430(buildBundleSources(spec([ISR])), "msp430g2553");
     expect(b.make.status).toBe(0);
     const hex = parseHex(readFileSync(b.hex, "utf8"));
     expect(word(hex, 0xfffe)).toBe(symbolAddress(b.elf, "reset_entry"));
@@ -46,13 +46,13 @@ describe("MSP430G2553 image", () => {
   });
 
   it("a PWM image leaves the TACCR0 slot on the trap too (no handler, no enabled interrupt)", () => {
-    const b = buildMsp430(buildBundleFiles(spec([PWM])), "msp430g2553");
+    const b = buildMsp430(buildBundleSources(spec([PWM])), "msp430g2553");
     const hex = parseHex(readFileSync(b.hex, "utf8"));
     expect(word(hex, 0xfff2)).toBe(symbolAddress(b.elf, "unexpected_irq"));
   });
 
   it("the hex holds exactly the ELF's loadable bytes, all inside flash", () => {
-    const b = buildMsp430(buildBundleFiles(spec([ISR])), "msp430g2553");
+    const b = buildMsp430(buildBundleSources(spec([ISR])), "msp430g2553");
     const hex = parseHex(readFileSync(b.hex, "utf8"));
     const bin = path.join(b.dir, "build/check.bin");
     expect(run("llvm-objcopy", ["-O", "binary", b.elf, bin], b.dir).status).toBe(0);
@@ -70,7 +70,7 @@ describe("MSP430G2553 image", () => {
 
   it("no runtime library: the objects call nothing but register symbols from periph.x", () => {
     for (const t of [ISR, PWM]) {
-      const b = buildMsp430(buildBundleFiles(spec([t])), "msp430g2553");
+      const b = buildMsp430(buildBundleSources(spec([t])), "msp430g2553");
       const undef = run("llvm-nm", ["-u", "build/main.o", "build/startup.o"], b.dir)
         .stdout.split("\n")
         .map((l) => l.trim().replace(/^U /, ""))
@@ -94,14 +94,14 @@ describe("MSP430G2553 image", () => {
       from: "\n  /* Sleep in LPM0",
       to: "\n  P1OUT = (uint8_t)(TA0R / P1IN);\n  /* Sleep in LPM0",
     };
-    const b = buildMsp430(buildBundleFiles(spec([PWM])), "msp430g2553", plant);
+    const b = buildMsp430(buildBundleSources(spec([PWM])), "msp430g2553", plant);
     expect(b.make.status).not.toBe(0);
     expect(b.make.stderr).toMatch(/undefined symbol: __mspabi_divu/);
     expect(run("llvm-nm", ["-u", "build/main.o"], b.dir).stdout).toMatch(/__mspabi_divu/);
   });
 
   it("two builds through the bundle's image builder give identical bytes", async () => {
-    const files = buildBundleFiles(spec([ISR]));
+    const files = buildBundleSources(spec([ISR]));
     const a = await buildTargetImages(files, "msp430g2553", "msp430g2553");
     const b = await buildTargetImages(files, "msp430g2553", "msp430g2553");
     expect(a.map((f) => f.path)).toEqual([

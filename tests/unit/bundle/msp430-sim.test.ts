@@ -9,7 +9,7 @@
 // running timer's registers and its counter; interrupt plans from the
 // interrupt times and the P1 levels the handler writes (gpio device).
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundlePlan, type BundleTargetRequest } from "@/lib/bundle";
+import { buildBundleSources, type BundlePlan, type BundleTargetRequest } from "@/lib/bundle";
 import { buildMsp430, type Msp430Build, type Plant } from "@/tests/tools/msp430-build";
 import {
   SIM_CALIBRATION,
@@ -66,7 +66,7 @@ interface Image {
 }
 
 function image(request: BundleTargetRequest, plant?: Plant): Image {
-  const files = buildBundleFiles(spec([request]));
+  const files = buildBundleSources(spec([request]));
   const planJson = JSON.parse(files.find((f) => f.path === "plan.json")!.content as string) as {
     targets: { plan: BundlePlan }[];
   };

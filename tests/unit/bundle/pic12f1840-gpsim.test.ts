@@ -12,7 +12,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundlePlan, type BundleTargetRequest } from "@/lib/bundle";
+import { buildBundleSources, type BundlePlan, type BundleTargetRequest } from "@/lib/bundle";
 import { buildPic, latchWrites, pinTiming, registersAt, tracePin, configWords } from "@/tests/tools/gpsim";
 import { systemClockHz } from "@/tests/tools/pic12f1840-tables";
 import { spec } from "./fixtures";
@@ -20,14 +20,14 @@ import { spec } from "./fixtures";
 interface Case {
   /** clockSource passes through BundleSpec.targets to the engine unchanged (firmware.md). */
   request: BundleTargetRequest & { clockSource: string };
-  files: ReturnType<typeof buildBundleFiles>;
+  files: ReturnType<typeof buildBundleSources>;
   plan: BundlePlan;
   /** Frequency on OSC1/CLKIN (crystal plans); 0 for the internal oscillator. */
   boardHz: number;
 }
 
 function bundle(request: Case["request"], boardHz = 0): Case {
-  const files = buildBundleFiles(spec([request]));
+  const files = buildBundleSources(spec([request]));
   const planJson = JSON.parse(String(files.find((f) => f.path === "plan.json")!.content)) as {
     targets: { plan: BundlePlan }[];
   };

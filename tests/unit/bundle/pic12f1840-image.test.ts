@@ -9,7 +9,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundleTargetRequest } from "@/lib/bundle";
+import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { isEngineError, listDevices, planTarget, type PlanRequest } from "@/lib/engine";
 import { buildPic, configWords } from "@/tests/tools/gpsim";
 import { decodeConfig1, decodeConfig2, IRCF_HZ, REGISTER_BANK } from "@/tests/tools/pic12f1840-tables";
@@ -26,7 +26,7 @@ const req = (clockSource: string, clockHz: number, over: Partial<Req> = {}): Req
   ...over,
 });
 
-const filesOf = (r: Req) => buildBundleFiles(spec([r]));
+const filesOf = (r: Req) => buildBundleSources(spec([r]));
 const asmOf = (r: Req) => String(filesOf(r).find((f) => f.path === "pic12f1840/src/main.asm")?.content);
 const cOf = (r: Req) => String(filesOf(r).find((f) => f.path === "pic12f1840/src/main.c")?.content);
 

@@ -13,7 +13,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundleTargetRequest } from "@/lib/bundle";
+import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import type { TimerPlan } from "@/lib/engine";
 import { buildTargetImages } from "@/lib/firmware/build-images";
 import { buildStm32, runStm32, type RunOptions } from "@/tests/tools/stm32g031-emu";
@@ -63,7 +63,7 @@ function bundleRequest(c: (typeof CASES)[number]): BundleTargetRequest {
   return r;
 }
 
-const files = buildBundleFiles(spec(CASES.map(bundleRequest)));
+const files = buildBundleSources(spec(CASES.map(bundleRequest)));
 const planJson = JSON.parse((files.find((f) => f.path === "plan.json")?.content as string) ?? "{}") as {
   targets: { folder: string; plan: TimerPlan }[];
 };

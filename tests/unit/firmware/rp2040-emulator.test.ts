@@ -9,7 +9,7 @@
 // rp2040js 1.4.1 does not drive phase-correct PWM onto the pin, so those
 // plans are checked from the final PWM registers instead.
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundleFile } from "@/lib/bundle";
+import { buildBundleSources, type BundleFile } from "@/lib/bundle";
 import { spec } from "@/tests/unit/bundle/fixtures";
 import { planTarget, type PlanRequest, type TimerPlan } from "@/lib/engine";
 import { buildRp2040, type SourceEdit } from "./rp2040-build";
@@ -36,7 +36,7 @@ function flashFor(req: PlanRequest, edits: SourceEdit[]): Uint8Array {
   const key = JSON.stringify([req, edits.map((e) => [e.file, String(e.from), String(e.to)])]);
   let flash = builtFlash.get(key);
   if (!flash) {
-    const files = buildBundleFiles(bundle(req)) as BundleFile[];
+    const files = buildBundleSources(bundle(req)) as BundleFile[];
     flash = elfFlashContent(buildRp2040(files, "rp2040", edits).elf).bytes;
     builtFlash.set(key, flash);
   }

@@ -10,13 +10,13 @@
 // 0xe48bff56 as firmware.md states).
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundleFile } from "@/lib/bundle";
+import { buildBundleSources, type BundleFile } from "@/lib/bundle";
 import { spec } from "@/tests/unit/bundle/fixtures";
 import { buildRp2040 } from "./rp2040-build";
 import { elfFlashContent, hexContent, parseUf2, romCrc32, uf2Content } from "./rp2040-image-readers";
 
 const REQ = { device: "rp2040", clockHz: 125e6, periodS: 0.02, highS: 0.0015 } as const;
-const files = buildBundleFiles(spec([REQ])) as BundleFile[];
+const files = buildBundleSources(spec([REQ])) as BundleFile[];
 const imgs = buildRp2040(files, "rp2040");
 const flash = elfFlashContent(imgs.elf);
 const u32 = (b: Uint8Array, o: number) =>
@@ -82,7 +82,7 @@ describe("RP2040 image files agree", () => {
   });
 
   it("two builds of the same bundle give byte-identical images (firmware.md)", () => {
-    const again = buildRp2040(buildBundleFiles(spec([REQ])) as BundleFile[], "rp2040");
+    const again = buildRp2040(buildBundleSources(spec([REQ])) as BundleFile[], "rp2040");
     const sha = (b: Uint8Array | string) => createHash("sha256").update(b).digest("hex");
     expect(sha(again.elf)).toBe(sha(imgs.elf));
     expect(sha(again.hex)).toBe(sha(imgs.hex));

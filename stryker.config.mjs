@@ -1,0 +1,52 @@
+// Mutation testing (issue 14): StrykerJS with its vitest runner and
+// TypeScript checker over lib/engine, lib/bundle and lib/capture.
+// scripts/mutation/run.sh runs one folder at a time (MUTATE_FOLDER) so a
+// run fits a shared 2-core machine; MUTATE_FILES picks single files for the
+// sampled CI run. Each run writes its own JSON report under
+// reports/mutation/ and scripts/mutation/report.ts prints the score per folder.
+const folder = process.env.MUTATE_FOLDER ?? "lib";
+const files = process.env.MUTATE_FILES?.split(",").filter(Boolean);
+const name = process.env.MUTATE_NAME ?? folder.replaceAll("/", "-");
+
+const mutate = files ?? [
+  `${folder}/**/*.ts`,
+  // lib/engine holds solver/ and devices/ as folders of their own; "lib/engine"
+  // alone means the files directly in it and stages/.
+  ...(folder === "lib/engine" ? ["!lib/engine/solver/**", "!lib/engine/devices/**"] : []),
+];
+if (!files && folder === "lib")
+  mutate.splice(0, 1, "lib/engine/**/*.ts", "lib/bundle/**/*.ts", "lib/capture/**/*.ts");
+
+/** @type {import("@stryker-mutator/api/core").PartialStrykerOptions} */
+const config = {
+  testRunner: "vitest",
+  vitest: { configFile: "vitest.mutation.config.mts" },
+  checkers: ["typescript"],
+  tsconfigFile: "tsconfig.mutation.json",
+  typescriptChecker: { prioritizePerformanceOverAccuracy: true },
+  mutate,
+  coverageAnalysis: "perTest",
+  // shared machine: 2 cores for eight engineers
+  concurrency: Number(process.env.MUTATE_CONCURRENCY ?? 2),
+  timeoutMS: 20_000,
+  incremental: true,
+  incrementalFile: `reports/mutation/${name}.incremental.json`,
+  reporters: ["clear-text", "json", "progress"],
+  jsonReporter: { fileName: `reports/mutation/${name}.json` },
+  clearTextReporter: { allowColor: false, logTests: false, reportMutants: false },
+  tempDirName: ".stryker-tmp",
+  cleanTempDir: "always",
+  ignorePatterns: [
+    "app",
+    "components",
+    ".next*",
+    ".data",
+    "tests/browser",
+    "tests/integration*",
+    "reports",
+    "bench-results.json",
+  ],
+  thresholds: { high: 85, low: 80, break: null },
+};
+
+export default config;

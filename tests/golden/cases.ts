@@ -1,0 +1,71 @@
+// The golden bundle set: one bundle per device holding a target for every
+// timer and every mode the solver can emit on it (listDevices), plus the
+// checklist variants (mains / thyristor cautions on and off).
+// scripts/golden-update.ts writes tests/golden/<case>/ from these;
+// tests/unit/bundle/golden.test.ts only compares.
+import type { BundleSpec, BundleTargetRequest } from "@/lib/bundle";
+import { listDevices } from "@/lib/engine";
+
+/** A clock each device runs at on its default package (demo choice). */
+const CLOCK_HZ: Record<string, number> = {
+  atmega328p: 16e6,
+  attiny85: 8e6,
+  stm32g031: 16e6,
+  rp2040: 125e6,
+  pic12f1840: 16e6,
+  msp430g2553: 1e6,
+};
+
+/** Requests per mode: reachable by every timer at the clocks above (checked by the test). */
+const REQUEST = {
+  pwm: { periodS: 1e-3, highS: 2.5e-4 },
+  toggle: { periodS: 2e-3, highS: 1e-3 },
+  isr: { periodS: 1, highS: 0.25 },
+} as const;
+
+export interface GoldenCase {
+  name: string;
+  spec: BundleSpec;
+}
+
+const retrofit = (mains: boolean) => ({
+  name: "Ostberg pump house lead-lag timer",
+  site: "Ostberg Valley Water Board, station 4",
+  assetTag: "OVWB-PH4-T2",
+  mainsPowered: mains,
+  drivesThyristor: mains,
+});
+
+export function goldenTargets(device: string): BundleTargetRequest[] {
+  const info = listDevices().find((d) => d.id === device)!;
+  return info.timers.flatMap((t) =>
+    t.modes.map((mode) => ({ device, clockHz: CLOCK_HZ[device], ...REQUEST[mode], mode, timer: t.name })),
+  );
+}
+
+export const GOLDEN_CASES: GoldenCase[] = [
+  ...listDevices().map((d) => ({
+    name: d.id,
+    spec: {
+      retrofit: retrofit(true),
+      revision: 3,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 10e3, timingC: 1e-6, eta: 0.63 },
+      targets: goldenTargets(d.id),
+    },
+  })),
+  {
+    // low-voltage retrofit: no mains or thyristor cautions; a 555 stage; the solver picks the timer
+    name: "low-voltage-555",
+    spec: {
+      retrofit: retrofit(false),
+      revision: 1,
+      stage: { kind: "timer555-astable", supplyV: 12, ra: 10e3, rb: 47e3, c: 1e-6 },
+      targets: [
+        { device: "atmega328p", clockHz: 16e6, periodS: 0.02, highS: 0.0015, mode: "pwm" },
+        { device: "rp2040", clockHz: 125e6, periodS: 0.02, highS: 0.0015, mode: "pwm" },
+      ],
+    },
+  },
+];
+
+export const GOLDEN_ROOT = new URL("./", import.meta.url).pathname;

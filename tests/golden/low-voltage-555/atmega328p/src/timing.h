@@ -1,0 +1,22 @@
+/* Timing constants — ATmega328P TIMER1 pwm
+ * Retrofit: Ostberg pump house lead-lag timer, revision r1, engine 1.0.0
+ * Achieved period 20.00000 ms (+0.000 ppm),
+ * high time 1.500000 ms (+0.000 ppm).
+ * period = divider * periodCounts * modeFactor * softwareDivider / F_CPU
+ *        = 8 * 40000 * 1 * 1 / 16000000
+ */
+#ifndef TIMING_H
+#define TIMING_H
+
+#ifndef F_CPU
+#define F_CPU 16000000UL
+#endif
+
+#define TIMING_DIVIDER 8u
+#define TIMING_PERIOD_COUNTS 40000u
+#define TIMING_HIGH_COUNTS 3000u
+#define TIMING_MODE_FACTOR 1u
+/* interrupts per output period (1 = hardware only) */
+#define TIMING_SOFT_DIVIDER 1UL
+
+#endif
