@@ -6,12 +6,12 @@ import { execFileSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import JSZip from "jszip";
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, sha256Hex, zipBundle } from "@/lib/bundle";
+import { buildBundleSources, sha256Hex, zipBundle } from "@/lib/bundle";
 import { TARGETS, spec } from "./fixtures";
 
 describe("bundle zip and the time zone", () => {
   it("the zip is the same in another time zone (fixed entry dates, no folder entries)", async () => {
-    const here = sha256Hex(await zipBundle(buildBundleFiles(spec(TARGETS.slice(0, 1)))));
+    const here = sha256Hex(await zipBundle(buildBundleSources(spec(TARGETS.slice(0, 1)))));
     // the other time zone lives in a child process (Node reads TZ from its environment)
     const child = fileURLToPath(new URL("./zip-sha-child.ts", import.meta.url));
     for (const tz of ["Pacific/Kiritimati", "America/St_Johns"]) {
@@ -23,7 +23,7 @@ describe("bundle zip and the time zone", () => {
       expect([tz, Number(offset)]).not.toEqual([tz, 0]);
       expect([tz, sha]).toEqual([tz, here]);
     }
-    const zip = await JSZip.loadAsync(await zipBundle(buildBundleFiles(spec(TARGETS.slice(0, 1)))));
+    const zip = await JSZip.loadAsync(await zipBundle(buildBundleSources(spec(TARGETS.slice(0, 1)))));
     expect(Object.values(zip.files).some((f) => f.dir)).toBe(false);
   });
 });
