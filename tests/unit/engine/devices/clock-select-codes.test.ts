@@ -74,6 +74,8 @@ interface Case {
   device: PlanRequest["device"];
   timer: string;
   clockHz: number;
+  /** Clock option the bundle has code for at clockHz (PIC12F1840: 32 MHz only through the 4x PLL). */
+  clockSource?: string;
   /** datasheet counter length: 8-bit 256, 16-bit 65536 counts */
   maxCounts: number;
   modes: { mode: "pwm" | "toggle"; factor: number }[];
@@ -131,6 +133,7 @@ const CASES: Case[] = [
     device: "pic12f1840",
     timer: "TIMER2",
     clockHz: 32e6,
+    clockSource: "crystal-pll",
     maxCounts: 256, // PR2 is 8 bits
     modes: [{ mode: "pwm", factor: 1 }],
     dividers: Object.keys(PIC_T2CKPS).map((p) => 4 * Number(p)),
@@ -168,6 +171,7 @@ describe("clock-select codes against the datasheet tables", () => {
             highS: periodS / 2,
             mode,
             timer: c.timer,
+            ...(c.clockSource ? { clockSource: c.clockSource } : {}),
           };
           const plan = planTarget(req) as BundlePlan;
           expect([d, plan.mode, plan.timer, plan.divider, plan.periodCounts]).toEqual([

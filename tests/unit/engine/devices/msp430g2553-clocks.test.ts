@@ -4,7 +4,7 @@
 // on P2.6/P2.7; 20-pin N package pin designation) and MSP430x2xx Family
 // User's Guide SLAU144 (Timer_A TASSEL: 1 = ACLK, 2 = SMCLK).
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles, type BundleTargetRequest } from "@/lib/bundle";
+import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { DEVICES } from "@/lib/bundle/devices";
 import { isEngineError, listDevices, planTarget, type PlanRequest } from "@/lib/engine";
 import { targetSchema } from "@/lib/validation/target";
@@ -81,7 +81,7 @@ describe("MSP430G2553 clock options", () => {
       highS: 5e-4,
       clockSource: "external",
     };
-    const r = refusal(() => buildBundleFiles(spec([t])));
+    const r = refusal(() => buildBundleSources(spec([t])));
     expect(r.code).toBe("clock-out-of-range");
   });
 

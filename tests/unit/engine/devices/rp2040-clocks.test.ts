@@ -5,7 +5,7 @@
 // crystal periods; the worked example gives 47 for 1 ms at 12 MHz), and the
 // 133 MHz top clk_sys.
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles } from "@/lib/bundle";
+import { buildBundleSources } from "@/lib/bundle";
 import { EngineError, listDevices, planTarget, type PlanRequest } from "@/lib/engine";
 import {
   RP2040_PLL_FREQUENCIES_HZ,
@@ -85,7 +85,7 @@ describe("RP2040 PLL_SYS from the 12 MHz crystal", () => {
       periodS: 0.02,
       highS: 0.0015,
     };
-    const e = refusal(() => buildBundleFiles(spec([req])));
+    const e = refusal(() => buildBundleSources(spec([req])));
     expect(e.code).toBe("clock-out-of-range");
     expect(e.field).toBe("targets.0"); // the bundle names the target; the engine's message names the field
     expect(e.message).toMatch(/clockHz 16000000 Hz/);

@@ -4,7 +4,7 @@
 // clock sources), so no LSE option. What the form is offered is what the
 // engine accepts, and an impossible combination is refused naming the field.
 import { describe, expect, it } from "vitest";
-import { buildBundleFiles } from "@/lib/bundle";
+import { buildBundleSources } from "@/lib/bundle";
 import { isEngineError, listDevices, planTarget, type PlanRequest } from "@/lib/engine";
 import { flashLatency, stm32ClockTree } from "@/lib/engine/devices/stm32g031-clock-tree";
 import { targetSchema } from "@/lib/validation/target";
@@ -89,7 +89,7 @@ describe("STM32G031 clock options", () => {
 
   it("the bundle refuses before generating anything", () => {
     expect(() =>
-      buildBundleFiles(
+      buildBundleSources(
         spec([{ device: "stm32g031", clockHz: 50e6, clockSource: "ext-clock", periodS: 1e-3, highS: 2e-4 }]),
       ),
     ).toThrow(/target 1 \(stm32g031\) cannot be planned: .*50000000 Hz cannot be made/);
