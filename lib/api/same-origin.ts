@@ -16,7 +16,9 @@ import { ApiError } from "./errors";
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
-export type BodyType = "application/json" | "multipart/form-data";
+// text/csv and tab-separated values are raw capture uploads; a plain HTML form
+// cannot send them (forms send urlencoded, multipart or text/plain only).
+export type BodyType = "application/json" | "multipart/form-data" | "text/csv" | "text/tab-separated-values";
 
 function mediaType(header: string | null): string | null {
   if (header === null) return null;

@@ -175,7 +175,7 @@ describe("capture upload", () => {
     const res = await fetch(`${eng.base}/api/v1/captures`, {
       method: "POST",
       body: new Uint8Array(limit + 1).fill(0x30),
-      headers: { "content-type": "text/csv", cookie: eng.cookieHeader() },
+      headers: { "content-type": "text/csv", cookie: eng.cookieHeader(), origin: eng.base },
     }).catch((err: unknown) => err as Error);
     // The server may answer and close before the client has sent everything.
     if (res instanceof Response) {

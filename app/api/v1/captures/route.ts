@@ -50,7 +50,7 @@ export const POST = apiRoute(
     const row = await getCaptureRow({ id });
     return Response.json({ capture: captureView(row!) }, { status: 201 });
   },
-  { bodyTypes: ["multipart/form-data"] },
+  { bodyTypes: ["multipart/form-data", "text/csv", "text/tab-separated-values"] },
 );
 
 export const GET = apiRoute(async (req) => {
