@@ -28,8 +28,9 @@ const byPath = (a: BundleFile, b: BundleFile) => (a.path < b.path ? -1 : a.path 
 
 function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
   return spec.targets.map((request, index) => {
+    let plan: BundlePlan;
     try {
-      return planner(request);
+      plan = planner(request);
     } catch (e) {
       const why = e instanceof Error ? e.message : String(e);
       const code = isEngineError(e) ? e.code : "invalid-request";
@@ -39,6 +40,16 @@ function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
         `targets.${index}`,
       );
     }
+    // The templates make free-running firmware only: a triggered or zero-cross
+    // plan must never be shipped as a free-running image.
+    const start = (plan as { start?: string }).start;
+    if (start !== undefined && start !== "free")
+      throw new EngineError(
+        "invalid-request",
+        `target ${index + 1} (${request.device}): no firmware for triggered starts yet (start "${start}"); plan it free-running or wait for triggered-start firmware.`,
+        `targets.${index}`,
+      );
+    return plan;
   });
 }
 

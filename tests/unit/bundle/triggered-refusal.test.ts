@@ -1,0 +1,46 @@
+// The templates make free-running firmware only (engine.md section 6 adds
+// triggered and zero-cross plans): such a plan must be refused by the bundle,
+// naming the target, and never shipped as a free-running image.
+import { describe, expect, it } from "vitest";
+import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
+import { isEngineError } from "@/lib/engine";
+
+const stage = { kind: "timer555-monostable", r: 10e3, c: 1e-6 } as const;
+
+function refusal(target: BundleTargetRequest & Record<string, unknown>) {
+  try {
+    buildBundleSources({ retrofit: { name: "Refusal check" }, revision: 1, stage, targets: [target] });
+  } catch (e) {
+    return e;
+  }
+  throw new Error("accepted, expected a refusal");
+}
+
+describe("bundle and triggered plans", () => {
+  it.each(["trigger", "zero-cross"])(
+    "refuses a %s plan before writing any file, naming the target",
+    (start) => {
+      const e = refusal({
+        device: "atmega328p",
+        clockHz: 16e6,
+        periodS: 0.01,
+        highS: 1e-4,
+        start,
+        delayS: 0.005,
+      });
+      expect(isEngineError(e)).toBe(true);
+      expect((e as { field?: string }).field).toBe("targets.0");
+      expect((e as Error).message).toMatch(/no firmware for triggered starts yet/);
+    },
+  );
+
+  it("still builds the same target free-running", () => {
+    const files = buildBundleSources({
+      retrofit: { name: "Refusal check" },
+      revision: 1,
+      stage,
+      targets: [{ device: "atmega328p", clockHz: 16e6, periodS: 0.01, highS: 1e-4 }],
+    });
+    expect(files.some((f) => f.path === "atmega328p/src/main.c")).toBe(true);
+  });
+});
