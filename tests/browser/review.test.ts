@@ -27,7 +27,7 @@ async function generate(page: Page, retrofitId: number): Promise<{ id: number; n
   // change must name our own origin (same-origin rule, lib/api/same-origin.ts).
   const res = await page.request.post(`/api/v1/retrofits/${retrofitId}/revisions`, {
     data: {},
-    headers: { origin: new URL(page.url()).origin },
+    headers: { origin: new URL(process.env.TEST_BASE_URL ?? page.url()).origin },
     timeout: 120_000,
   });
   expect(res.status()).toBe(201);
