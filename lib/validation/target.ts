@@ -2,7 +2,7 @@
 // tolerance the new board must hold. Checked against the engine's device
 // catalogue so a wrong clock option or timer is a field error, not a 500.
 import { z } from "zod";
-import { listDevices, type DeviceInfo } from "@/lib/engine";
+import { clockMakes, listDevices, type DeviceInfo } from "@/lib/engine";
 import { engNumber } from "./eng";
 
 const DEVICES = listDevices();
@@ -56,23 +56,14 @@ export const targetSchema = z
     } else {
       const lo = clock.hz ?? clock.minHz ?? device.minClockHz;
       const hi = clock.hz ?? clock.maxHz ?? device.maxClockHz;
-      if (clock.frequenciesHz && !clock.frequenciesHz.includes(t.clockHz)) {
-        ctx.addIssue({
-          code: "custom",
-          path: ["clockHz"],
-          message: `${clock.label} cannot run at ${t.clockHz} Hz; pick one of the frequencies it makes.`,
-        });
-      } else if (t.clockHz < lo * (1 - 1e-9) || t.clockHz > hi * (1 + 1e-9)) {
+      if (t.clockHz < lo * (1 - 1e-9) || t.clockHz > hi * (1 + 1e-9)) {
         ctx.addIssue({
           code: "custom",
           path: ["clockHz"],
           message:
             lo === hi ? `${clock.label} runs at ${lo} Hz.` : `${clock.label} runs from ${lo} Hz to ${hi} Hz.`,
         });
-      } else if (
-        clock.frequenciesHz &&
-        !clock.frequenciesHz.some((hz) => Math.abs(hz - t.clockHz) <= hz * 1e-9)
-      ) {
+      } else if (clock.frequenciesHz && !clockMakes(clock, t.clockHz)) {
         // Discrete sources (dividers, PLL steps): name the nearest frequencies it can make.
         const near = [...clock.frequenciesHz]
           .sort((a, b) => Math.abs(a - t.clockHz) - Math.abs(b - t.clockHz))

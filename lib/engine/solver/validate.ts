@@ -141,9 +141,9 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
     );
   // A source with discrete frequencies (a PLL from a fixed crystal, IRCF steps)
   // runs only at those: refuse any other before a plan or a bundle is made.
-  if (clock.frequenciesHz && !clock.frequenciesHz.some((hz) => Math.abs(hz - clockHz) <= hz * 1e-9)) {
+  if (clock.frequenciesHz && !clockMakes(clock, clockHz)) {
     const others = device.clocks.filter(
-      (c) => c.id !== clock.id && (c.frequenciesHz ? c.frequenciesHz.includes(clockHz) : c.hz === clockHz),
+      (c) => c.id !== clock.id && (c.frequenciesHz ? clockMakes(c, clockHz) : c.hz === clockHz),
     );
     const near = [...clock.frequenciesHz]
       .sort((a, b) => Math.abs(a - clockHz) - Math.abs(b - clockHz) || a - b)
@@ -214,4 +214,9 @@ function checkPackage(device: DeviceSpec, requested: unknown): string | undefine
       "package",
     );
   return requested.trim();
+}
+
+/** Whether a discrete clock source makes this frequency (to a part in 10^9); sources without steps make any. The form's schema uses the same rule. */
+export function clockMakes(clock: Pick<ClockOption, "frequenciesHz">, hz: number): boolean {
+  return !clock.frequenciesHz || clock.frequenciesHz.some((f) => Math.abs(f - hz) <= f * 1e-9);
 }
