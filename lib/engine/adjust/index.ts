@@ -1,0 +1,6 @@
+// Adjustable stage values: potentiometer, trimmer, selector; travel analysis and the ADC table of the target.
+export type * from "./types";
+export { taperFraction, taperRotation, LOG_TAPER_BASE } from "./taper";
+export { analyzeTravel, validateControl, controlValue, stageAt, DEFAULT_TRAVEL_POINTS } from "./travel";
+export { buildAdcTable, stepForCount, DEFAULT_HYSTERESIS_COUNTS } from "./adc-table";
+export type { AdcTable, AdcStep, AdcTableRequest } from "./adc-table";
