@@ -4,3 +4,5 @@ export { taperFraction, taperRotation, LOG_TAPER_BASE } from "./taper";
 export { analyzeTravel, validateControl, controlValue, stageAt, DEFAULT_TRAVEL_POINTS } from "./travel";
 export { buildAdcTable, stepForCount, DEFAULT_HYSTERESIS_COUNTS } from "./adc-table";
 export type { AdcTable, AdcStep, AdcTableRequest } from "./adc-table";
+export { travelChecklist, trimmerCalibration, MIDDLE_BY_EYE } from "./checklist";
+export type { TravelCheckLine, TrimmerCalibration } from "./checklist";
