@@ -1,4 +1,4 @@
-// The ATmega328P firmware that keeps the old stage's rate potentiometer: the
+// The AVR firmware (ATmega328P, ATtiny85) that keeps the old stage's rate potentiometer: the
 // wiper is read on an ADC pin and the engine's ADC table (buildAdcTable, the
 // old stage's own law) sets Timer1's TOP and compare per step. Rendered from
 // templates/atmega328p/adc-control.c.hbs. Facts: ATmega328P datasheet
@@ -83,6 +83,51 @@ export function renderAtmega328pAdc({ table, channel = 0, controlText }: AvrAdcO
       ocr: s.highCounts - 1,
       note:
         s.index === 0 ? "minimum" : s.index === last ? "maximum" : s.index === last / 2 + 0.5 ? "middle" : "",
+    })),
+  });
+}
+
+/** ATtiny85 pot wiring (ATtiny25/45/85 pin configuration, PDIP-8/SOIC-8; from memory). */
+export const ATTINY85_POT_WIRING = [
+  { role: "supply (pot top)", pin: "VCC", packagePin: 8 },
+  { role: "wiper", pin: "PB2 (ADC1)", packagePin: 7 },
+  { role: "ground (pot bottom)", pin: "GND", packagePin: 4 },
+  { role: "filter capacitor 100 nF from the wiper to ground", pin: "PB2", packagePin: 7 },
+] as const;
+
+/** ADC channel -> pin on the ATtiny85 (ADC0 is the reset pin, not offered). */
+const TINY_ADC_PINS: Record<number, string> = { 1: "PB2", 2: "PB4", 3: "PB3" };
+
+export function renderAttiny85Adc({ table, channel = 1, controlText }: AvrAdcOptions): string {
+  const plan = table.plan;
+  if (plan.device !== "attiny85" || plan.timer !== "TIMER0" || plan.mode !== "pwm")
+    throw new Error("The ADC control firmware runs on ATtiny85 Timer0 fast PWM plans.");
+  if (table.adcBits !== 10) throw new Error("adcBits: the ATtiny85 ADC has 10 bits.");
+  const pin = TINY_ADC_PINS[channel];
+  if (!pin) throw new Error("channel: use ADC1 (PB2), ADC2 (PB4) or ADC3 (PB3); ADC0 shares the reset pin.");
+  const adc = avrAdcPrescaler(plan.clockHz);
+  const last = table.steps.length - 1;
+  return render("attiny85/adc-control.c.hbs", {
+    deviceName: "ATtiny85",
+    controlText,
+    clockHz: plan.clockHz,
+    divider: plan.divider,
+    tccr0a: plan.registers.TCCR0A,
+    tccr0b: plan.registers.TCCR0B,
+    countsPerStep: table.countsPerStep,
+    hysteresis: table.hysteresisCounts,
+    adc: {
+      channel,
+      pin,
+      bits: table.adcBits,
+      prescaler: adc.div,
+      clockHz: adc.clockHz,
+      adpsExpr: bitsExpr(adc.bits, ["ADPS2", "ADPS1", "ADPS0"]),
+    },
+    steps: table.steps.map((s) => ({
+      top: s.periodCounts - 1,
+      ocr: s.highCounts - 1,
+      note: s.index === 0 ? "minimum" : s.index === last ? "maximum" : "",
     })),
   });
 }

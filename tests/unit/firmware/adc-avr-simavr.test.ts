@@ -10,7 +10,7 @@
 // wrong law (the table read back to front).
 import { describe, expect, it } from "vitest";
 import { buildAdcTable, type Stage } from "@/lib/engine";
-import { avrAdcPrescaler, renderAtmega328pAdc } from "@/lib/bundle/adc-atmega328p";
+import { avrAdcPrescaler, renderAtmega328pAdc, renderAttiny85Adc } from "@/lib/bundle/adc-avr";
 import { buildAvrHex, runAvrWithAdc } from "@/tests/tools/simavr-adc";
 import { measure } from "@/tests/tools/vcd";
 
@@ -83,5 +83,61 @@ describe("ATmega328P keeps the rate pot (simavr ADC input)", () => {
     );
     expect(bad).not.toBe(source);
     expect(problems(periodsAt(bad, 63), 63).length).toBeGreaterThan(0);
+  });
+});
+
+// ATtiny85: Timer0 fast PWM mode 7 on OC0B (simavr 1.6 drives Timer0's outputs,
+// not Timer1's), ADC1 on PB2 with VCC as reference (ATtiny25/45/85 datasheet,
+// ADC chapter, ADMUX REFS2:0 = 000; ADC clock 50..200 kHz).
+describe("ATtiny85 keeps the rate pot (simavr ADC input)", () => {
+  const T85 = 8e6;
+  const t85 = buildAdcTable({
+    stage,
+    control,
+    device: "attiny85",
+    clockHz: T85,
+    clockSource: "rc8m",
+    timer: "TIMER0",
+    adcBits: 10,
+    steps: 64,
+  });
+  const src85 = renderAttiny85Adc({ table: t85, controlText: "rate pot as Rb" });
+  const count85 = t85.plan.divider / T85;
+
+  function run85(src: string, k: number): number[] {
+    const hex = buildAvrHex(src, "attiny85", T85);
+    const cycles = (6 * t85.steps[k].periodS + 2e-3) * T85;
+    const mv = Math.round((((k + 0.5) * t85.countsPerStep) / 1024) * AVCC_MV);
+    const edges = runAvrWithAdc({
+      hex,
+      mcu: "attiny85",
+      clockHz: T85,
+      port: "B",
+      bit: 1,
+      cycles,
+      channel: 1,
+      millivolts: mv,
+      avccMillivolts: AVCC_MV,
+    });
+    return measure(edges).periods.slice(1);
+  }
+  const judge = (periods: number[], k: number) => {
+    const out: string[] = [];
+    if (periods.length < 3) out.push(`only ${periods.length} periods`);
+    for (const p of periods)
+      if (Math.abs(p - t85.steps[k].wantS) > count85 + 1 / T85)
+        out.push(`period ${p} s, stage ${t85.steps[k].wantS} s (step ${k})`);
+    return out;
+  };
+
+  for (const k of [0, 32, 63])
+    it(`period at step ${k} of 63 is the old stage's within one count`, () => {
+      expect(judge(run85(src85, k), k)).toEqual([]);
+    });
+
+  it("planted fault: the wrong ADC channel is caught", () => {
+    const bad = src85.replace("ADMUX = 1;", "ADMUX = 2;");
+    expect(bad).not.toBe(src85);
+    expect(judge(run85(bad, 63), 63).length).toBeGreaterThan(0);
   });
 });
