@@ -11,6 +11,8 @@ import type { TimerPlan } from "../plan-types";
 import { analyzeStage, validateStage } from "../analyze-stage";
 import { stageAt, validateControl } from "./travel";
 import { controlValue } from "./travel";
+import { taperRotation } from "./taper";
+import type { Taper } from "./types";
 
 export interface AdcTableRequest {
   stage: Stage;
@@ -32,7 +34,13 @@ export interface AdcStep {
   /** first and last ADC count of the step (without hysteresis) */
   fromCount: number;
   toCount: number;
-  /** rotation 0..1 the step stands for: step 0 = fully anticlockwise, the last = fully clockwise */
+  /**
+   * Track fraction 0..1 the step stands for (step 0 = the grounded end, the
+   * last = the supply end). The pot is read as a divider, so the wiper
+   * voltage is this fraction of the reference whatever the taper.
+   */
+  fraction: number;
+  /** the knob rotation giving that fraction with the pot's taper */
   rotation: number;
   /** the stage's own period and high time there */
   wantS: number;
@@ -49,6 +57,8 @@ export interface AdcTable {
   /** the plan of the longest-period step; its divider, timer and mode hold for every step */
   plan: TimerPlan;
   adcBits: number;
+  /** the pot's taper (the middle-by-eye check converts rotation to track fraction with it) */
+  taper: Taper;
   countsPerStep: number;
   hysteresisCounts: number;
   steps: AdcStep[];
@@ -104,14 +114,17 @@ export function buildAdcTable(req: AdcTableRequest): AdcTable {
       `hysteresisCounts must be a whole number from 0 to below half a step (${countsPerStep / 2} counts).`,
     );
   const want = Array.from({ length: req.steps }, (_, k) => {
-    const rotation = k / (req.steps - 1);
+    // The same pot, wired as a divider, puts its track fraction on the ADC:
+    // the step's stage value is seriesR + trackR * fraction for any taper.
+    const fraction = k / (req.steps - 1);
+    const rotation = taperRotation(control.taper, fraction);
     const a = analyzeStage(stageAt(stage, control, rotation), { samples: 1 });
     if (!a.oscillates)
       bad(
         "control",
         `At ${(rotation * 100).toFixed(1)} % of the travel (${control.field} = ${controlValue(control, rotation)} Ω) the stage does not run; keep the whole travel inside its limits.`,
       );
-    return { rotation, periodS: a.periodS, highS: a.highS };
+    return { fraction, rotation, periodS: a.periodS, highS: a.highS };
   });
   const longest = want.reduce((m, w) => (w.periodS > m.periodS ? w : m), want[0]);
   const plan = planTarget({
@@ -138,6 +151,7 @@ export function buildAdcTable(req: AdcTableRequest): AdcTable {
       index: k,
       fromCount: k * countsPerStep,
       toCount: (k + 1) * countsPerStep - 1,
+      fraction: w.fraction,
       rotation: w.rotation,
       wantS: w.periodS,
       wantHighS: w.highS,
@@ -157,6 +171,7 @@ export function buildAdcTable(req: AdcTableRequest): AdcTable {
   return {
     plan,
     adcBits: req.adcBits,
+    taper: control.taper,
     countsPerStep,
     hysteresisCounts: hysteresis,
     steps,

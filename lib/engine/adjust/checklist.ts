@@ -6,6 +6,7 @@ import { analyzeStage } from "../analyze-stage";
 import type { Stage } from "../stage-types";
 import type { AdcTable } from "./adc-table";
 import { stageAt, validateControl } from "./travel";
+import { taperFraction } from "./taper";
 
 /**
  * A knob set by eye to the middle of its travel lands within ±5 % of the
@@ -45,8 +46,9 @@ export function travelChecklist(
   });
   // the steps the wiper's counts fall in anywhere within the middle ± MIDDLE_BY_EYE
   const top = (1 << table.adcBits) - 1;
-  const lo = (0.5 - MIDDLE_BY_EYE) * top;
-  const hi = (0.5 + MIDDLE_BY_EYE) * top;
+  const taper = table.taper;
+  const lo = taperFraction(taper, 0.5 - MIDDLE_BY_EYE) * top;
+  const hi = taperFraction(taper, 0.5 + MIDDLE_BY_EYE) * top;
   const middle = steps.filter((s) => s.toCount >= lo && s.fromCount <= hi);
   const mids = middle.map((s) => s.periodS);
   const centre = steps.reduce(

@@ -74,3 +74,27 @@ describe("bad ADC table requests name their field", () => {
     expect(err.field).toBe("control");
   });
 });
+
+describe("a log pot read as a divider", () => {
+  // Wired as a divider the wiper voltage is the track fraction of the
+  // reference whatever the taper (voltage divider rule), so the table is linear
+  // in the fraction: R = seriesR + trackR * fraction, and the knob rotation for
+  // it follows the log law (10 % of the track at half rotation, common practice).
+  const log = { ...pot, taper: "log" } as const;
+  const table = buildAdcTable({
+    stage: astable,
+    control: log,
+    device: "atmega328p",
+    clockHz: 16e6,
+    adcBits: 10,
+    steps: 64,
+  });
+  it("maps each step's fraction to the stage value without applying the taper twice", () => {
+    for (const s of table.steps) {
+      const rb = 2.2e3 + 47e3 * s.fraction;
+      expect(s.wantS / (LN2 * (1e3 + 2 * rb) * 1e-6)).toBeCloseTo(1, 9);
+    }
+    const at10 = table.steps.find((s) => Math.abs(s.fraction - 0.1) < 0.008)!;
+    expect(at10.rotation).toBeCloseTo(0.5, 1);
+  });
+});
