@@ -127,22 +127,8 @@ export function buildAdcTable(req: AdcTableRequest): AdcTable {
     return { fraction, rotation, periodS: a.periodS, highS: a.highS };
   });
   const longest = want.reduce((m, w) => (w.periodS > m.periodS ? w : m), want[0]);
-  const plan = planTarget({
-    device: req.device,
-    clockHz: req.clockHz,
-    periodS: longest.periodS,
-    highS: longest.highS,
-    mode: "pwm",
-    ...(req.clockSource ? { clockSource: req.clockSource } : {}),
-    ...(req.timer ? { timer: req.timer } : {}),
-  });
-  if (plan.mode !== "pwm" || plan.softwareDivider !== 1)
-    bad(
-      "control",
-      "The longest period of the travel needs a software divider on this clock; a lower clock keeps it in hardware PWM, which the ADC table needs.",
-    );
-  const tick = (plan.divider * plan.modeFactor) / plan.clockHz;
-  const highTick = (plan.divider * plan.modeFactor) / plan.clockHz;
+  const { plan, tick } = commonDividerPlan(req, longest);
+  const highTick = tick;
   const steps: AdcStep[] = want.map((w, k) => {
     const periodCounts = Math.max(2, Math.round(w.periodS / tick));
     const highCounts = Math.min(periodCounts - 1, Math.max(1, Math.round(w.highS / highTick)));
@@ -178,4 +164,39 @@ export function buildAdcTable(req: AdcTableRequest): AdcTable {
     worstStepPpm,
     worstErrorPpm: Math.max(...steps.map((s) => Math.abs(s.errorPpm))),
   };
+}
+
+/** Where the timer settings of a table come from: the target and its clock. */
+export interface TablePlanRequest {
+  device: string;
+  clockHz: number;
+  clockSource?: string;
+  timer?: string;
+}
+
+/**
+ * Plans the longest timing of a table in hardware PWM and returns that plan
+ * with its count length: every entry then uses the same divider, so switching
+ * entries changes only TOP and compare.
+ */
+export function commonDividerPlan(
+  req: TablePlanRequest,
+  longest: { periodS: number; highS: number },
+): { plan: TimerPlan; tick: number } {
+  const plan = planTarget({
+    device: req.device,
+    clockHz: req.clockHz,
+    periodS: longest.periodS,
+    highS: longest.highS,
+    mode: "pwm",
+    ...(req.clockSource ? { clockSource: req.clockSource } : {}),
+    ...(req.timer ? { timer: req.timer } : {}),
+  });
+  if (plan.mode !== "pwm" || plan.softwareDivider !== 1)
+    bad(
+      "control",
+      "The longest period of the travel needs a software divider on this clock; a lower clock keeps it in hardware PWM, which the ADC table needs.",
+    );
+  const tick = (plan.divider * plan.modeFactor) / plan.clockHz;
+  return { plan, tick };
 }

@@ -6,3 +6,7 @@ export { buildAdcTable, stepForCount, DEFAULT_HYSTERESIS_COUNTS } from "./adc-ta
 export type { AdcTable, AdcStep, AdcTableRequest } from "./adc-table";
 export { travelChecklist, trimmerCalibration, MIDDLE_BY_EYE } from "./checklist";
 export type { TravelCheckLine, TrimmerCalibration } from "./checklist";
+export { buildSelectorTable } from "./selector";
+export type { SelectorTable, SelectorPosition } from "./selector";
+export { commonDividerPlan } from "./adc-table";
+export type { TablePlanRequest } from "./adc-table";
