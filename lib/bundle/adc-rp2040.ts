@@ -1,4 +1,4 @@
-// RP2040 firmware part that keeps the old stage's rate potentiometer: the
+// RP2040 firmware part (clk_adc 48 MHz from PLL_USB) that keeps the old stage's rate potentiometer: the
 // engine's ADC table (12-bit, buildAdcTable) as TOP/CC per step, the wiper on
 // GPIO26..29 (ADC0..3). Rendered from templates/rp2040/adc-control.h.hbs.
 // Facts: RP2040 datasheet, ADC section 4.9 (GPIO26..29 = AIN0..3, 12 bits),

@@ -6,8 +6,8 @@
 // stage's period there within one timer count (firmware.md, "Timing of an
 // image"). Old stage: 555 astable, T = ln2*(Ra + 2*Rb)*C (NE555 datasheet, TI
 // SLFS022). ADC registers: RP2040 datasheet section 4.9. rp2040js does not
-// model clk_adc or the pads, so CLK_ADC_CTRL and the pad write are checked in
-// the source only. Planted faults (kept as negative cases): the wrong ADC
+// gate the ADC on clk_adc and has no pads model, so the PLL_USB/CLK_ADC set-up
+// (48 MHz, datasheet 4.9) is checked by formula and the pad write in the source. Planted faults (kept as negative cases): the wrong ADC
 // channel (AINSEL) and the wrong law (table read back to front).
 import { describe, expect, it } from "vitest";
 import { buildAdcTable, type Stage } from "@/lib/engine";
@@ -86,8 +86,17 @@ function problems(ps: number[], k: number): string[] {
 describe("RP2040 keeps the rate pot (rp2040js ADC values)", () => {
   const good = flash(header);
   it("sets the ADC up as the datasheet says", () => {
-    expect(header).toContain("CLK_ADC_CTRL = (1u << 11) | (3u << 5);");
+    expect(header).toContain("CLK_ADC_CTRL = (1u << 11) | (0u << 5);");
     expect(header).toContain("ADC_CS = ADC_CS_EN | (0u << 12) | ADC_CS_START_ONCE;");
+    // clk_adc = 12 MHz / REFDIV * FBDIV / POSTDIV1 / POSTDIV2 (datasheet PLL section) must be 48 MHz,
+    // with the VCO inside 750..1600 MHz
+    const refdiv = Number(/PLL_USB_CS = (\d+)u;/.exec(header)![1]);
+    const fbdiv = Number(/PLL_USB_FBDIV_INT = (\d+)u;/.exec(header)![1]);
+    const [, p1, p2] = /PLL_USB_PRIM = \((\d+)u << 16\) \| \((\d+)u << 12\);/.exec(header)!.map(Number);
+    const vco = (12e6 / refdiv) * fbdiv;
+    expect(vco).toBeGreaterThanOrEqual(750e6);
+    expect(vco).toBeLessThanOrEqual(1600e6);
+    expect(vco / p1 / p2).toBe(48e6);
   });
   for (const k of [0, 32, 63])
     it(`period at step ${k} of 63 is the old stage's within one count`, () => {
