@@ -5,31 +5,18 @@
 // DS40002061, ADC chapter (ADMUX REFS, ADCSRA ADPS, "50 kHz and 200 kHz to get
 // maximum resolution"), Timer/Counter1 chapter (mode 14, CS12:10).
 import type { AdcTable } from "@/lib/engine";
+import { adcClock } from "./adc-clock";
 import { render } from "./render";
 
-/** ADPS2:0 division factors (ADC chapter, ADCSRA); 000 also divides by 2, 001 is used. */
-const ADC_DIVISIONS: readonly { div: number; bits: number }[] = [
-  { div: 2, bits: 1 },
-  { div: 4, bits: 2 },
-  { div: 8, bits: 3 },
-  { div: 16, bits: 4 },
-  { div: 32, bits: 5 },
-  { div: 64, bits: 6 },
-  { div: 128, bits: 7 },
-];
-/** ADC clock range for 10-bit resolution (ADC chapter, prescaling). */
+/** ADC clock range for 10-bit resolution (ADC chapter, prescaling); the rule itself is in adc-clock.ts. */
 export const AVR_ADC_CLOCK_HZ = { min: 50e3, max: 200e3 } as const;
 /** CS12:10 per Timer1 divider (Timer/Counter1 clock select table). */
 const TIMER1_CS: Record<number, number> = { 1: 1, 8: 2, 64: 3, 256: 4, 1024: 5 };
 
 /** The smallest ADC division that keeps the ADC clock at or below 200 kHz, if it is at or above 50 kHz. */
 export function avrAdcPrescaler(clockHz: number): { div: number; bits: number; clockHz: number } {
-  const d = ADC_DIVISIONS.find((x) => clockHz / x.div <= AVR_ADC_CLOCK_HZ.max);
-  if (!d || clockHz / d.div < AVR_ADC_CLOCK_HZ.min)
-    throw new Error(
-      `clockHz: no ADC division puts ${clockHz} Hz inside the ADC's 50..200 kHz; choose another clock.`,
-    );
-  return { ...d, clockHz: clockHz / d.div };
+  const c = adcClock("atmega328p", clockHz);
+  return { div: c.divider, bits: c.bits, clockHz: c.adcClockHz };
 }
 
 function bitsExpr(value: number, names: readonly string[]): string {
