@@ -4,6 +4,7 @@
 import Link from "next/link";
 import type { FieldAsset, FieldBundle } from "@/lib/field/shapes";
 import { CopySha } from "./copy-sha";
+import { VerifyBundle } from "./verify-bundle";
 
 function bySite(assets: FieldAsset[]): [string, FieldAsset[]][] {
   const m = new Map<string, FieldAsset[]>();
@@ -34,6 +35,7 @@ function BundleRow({ b, asset }: { b: FieldBundle; asset: FieldAsset }) {
         <span className="text-sm text-ink-soft">{b.devices.join(", ")}</span>
       </div>
       <CopySha sha256={b.sha256} />
+      <VerifyBundle sha256={b.sha256} label={`bundle r${b.number}`} />
       <div className="flex flex-wrap gap-2">
         <a
           className={current ? "btn-primary" : "btn"}
