@@ -1,5 +1,6 @@
 // A technician at phone width (390 px): the downloaded bundle is checked on the
-// page itself (sha256 in the browser), a tampered copy is caught, no field page
+// page itself (sha256 in the browser), a tampered copy is caught, pass/fail of
+// every checklist line is on screen, no field page
 // scrolls sideways, and the captures list says when, which asset, period and duty.
 import { createHash } from "node:crypto";
 import { readFile } from "node:fs/promises";
@@ -56,6 +57,23 @@ describe("field work at phone width", () => {
     expect(await result.textContent()).toContain("Do not flash it");
 
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+
+    // A failing check (10.4 ms against the nominal 10 ms): every line's verdict
+    // is on screen at 390 px, not behind a sideways scroll.
+    await page.getByLabel("Measured period").fill("10.4 ms");
+    await page.getByLabel("Measured high time").fill("2 ms");
+    await page.getByRole("button", { name: "Record check" }).click();
+    const verdict = page.getByTestId("check-result");
+    await verdict.getByText("Check failed").waitFor({ timeout: 30_000 });
+    const cells = verdict.getByTestId("line-result");
+    expect(await cells.count()).toBeGreaterThan(0);
+    expect(await cells.allTextContents()).toContain("Fail");
+    for (const cell of await cells.all()) {
+      const b = await cell.boundingBox();
+      expect(b!.x + b!.width).toBeLessThanOrEqual(390);
+    }
+    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+
     await page.goto("/field");
     await page.getByTestId(`asset-${retrofit.assetTag}`).waitFor({ timeout: 60_000 });
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
