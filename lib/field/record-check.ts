@@ -2,6 +2,7 @@ import "server-only";
 // Records a field check against an approved revision: the server computes the
 // checklist limits and the verdict; a failed check e-mails the revision's author.
 import { z } from "zod";
+import { dbId } from "@/lib/validation/id";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
@@ -19,11 +20,11 @@ const seconds = z.number().finite().positive("Enter a time greater than zero.");
 
 export const fieldCheckSchema = z
   .object({
-    revisionId: z.number().int().positive(),
+    revisionId: dbId,
     target: z.number().int().min(0).default(0),
     measuredPeriodS: seconds.optional(),
     measuredHighS: seconds.optional(),
-    captureId: z.number().int().positive().optional(),
+    captureId: dbId.optional(),
     notes: z.string().max(4000).default(""),
     signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
   })
