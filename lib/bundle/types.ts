@@ -16,6 +16,8 @@ export interface BundleTargetRequest {
   clockSource?: string;
   /** Package name from DeviceInfo.packages; omitted = the device's default package. */
   package?: string;
+  /** The engineer's required tolerance in percent; the checklist's pass limits follow it. */
+  requiredTolerancePct?: number;
 }
 
 export interface BundleRetrofit {
