@@ -19,6 +19,8 @@ export interface BundleTargetRequest {
   /** engine.md section 6; "trigger" / "zero-cross" bundles are refused until their firmware exists */
   start?: "free" | "trigger" | "zero-cross";
   delayS?: number;
+  /** The engineer's required tolerance in percent; the checklist's pass limits follow it. */
+  requiredTolerancePct?: number;
 }
 
 export interface BundleRetrofit {

@@ -12,7 +12,7 @@ import { formatEng } from "@/lib/engine";
 import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
 import { assertCanReadRevision } from "@/lib/revisions/access";
 import { loadReadableCapture } from "./captures";
-import { judgeCheck, revisionPlans } from "./judge";
+import { judgeCheck, requiredRelativeOf, revisionPlans } from "./judge";
 import { getRevisionWithRetrofit, getUserEmail, insertFieldCheck, listFieldChecks } from "./queries";
 import type { CheckLine, FieldCheckView } from "./shapes";
 
@@ -75,7 +75,13 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
       },
     );
   }
-  const verdict = judgeCheck(plan, revision.analysis, { periodS, highS }, input.target);
+  const verdict = judgeCheck(
+    plan,
+    revision.analysis,
+    { periodS, highS },
+    input.target,
+    requiredRelativeOf(revision.plans, input.target),
+  );
 
   const author = verdict.passed ? null : await getUserEmail({ id: revision.createdBy });
   const id = await db.transaction(async (tx) => {
