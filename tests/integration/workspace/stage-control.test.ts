@@ -66,4 +66,33 @@ describe("stage control storage", () => {
     await eng(`/api/v1/retrofits/${id}`, { method: "PATCH", body: { stage: UJT_STAGE, control: null } });
     expect((await detail()).control).toBeNull();
   });
+
+  it("generation carries a stored pot into plan.json and the checklist", async () => {
+    // NE555 astable (TI SLFS022): T = ln2 (Ra + 2 Rb) C; Rb is the rate pot.
+    const res = await eng("/api/v1/retrofits", {
+      method: "POST",
+      body: {
+        ...newRetrofitBody(),
+        stage: { kind: "timer555-astable", supplyV: "5", ra: "1k", rb: "10k", c: "100n" },
+        control: { kind: "pot", field: "rb", seriesR: "2k2", trackR: "47k", taper: "linear" },
+        targets: [
+          { device: "atmega328p", clockSource: "crystal", clockHz: "16M", mode: "pwm", timer: "TIMER1" },
+        ],
+      },
+    });
+    expect(res.status).toBe(201);
+    const rid = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
+    const gen = await eng(`/api/v1/retrofits/${rid}/revisions`, { method: "POST" });
+    expect(gen.status).toBe(201);
+    const rev = ((await gen.json()) as { revision: { id: number } }).revision.id;
+    const plan = (await (await eng(`/api/v1/revisions/${rev}/files/plan.json`)).json()) as {
+      control: { field: string };
+      targets: { control: { steps: number; worstStepPpm: number } }[];
+    };
+    expect(plan.control.field).toBe("rb");
+    expect(plan.targets[0].control.steps).toBe(64);
+    expect(plan.targets[0].control.worstStepPpm).toBeGreaterThan(0);
+    const checklist = await (await eng(`/api/v1/revisions/${rev}/files/atmega328p/CHECKLIST.md`)).text();
+    expect(checklist).toMatch(/\| P3 \| Turn the control fully clockwise/);
+  });
 });
