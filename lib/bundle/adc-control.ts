@@ -19,6 +19,7 @@ import {
   renderAttiny85Adc,
 } from "./adc-avr";
 import { renderRp2040Adc, RP2040_POT_WIRING } from "./adc-rp2040";
+import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import type { BundleSpec, BundleTargetRequest } from "./types";
 
 /** Table entries over the travel: 64 steps of a 10-bit ADC are 16 counts each, room for the hysteresis. */
@@ -50,6 +51,14 @@ const ADC_DEVICES: Record<string, AdcDevice> = {
     part: (table, controlText) => ({
       path: "src/main.c",
       content: renderAttiny85Adc({ table, controlText }),
+    }),
+  },
+  stm32g031: {
+    adcBits: 12,
+    wiring: STM32G031_POT_WIRING,
+    part: (table, controlText) => ({
+      path: "src/adc_control.h",
+      content: renderStm32g031Adc({ table, controlText }),
     }),
   },
   rp2040: {

@@ -67,7 +67,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
     },
   },
   {
-    // the old 555's Rb is a rate pot (demo values): kept on the AVRs and the RP2040, a note elsewhere
+    // the old 555's Rb is a rate pot (demo values): kept on the AVRs, STM32G031 and RP2040, a note on the MSP430
     name: "kept-pot-555",
     spec: {
       retrofit: retrofit(false),
@@ -79,6 +79,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
         { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
         { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
         { device: "stm32g031", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+{ device: "msp430g2553", clockHz: 1e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
       ],
     },
   },

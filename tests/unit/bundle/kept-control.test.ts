@@ -40,9 +40,9 @@ describe("kept rate pot in the bundle", () => {
   });
 
   it("a target without ADC firmware keeps the fixed value and says so", () => {
-    expect(text("stm32g031/src/main.c")).not.toContain("adc_control");
-    expect(text("stm32g031/CHECKLIST.md")).toMatch(/does not read the rate pot yet/);
-    expect(plan.targets[3].control).toMatchObject({ kept: false });
+    expect(text("msp430g2553/src/main.c")).not.toContain("adc_control");
+    expect(text("msp430g2553/CHECKLIST.md")).toMatch(/does not read the rate pot yet/);
+    expect(plan.targets[4].control).toMatchObject({ kept: false });
   });
 
   it("pin map names supply, wiper, ground and filter capacitor", () => {

@@ -9,6 +9,7 @@
 #include <stdint.h>
 #include "stm32g031_regs.h"
 #include "timing.h"
+#include "adc_control.h"
 
 static void clock_init(void)
 {
@@ -43,7 +44,8 @@ int main(void)
   /* ARPE = 1 (buffered ARR), CEN = 1: starts the counter -> 0x00000081 */
   TIM2->CR1 = (1u << 7) | (1u << 0);
 
+  adc_control_init();
   for (;;) {
-    __asm__ volatile("wfi");
+    adc_control_poll();
   }
 }
