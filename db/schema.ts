@@ -76,6 +76,8 @@ export const stages = pgTable("stages", {
   kind: text("kind").notNull(),
   // Stage fields in SI units, exactly the engine's Stage shape (tolerances included).
   values: jsonb("values").notNull(),
+  // The adjustable value (pot, trimmer, selector) as the engine's StageControl; null = all values fixed.
+  control: jsonb("control"),
   // Set when the stage came from a capture's measurement.
   captureId: integer("capture_id"),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),

@@ -1,6 +1,7 @@
 // spec -> files. Data flows one way: stage -> analysis -> plans -> files.
 // Nothing here reads the clock, a random source or object key order.
 import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } from "@/lib/engine";
+import { controlOnTarget } from "./adc-control";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { sha256Hex } from "./hash";
@@ -96,6 +97,16 @@ export function buildBundleSourcesWith(
     const limits = checklistLimits(plan, analysis, {
       requiredRelative: typeof pct === "number" && pct > 0 ? pct / 100 : undefined,
     });
+    const adjust = controlOnTarget(spec, spec.targets[i], i);
+    const kept = adjust?.kept ? adjust.control : null;
+    // the ADC firmware drives the table plan's timer and pin: the pin map and checks must name the same
+    const tp = kept?.table.plan;
+    if (tp && (plan.mode !== "pwm" || plan.modeFactor !== tp.modeFactor || plan.pin.port !== tp.pin.port))
+      throw new EngineError(
+        "invalid-request",
+        `target ${i + 1} (${plan.device}): the kept rate pot runs ${tp.timer} in PWM on ${tp.pin.port}; plan this target as pwm on ${tp.timer}.`,
+        `targets.${i}`,
+      );
     const own = images?.byFolder[folders[i]] ?? [];
     const imageList = own.map((f) => ({
       path: f.path,
@@ -129,10 +140,17 @@ export function buildBundleSourcesWith(
       hasImages: imageList.length > 0,
       flashing: view.flashing ?? [],
       limitsEnd: limits.length + 3,
+      // the stage's control on this target: kept (ADC firmware), or not kept with the reason
+      adc: kept
+        ? { wiring: kept.wiring, lines: kept.lines, summary: kept.summary, steps: kept.table.steps.length }
+        : false,
+      adcNote: adjust && !adjust.kept ? adjust.note : "",
     };
     for (const [out, tpl] of Object.entries(entry.files)) {
+      if (kept && kept.file.path === out) continue;
       files.push({ path: `${folders[i]}/${out}`, content: render(`${plan.device}/${tpl}`, ctx) });
     }
+    if (kept) files.push({ path: `${folders[i]}/${kept.file.path}`, content: kept.file.content });
     for (const name of ["PINMAP.md", "pinmap.csv", "CHECKLIST.md"]) {
       files.push({ path: `${folders[i]}/${name}`, content: render(`common/${name}.hbs`, ctx) });
     }
@@ -143,6 +161,7 @@ export function buildBundleSourcesWith(
       limits,
       images: imageList,
       flashing: view.flashing ?? [],
+      control: kept ? kept.summary : adjust && !adjust.kept ? { kept: false, note: adjust.note } : null,
     };
   });
   files.push({
@@ -152,12 +171,14 @@ export function buildBundleSourcesWith(
       retrofit,
       revision: spec.revision,
       stage: spec.stage,
+      ...(spec.control ? { control: spec.control } : {}),
       analysis,
       targets: targets.map((t, i) => ({
         folder: t.folder,
         request: spec.targets[i],
         plan: t.plan,
         limits: t.limits,
+        ...(t.control ? { control: t.control } : {}),
       })),
     }),
   });

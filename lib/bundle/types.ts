@@ -1,6 +1,7 @@
 // Shapes of the bundle contract (engine.md section 5). `BundlePlan` lists the
 // TimerPlan fields the generator reads, so a hand-built plan and the solver's
 // plan are interchangeable here.
+import type { StageControl } from "@/lib/engine/adjust/types";
 import type { Stage, StageAnalysis } from "@/lib/engine/stage-types";
 
 export type PlanMode = "pwm" | "toggle" | "isr";
@@ -35,6 +36,8 @@ export interface BundleSpec {
   retrofit: BundleRetrofit;
   revision: number;
   stage: Stage;
+  /** the stage's adjustable value; a pot is read on an ADC pin by targets with ADC firmware */
+  control?: StageControl | null;
   targets: BundleTargetRequest[];
 }
 

@@ -1,18 +1,26 @@
 // Bodies of the workspace API: create, update and the stateless plan request.
 import { z } from "zod";
 import { retrofitFactsPatchSchema, retrofitFactsSchema } from "./retrofit";
+import { refineControl } from "./control";
 import { stageSchema } from "./stage";
 import { targetsSchema } from "./target";
 
-export const createRetrofitSchema = retrofitFactsSchema.extend({
-  stage: stageSchema.optional(),
-  targets: targetsSchema.optional(),
-});
+// control: the stage's adjustable value (null clears it); it needs the stage beside it.
+export const createRetrofitSchema = retrofitFactsSchema
+  .extend({
+    stage: stageSchema.optional(),
+    control: z.unknown().optional(),
+    targets: targetsSchema.optional(),
+  })
+  .transform(refineControl);
 
-export const updateRetrofitSchema = retrofitFactsPatchSchema.extend({
-  stage: stageSchema.optional(),
-  targets: targetsSchema.optional(),
-});
+export const updateRetrofitSchema = retrofitFactsPatchSchema
+  .extend({
+    stage: stageSchema.optional(),
+    control: z.unknown().optional(),
+    targets: targetsSchema.optional(),
+  })
+  .transform(refineControl);
 
 export const planBodySchema = z.object({
   stage: stageSchema,
