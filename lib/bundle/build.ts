@@ -4,6 +4,7 @@ import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } 
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { avrTriggerView } from "./trigger-avr";
+import { triggerDoc } from "./trigger-doc";
 import { sha256Hex } from "./hash";
 import { checklistLimits, limitBasis } from "./limits";
 import { oldOutputNote } from "./old-output";
@@ -122,6 +123,7 @@ export function buildBundleSourcesWith(
       pin: view.pin,
       x: view.extra,
       trigger: TRIGGER_DEVICES.has(plan.device) ? avrTriggerView(plan) : null,
+      triggerDoc: triggerDoc(plan),
       soft: { wide: plan.softwareDivider > 65535 },
       cautions,
       hasCautions: cautions.length > 0,
