@@ -55,6 +55,7 @@ for (const r of DEMO_RETROFITS) {
       mode: t.mode ?? null,
       timer: t.timer ?? null,
       requiredTolerancePct: t.requiredTolerancePct ?? null,
+      trigger: t.trigger ?? null,
     })),
   );
 }

@@ -4,6 +4,8 @@ import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } 
 import { controlOnTarget } from "./adc-control";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
+import { avrTriggerView } from "./trigger-avr";
+import { triggerDoc } from "./trigger-doc";
 import { sha256Hex } from "./hash";
 import { checklistLimits, limitBasis } from "./limits";
 import { oldOutputNote } from "./old-output";
@@ -12,6 +14,9 @@ import { render } from "./render";
 import { cautionLines } from "./safety";
 import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
+
+/** Devices whose templates make triggered and zero-cross firmware. */
+const TRIGGER_DEVICES = new Set(["atmega328p", "attiny85"]);
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;
 
@@ -41,13 +46,13 @@ function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
         `targets.${index}`,
       );
     }
-    // The templates make free-running firmware only: a triggered or zero-cross
-    // plan must never be shipped as a free-running image.
-    const start = (plan as { start?: string }).start;
-    if (start !== undefined && start !== "free")
+    // Triggered and zero-cross firmware exists for the AVRs only (trigger-avr.ts);
+    // elsewhere such a plan must never be shipped as a free-running image.
+    const start = plan.start;
+    if (start !== undefined && start !== "free" && !TRIGGER_DEVICES.has(plan.device))
       throw new EngineError(
         "invalid-request",
-        `target ${index + 1} (${request.device}): no firmware for triggered starts yet (start "${start}"); plan it free-running or wait for triggered-start firmware.`,
+        `target ${index + 1} (${request.device}): no firmware for triggered starts on ${DEVICES[plan.device]?.name ?? plan.device} yet (start "${start}"); plan it free-running or use an ATmega328P or ATtiny85.`,
         `targets.${index}`,
       );
     return plan;
@@ -128,6 +133,8 @@ export function buildBundleSourcesWith(
       writes: view.writes,
       pin: view.pin,
       x: view.extra,
+      trigger: TRIGGER_DEVICES.has(plan.device) ? avrTriggerView(plan) : null,
+      triggerDoc: triggerDoc(plan),
       soft: { wide: plan.softwareDivider > 65535 },
       cautions,
       hasCautions: cautions.length > 0,

@@ -17,9 +17,11 @@ export interface BundleTargetRequest {
   clockSource?: string;
   /** Package name from DeviceInfo.packages; omitted = the device's default package. */
   package?: string;
-  /** engine.md section 6; "trigger" / "zero-cross" bundles are refused until their firmware exists */
+  /** engine.md section 6; "trigger" / "zero-cross" firmware exists for the AVRs, other devices refuse it */
   start?: "free" | "trigger" | "zero-cross";
   delayS?: number;
+  edge?: "rising" | "falling" | "both";
+  retrigger?: "ignore" | "restart";
   /** The engineer's required tolerance in percent; the checklist's pass limits follow it. */
   requiredTolerancePct?: number;
 }
@@ -81,6 +83,19 @@ export interface BundlePlan {
   jitterS?: number;
   clockAccuracyPpm?: number;
   clockSource?: string;
+  activeLow?: boolean;
+  // Triggered plans (engine.md section 6; TimerPlan's fields of the same names).
+  start?: "free" | "trigger" | "zero-cross";
+  delayS?: number;
+  delayCounts?: number;
+  latencyS?: number;
+  latencyCycles?: number;
+  latencyBasis?: string;
+  input?: BundlePin;
+  edge?: "rising" | "falling" | "both";
+  edgeSetting?: string;
+  retrigger?: "ignore" | "restart";
+  inputConditioning?: string;
 }
 
 export type { Stage, StageAnalysis };

@@ -83,6 +83,44 @@ export const GOLDEN_CASES: GoldenCase[] = [
       ],
     },
   },
+  {
+    // mains zero-cross gate firing on both AVRs (50 Hz, both half cycles), with the cautions
+    name: "zero-cross-avr",
+    spec: {
+      retrofit: retrofit(true),
+      revision: 1,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 47e3, timingC: 100e-9, eta: 0.63 },
+      targets: [
+        { device: "atmega328p", clockHz: 16e6, periodS: 0.01, highS: 1e-4, mode: "isr",
+            start: "zero-cross", delayS: 0.004 },
+        { device: "attiny85", clockHz: 8e6, periodS: 0.01, highS: 1e-4, mode: "isr",
+            start: "zero-cross", delayS: 0.004 },
+      ],
+    },
+  },
+  {
+    // triggered one-shot from a contact (falling edge), both retrigger rules
+    name: "trigger-avr",
+    spec: {
+      retrofit: retrofit(false),
+      revision: 1,
+      stage: { kind: "timer555-monostable", r: 100e3, c: 1e-6 },
+      targets: [
+        {
+          device: "atmega328p",
+          clockHz: 16e6,
+          periodS: 0.5,
+          highS: 0.11,
+          mode: "isr",
+          start: "trigger",
+          delayS: 0,
+          retrigger: "restart",
+        },
+        { device: "attiny85", clockHz: 8e6, periodS: 0.5, highS: 0.11, mode: "isr",
+          start: "trigger", delayS: 0.01 },
+      ],
+    },
+  },
 ];
 
 export const GOLDEN_ROOT = new URL("./", import.meta.url).pathname;
