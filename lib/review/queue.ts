@@ -20,6 +20,6 @@ export async function reviewQueue() {
     .from(revisions)
     .innerJoin(retrofits, eq(retrofits.id, revisions.retrofitId))
     .innerJoin(users, eq(users.id, revisions.createdBy))
-    .where(eq(revisions.state, "in_review"))
+    .where(eq(revisions.state, "awaiting_check"))
     .orderBy(desc(revisions.submittedAt), desc(revisions.id));
 }

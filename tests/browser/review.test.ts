@@ -93,7 +93,7 @@ describe("review loop in the browser", () => {
       .getByTestId("comment")
       .filter({ hasText: `${path}:5` })
       .waitFor();
-    expect((await stateOf(r1.id)).state).toBe("changes_requested");
+    expect((await stateOf(r1.id)).state).toBe("returned");
 
     // Engineer: change RB 10 kΩ -> 4.7 kΩ, generate r2, submit.
     await setStageValue(rf.id, "rb", 4.7e3);
@@ -131,7 +131,7 @@ describe("review loop in the browser", () => {
     expect(await rev.page.getByTestId("inline-comment").count()).toBe(0);
 
     await decide(rev.page, r2.id, "Approve r2", "Values and sources check out.", "Approved");
-    expect((await stateOf(r2.id)).state).toBe("approved");
+    expect((await stateOf(r2.id)).state).toBe("released");
 
     const changes = await waitForMail(
       engineer.email,

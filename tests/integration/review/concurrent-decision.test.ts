@@ -42,10 +42,7 @@ describe("concurrent decisions", () => {
     for (let round = 0; round < 6; round++) {
       const rev = await inReview();
       // Opposite decisions, so the final state tells which one won.
-      const [x, y] = await Promise.all([
-        decide(r1, rev.id, "approved"),
-        decide(r2, rev.id, "changes_requested"),
-      ]);
+      const [x, y] = await Promise.all([decide(r1, rev.id, "released"), decide(r2, rev.id, "returned")]);
       const statuses = [x.status, y.status].sort();
       expect(statuses).toEqual([200, 409]);
       const winner = x.status === 200 ? x : y;
@@ -64,7 +61,7 @@ describe("concurrent decisions", () => {
         .from(auditEvents)
         .where(and(eq(auditEvents.subjectType, "revision"), eq(auditEvents.subjectId, rev.id)));
       expect(
-        events.filter((e) => e.action === "revision.approve" || e.action === "revision.request-changes"),
+        events.filter((e) => e.action === "revision.release" || e.action === "revision.return"),
       ).toHaveLength(1);
     }
   });
@@ -72,11 +69,11 @@ describe("concurrent decisions", () => {
   it("supersedes the older approved revision when a newer one is approved", async () => {
     const rf = await makeRetrofit();
     const first = await inReview(rf.id);
-    expect((await decide(r1, first.id, "approved")).status).toBe(200);
+    expect((await decide(r1, first.id, "released")).status).toBe(200);
     await setStageValue(rf.id, "rb", 4.7e3);
     const second = await inReview(rf.id);
     expect((await stateOf(first.id)).supersededAt).toBeNull();
-    expect((await decide(r2, second.id, "approved")).status).toBe(200);
+    expect((await decide(r2, second.id, "released")).status).toBe(200);
     expect((await stateOf(first.id)).supersededAt).not.toBeNull();
     expect((await stateOf(second.id)).supersededAt).toBeNull();
   });

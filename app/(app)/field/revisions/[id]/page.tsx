@@ -26,7 +26,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
   if (!found || !canReadRevision(user, found.revision, found.retrofit)) notFound();
   const { revision, retrofit } = found;
   const devices = ((revision.spec as { targets?: { device: string }[] }).targets ?? []).map((t) => t.device);
-  const approved = revision.state === "approved";
+  const approved = revision.state === "released";
 
   return (
     <div className="flex flex-col gap-6">
