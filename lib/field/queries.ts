@@ -34,7 +34,7 @@ function devicesOf(spec: unknown): string[] {
   return Array.isArray(targets) ? targets.map((t) => String(t?.device ?? "")) : [];
 }
 
-/** Approved revisions (current and superseded) grouped by retrofit, ordered by site and asset. */
+/** Released revisions (current and superseded) grouped by retrofit, ordered by site and asset. */
 export async function listFieldAssets({ user }: { user: AuthUser }): Promise<FieldAsset[]> {
   const rows = await db
     .select({ r: revisionColumns, f: retrofits })

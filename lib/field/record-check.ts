@@ -45,7 +45,7 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
   if (revision.state !== "released") {
     throw new ApiError(
       "conflict",
-      `r${revision.number} is ${revision.state.replace("_", " ")}; only approved revisions are checked in the field.`,
+      `r${revision.number} is ${revision.state.replace("_", " ")}; only revisions released for the field are checked there.`,
     );
   }
 

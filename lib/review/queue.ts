@@ -1,4 +1,4 @@
-// The review queue: revisions in review, newest submission first.
+// The check queue: revisions awaiting check, newest first.
 import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { db } from "@/db/client";

@@ -1,4 +1,4 @@
-// Submitting a draft for review. The state moves with a conditional UPDATE
+// Sending a prepared revision for checking. The state moves with a conditional UPDATE
 // (WHERE state = 'prepared'), so a double click or two engineers at once submit
 // it exactly once; the audit event and the mail to the reviewers are written
 // in the same transaction and sent after it commits.
