@@ -41,11 +41,11 @@ const decide = (s: Session, id: number, decision: string, note = "") =>
   });
 
 describe("review authorisation", () => {
-  it("refuses self-approval: an admin cannot approve a revision they generated", async () => {
+  it("refuses a self-check: an admin cannot release a revision they generated", async () => {
     const r = await submitted(admin.id);
-    const res = await decide(adm, r.id, "released");
+    const res = await decide(adm, r.id, "release");
     expect(res.status).toBe(403);
-    expect(res.body.error.message).toMatch(/You generated r1; another reviewer must decide/);
+    expect(res.body.error.message).toMatch(/You generated r1; another reviewer must check it/);
     expect((await stateOf(r.id)).state).toBe("awaiting_check");
   });
 
@@ -56,14 +56,14 @@ describe("review authorisation", () => {
       body: JSON.stringify({ body: "looks fine" }),
     });
     expect(c.status).toBe(403);
-    expect((await decide(tech, r.id, "released")).status).toBe(403);
-    expect((await decide(tech, r.id, "returned")).status).toBe(403);
+    expect((await decide(tech, r.id, "release")).status).toBe(403);
+    expect((await decide(tech, r.id, "return")).status).toBe(403);
     expect((await stateOf(r.id)).state).toBe("awaiting_check");
   });
 
   it("refuses an engineer deciding, and a reviewer submitting", async () => {
     const r = await submitted();
-    const res = await decide(eng, r.id, "released");
+    const res = await decide(eng, r.id, "release");
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe("forbidden");
     const rf = await makeRetrofit();
@@ -75,23 +75,23 @@ describe("review authorisation", () => {
 
   it("lets a reviewer approve another user's revision and an admin decide one they did not generate", async () => {
     const r = await submitted();
-    const ok = await decide(rev, r.id, "released", "Registers match the datasheet.");
+    const ok = await decide(rev, r.id, "release", "Registers match the datasheet.");
     expect(ok.status).toBe(200);
     const row = await stateOf(r.id);
     expect(row.state).toBe("released");
     expect(row.decidedAt).not.toBeNull();
     const r2 = await submitted();
-    expect((await decide(adm, r2.id, "returned", "Use TIMER2.")).status).toBe(200);
+    expect((await decide(adm, r2.id, "return", "Use TIMER2.")).status).toBe(200);
   });
 
-  it("decides only from in review: a draft cannot be decided, a decided revision cannot be resubmitted", async () => {
+  it("decides only from awaiting check: a prepared revision cannot be decided, a decided revision cannot be sent again", async () => {
     const rf = await makeRetrofit();
     const draft = await generate(rf.id, engineer.id);
-    const early = await decide(rev, draft.id, "released");
+    const early = await decide(rev, draft.id, "release");
     expect(early.status).toBe(409);
-    expect(early.body.error.message).toMatch(/draft, not in review/);
+    expect(early.body.error.message).toMatch(/prepared, not awaiting check/);
     await eng.json(`/api/v1/revisions/${draft.id}/submit`, { method: "POST" });
-    expect((await decide(rev, draft.id, "returned")).status).toBe(200);
+    expect((await decide(rev, draft.id, "return")).status).toBe(200);
     const again = await eng.json<Err>(`/api/v1/revisions/${draft.id}/submit`, { method: "POST" });
     expect(again.status).toBe(409);
     expect(again.body.error.message).toMatch(/Generate a new revision/);
