@@ -7,6 +7,8 @@ import { retrofits } from "@/db/schema";
 import { FileDiff, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
 import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
+import { BoardTable } from "@/components/diff/board-table";
+import { boardChanges } from "@/lib/diff/board";
 import { RevisionPicker } from "@/components/diff/revision-picker";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -148,6 +150,13 @@ export default async function ComparePage({ params, searchParams }: Props) {
         → r{b.number} ({STATE_LABELS[b.state as keyof typeof STATE_LABELS]}). Comments go to r{b.number};
         choose a line number to comment on it.
       </p>
+
+      <section aria-labelledby="board-h">
+        <h2 id="board-h" className="mb-2 text-lg font-semibold">
+          What the board does
+        </h2>
+        <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} />
+      </section>
 
       <section aria-labelledby="numbers-h">
         <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
