@@ -74,6 +74,11 @@ describe("review loop in the browser", () => {
     const mainC = rev.page.locator("section[data-file$='src/main.c']");
     await mainC.waitFor(SLOW);
     const path = (await mainC.getAttribute("data-file"))!;
+    // Files start closed (a six-device revision stays short); the index opens the one it jumps to.
+    expect(await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).isVisible()).toBe(
+      false,
+    );
+    await rev.page.getByRole("navigation", { name: "File index" }).getByRole("link", { name: path }).click();
     await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).click();
     await rev.page
       .getByLabel(`Comment on ${path} line 5`, { exact: true })

@@ -4,7 +4,7 @@ import { eq } from "drizzle-orm";
 import { notFound } from "next/navigation";
 import { db } from "@/db/client";
 import { retrofits } from "@/db/schema";
-import { FileDiff, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
+import { FileDiff, fileAnchor, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
 import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
 import { BoardTable } from "@/components/diff/board-table";
@@ -147,8 +147,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
         {a.number === 0
           ? "Nothing before"
           : `r${a.number} (${STATE_LABELS[a.state as keyof typeof STATE_LABELS]})`}{" "}
-        → r{b.number} ({STATE_LABELS[b.state as keyof typeof STATE_LABELS]}). Comments go to r{b.number};
-        choose a line number to comment on it.
+        → r{b.number} ({STATE_LABELS[b.state as keyof typeof STATE_LABELS]}). Comments go to r{b.number}; open
+        a file and choose a line number to comment on it.
       </p>
 
       <section aria-labelledby="board-h">
@@ -170,6 +170,25 @@ export default async function ComparePage({ params, searchParams }: Props) {
           Files ({changed.length} changed, {unchanged.length} unchanged)
         </h2>
         {changed.length === 0 && <p className="panel text-ink-soft">Every file is byte-identical.</p>}
+        {changed.length > 0 && (
+          <nav aria-label="File index" className="panel">
+            <p className="mb-1 text-sm text-ink-soft">
+              Each file opens on its own; a name below jumps to it and opens it.
+            </p>
+            <ul className="num columns-1 text-sm sm:columns-2">
+              {files.map((f) => (
+                <li key={f.path}>
+                  <a className="underline" href={`#${fileAnchor(f.path)}`}>
+                    {f.path}
+                  </a>{" "}
+                  <span className="text-ink-muted">
+                    ({f.added} new, {f.removed} gone{f.notes.length ? `, ${f.notes.length} comment(s)` : ""})
+                  </span>
+                </li>
+              ))}
+            </ul>
+          </nav>
+        )}
         {files.map((f) => (
           <FileDiff
             key={f.path}
