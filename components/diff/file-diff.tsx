@@ -2,6 +2,7 @@
 
 import { useEffect, useState } from "react";
 import { CommentForm } from "@/components/review/comment-form";
+import { fileAnchor } from "@/lib/diff/anchor";
 import type { DiffRow, FileStatus } from "@/lib/diff/types";
 
 export type HighlightedRow = DiffRow & { html?: string };
@@ -29,9 +30,6 @@ const ROW_STYLE = {
   context: "border-l-4 border-transparent",
 } as const;
 const TAG = { added: "new", removed: "gone", context: "" } as const;
-
-/** The element id of a file's section, for the file index on the compare page. */
-export const fileAnchor = (path: string) => `file-${path.replace(/[^A-Za-z0-9_-]/g, "-")}`;
 
 /** One file's changes: changed lines with context, folds, comments of the newer revision inline.
  *  Closed by default so a six-device revision stays a short page; the file index opens it. */
