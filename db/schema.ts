@@ -22,13 +22,14 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({
 });
 
 export const roleEnum = pgEnum("role", ["admin", "engineer", "reviewer", "technician"]);
+// Values renamed in place by drizzle/*_review-state-words-data.sql; see lib/review/words.ts.
 export const revisionStateEnum = pgEnum("revision_state", [
-  "draft",
-  "in_review",
-  "approved",
-  "changes_requested",
+  "prepared",
+  "awaiting_check",
+  "released",
+  "returned",
 ]);
-export const reviewDecisionEnum = pgEnum("review_decision", ["approved", "changes_requested"]);
+export const reviewDecisionEnum = pgEnum("review_decision", ["release", "return"]);
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
 
@@ -131,7 +132,7 @@ export const revisions = pgTable(
       .notNull()
       .references(() => retrofits.id),
     number: integer("number").notNull(),
-    state: revisionStateEnum("state").notNull().default("draft"),
+    state: revisionStateEnum("state").notNull().default("prepared"),
     // Snapshot of the inputs and results: the exact BundleSpec and plans.
     spec: jsonb("spec").notNull(),
     analysis: jsonb("analysis").notNull(),

@@ -3,10 +3,10 @@ import { STATE_LABELS } from "@/lib/review/states";
 
 // Words carry the state; the colour only repeats it.
 const STYLE: Record<RevisionState, string> = {
-  draft: "border-paper-line bg-paper-sunk text-ink-soft",
-  in_review: "border-accent bg-accent-soft text-accent-strong",
-  approved: "border-ok bg-ok-soft text-ok",
-  changes_requested: "border-hazard bg-hazard-soft text-hazard",
+  prepared: "border-paper-line bg-paper-sunk text-ink-soft",
+  awaiting_check: "border-accent bg-accent-soft text-accent-strong",
+  released: "border-ok bg-ok-soft text-ok",
+  returned: "border-hazard bg-hazard-soft text-hazard",
 };
 
 export function StateBadge({ state, superseded }: { state: RevisionState; superseded?: boolean }) {

@@ -10,7 +10,7 @@ import { mailOutbox } from "@/db/schema";
 import { env } from "@/lib/env";
 
 export type MailKind =
-  "review-requested" | "review-decision" | "revision-approved" | "invitation" | "field-check-failed";
+  "review-requested" | "review-decision" | "revision-released" | "invitation" | "field-check-failed";
 
 export type OutgoingMail = { kind: MailKind; to: string; subject: string; body: string };
 
