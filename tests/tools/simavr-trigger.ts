@@ -1,42 +1,12 @@
 // Builds a triggered AVR bundle target with its own Makefile and runs it in
 // tests/tools/simavr/trigger-trace.c, which drives the input pin; returns the
 // input and output changes by CPU cycle.
-import { createHash } from "node:crypto";
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { BundleFile } from "@/lib/bundle";
 import { mustRun, requireTool } from "./require-tool";
-
-const SOURCE = path.join(process.cwd(), "tests/tools/simavr/trigger-trace.c");
-
-function harness(): string {
-  requireTool("gcc", "gcc");
-  const src = readFileSync(SOURCE);
-  const dir = path.join(tmpdir(), `cg-trig-${createHash("sha256").update(src).digest("hex").slice(0, 12)}`);
-  const bin = path.join(dir, "trigger-trace");
-  if (!existsSync(bin)) {
-    mkdirSync(dir, { recursive: true });
-    const tmp = `${bin}.${process.pid}`;
-    mustRun(
-      "gcc",
-      [
-        "-O1",
-        "-Wall",
-        "-Werror",
-        "-I/usr/include/simavr",
-        "-I/usr/include/simavr/avr",
-        "-o",
-        tmp,
-        SOURCE,
-        "-lsimavr",
-      ],
-      dir,
-    );
-    mustRun("mv", [tmp, bin], dir);
-  }
-  return bin;
-}
+import { simavrHarness } from "./simavr";
 
 /** Writes the folder's files, optionally edits src/main.c (planted faults), runs make; returns the hex path. */
 export function buildFolder(files: BundleFile[], folder: string, edit?: (mainC: string) => string): string {
@@ -81,7 +51,7 @@ export function runTriggered(
   },
 ): TriggerRun {
   const r = mustRun(
-    harness(),
+    simavrHarness("trigger-trace"),
     [
       o.mcu,
       String(o.clockHz),
