@@ -2,9 +2,10 @@
 // same stage and target schemas the API validates with).
 import { z } from "zod";
 import type { TargetRow } from "@/db/schema";
-import { formatEng, type GateDrive, type Stage, type StageControl } from "@/lib/engine";
+import type { GateDrive, Stage, StageControl } from "@/lib/engine";
 import type { TargetTrigger } from "@/lib/revisions/types";
 import { controlToForm, refineControl, type ControlFormValues } from "@/lib/validation/control";
+import { formText } from "@/lib/validation/form-text";
 import { stageSchema, stageToForm, type StageFormValues } from "@/lib/validation/stage";
 import { targetsSchema, type Target, type TargetInput } from "@/lib/validation/target";
 
@@ -14,7 +15,7 @@ export const workspaceSchema = z
 export type WorkspaceForm = { stage: StageFormValues; control: ControlFormValues; targets: TargetInput[] };
 export type WorkspaceOut = { stage: Stage; control?: StageControl | null; targets: Target[] };
 
-const sText = (v: number | undefined) => (v === undefined ? "" : formatEng(v, "", 6).replace("µ", "u"));
+const sText = (v: number | undefined) => (v === undefined ? "" : formText(v));
 
 export function targetToForm(t: TargetRow): TargetInput {
   const tr = (t.trigger ?? {}) as TargetTrigger;
@@ -22,7 +23,7 @@ export function targetToForm(t: TargetRow): TargetInput {
   return {
     device: t.device,
     clockSource: t.clockSource,
-    clockHz: formatEng(t.clockHz, "", 6).replace("µ", "u"),
+    clockHz: formText(t.clockHz),
     clockAccuracyPpm: t.clockAccuracyPpm === null ? "" : String(t.clockAccuracyPpm),
     mode: (t.mode ?? "") as TargetInput["mode"],
     timer: t.timer ?? "",

@@ -2,8 +2,6 @@
 import type { RevisionState } from "@/db/schema";
 import { STATE_WORDS } from "@/lib/review/words";
 
-const LABEL: Record<RevisionState, string> = STATE_WORDS;
-
 const TONE: Record<RevisionState, string> = {
   prepared: "border-paper-line text-ink-soft",
   awaiting_check: "border-accent text-ink",
@@ -14,10 +12,8 @@ const TONE: Record<RevisionState, string> = {
 export function StateBadge({ state, superseded }: { state: RevisionState; superseded?: boolean }) {
   return (
     <span className={`inline-block rounded border px-1.5 py-0.5 text-xs font-medium ${TONE[state]}`}>
-      {LABEL[state]}
+      {STATE_WORDS[state]}
       {superseded ? " (superseded)" : ""}
     </span>
   );
 }
-
-export const STATE_LABEL = LABEL;

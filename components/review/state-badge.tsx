@@ -1,5 +1,5 @@
 import type { RevisionState } from "@/db/schema";
-import { STATE_LABELS } from "@/lib/review/states";
+import { STATE_WORDS } from "@/lib/review/words";
 
 // Words carry the state; the colour only repeats it.
 const STYLE: Record<RevisionState, string> = {
@@ -15,7 +15,7 @@ export function StateBadge({ state, superseded }: { state: RevisionState; supers
       className={`inline-block rounded border px-2 py-0.5 text-xs font-medium ${STYLE[state]}`}
       data-testid="revision-state"
     >
-      {STATE_LABELS[state]}
+      {STATE_WORDS[state]}
       {superseded ? " · superseded" : ""}
     </span>
   );

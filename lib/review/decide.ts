@@ -15,8 +15,8 @@ import { releasedMail, decisionMail } from "@/lib/mail/messages";
 import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
-import { decideRefusal, STATE_LABELS, type Decision } from "./states";
-import { DECISION_STATE, REVIEW_ACTIONS } from "./words";
+import { decideRefusal, type Decision } from "./states";
+import { DECISION_STATE, REVIEW_ACTIONS, STATE_WORDS } from "./words";
 
 export async function decideRevision(user: AuthUser, revisionId: number, decision: Decision, note = "") {
   const result = await db.transaction(async (tx) => {
@@ -90,7 +90,7 @@ async function lostRace(revisionId: number, number: number): Promise<ApiError> {
     .from(revisions)
     .leftJoin(users, eq(users.id, revisions.decidedBy))
     .where(eq(revisions.id, revisionId));
-  const state = row ? STATE_LABELS[row.state].toLowerCase() : "changed";
+  const state = row ? STATE_WORDS[row.state].toLowerCase() : "changed";
   const by = row?.by ? ` by ${row.by}` : "";
   return new ApiError(
     "conflict",
@@ -117,7 +117,7 @@ async function newerCandidate(tx: Tx, retrofitId: number, number: number): Promi
   if (!newer) return null;
   return new ApiError(
     "conflict",
-    `r${newer.number} is newer and ${STATE_LABELS[newer.state].toLowerCase()}; only the newest revision can become the field revision. Release or return r${newer.number}, or return r${number}.`,
+    `r${newer.number} is newer and ${STATE_WORDS[newer.state].toLowerCase()}; only the newest revision can become the field revision. Release or return r${newer.number}, or return r${number}.`,
   );
 }
 

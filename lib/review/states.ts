@@ -10,8 +10,6 @@ import { STATE_WORDS, type DecisionWord } from "./words";
 
 export type Decision = DecisionWord;
 
-export const STATE_LABELS: Record<RevisionState, string> = STATE_WORDS;
-
 export const canSubmitFrom = (state: RevisionState) => state === "prepared";
 export const canDecideFrom = (state: RevisionState) => state === "awaiting_check";
 
@@ -25,7 +23,7 @@ export function submitRefusal(user: Actor, rev: Subject): ApiError | null {
   if (!canSubmitFrom(rev.state)) {
     return new ApiError(
       "conflict",
-      `r${rev.number} is ${STATE_LABELS[rev.state].toLowerCase()}; only a prepared revision can be sent for checking. Generate a new revision instead.`,
+      `r${rev.number} is ${STATE_WORDS[rev.state].toLowerCase()}; only a prepared revision can be sent for checking. Generate a new revision instead.`,
     );
   }
   return null;
@@ -41,7 +39,7 @@ export function decideRefusal(user: Actor, rev: Subject): ApiError | null {
   if (!canDecideFrom(rev.state)) {
     return new ApiError(
       "conflict",
-      `r${rev.number} is ${STATE_LABELS[rev.state].toLowerCase()}, not awaiting check; there is nothing to decide.`,
+      `r${rev.number} is ${STATE_WORDS[rev.state].toLowerCase()}, not awaiting check; there is nothing to decide.`,
     );
   }
   return null;

@@ -13,8 +13,8 @@ import { reviewRequestedMail } from "@/lib/mail/messages";
 import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { activeReviewers } from "./recipients";
-import { STATE_LABELS, submitRefusal } from "./states";
-import { REVIEW_ACTIONS } from "./words";
+import { submitRefusal } from "./states";
+import { REVIEW_ACTIONS, STATE_WORDS } from "./words";
 
 export async function submitRevision(user: AuthUser, revisionId: number, note = "") {
   const result = await db.transaction(async (tx) => {
@@ -31,7 +31,7 @@ export async function submitRevision(user: AuthUser, revisionId: number, note = 
       const fresh = await loadRevisionForReview(revisionId, tx);
       throw new ApiError(
         "conflict",
-        `r${revision.number} was submitted a moment ago by someone else; it is now ${STATE_LABELS[fresh.revision.state].toLowerCase()}.`,
+        `r${revision.number} was submitted a moment ago by someone else; it is now ${STATE_WORDS[fresh.revision.state].toLowerCase()}.`,
       );
     }
     await recordAudit(

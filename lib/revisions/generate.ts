@@ -33,11 +33,11 @@ import {
   analyzeStage,
   ENGINE_VERSION,
   isEngineError,
-  validateControl,
   validateStage,
   type Stage,
   type StageControl,
 } from "@/lib/engine";
+import { storedControl } from "@/lib/validation/control";
 import { planOne, planRequestOf, snapshotOf } from "./plan-targets";
 import type { StoredPlan } from "./types";
 
@@ -124,15 +124,7 @@ async function loadInputs(tx: Reader, retrofitId: number, lock: boolean): Promis
     if (r.budget && r.budget.requiredPpm > 0) request.requiredTolerancePct = r.budget.requiredPpm / 1e4;
     requests.push(request);
   });
-  let control: StageControl | null = null;
-  if (stageRow.control !== null && stageRow.control !== undefined) {
-    try {
-      control = validateControl(stage, stageRow.control);
-    } catch {
-      control = null;
-    }
-  }
-  return { retrofit, analysis, stage, control, stored, requests };
+  return { retrofit, analysis, stage, control: storedControl(stage, stageRow.control), stored, requests };
 }
 
 function specOf(inputs: Inputs, number: number): BundleSpec {

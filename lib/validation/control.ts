@@ -2,14 +2,8 @@
 // workspace form send it: numbers in SI or engineering-notation text. The
 // engine's validateControl has the last word, so the form, the API and the
 // bundle refuse the same controls, each message on its field.
-import {
-  formatEng,
-  isEngineError,
-  parseEng,
-  validateControl,
-  type Stage,
-  type StageControl,
-} from "@/lib/engine";
+import { isEngineError, parseEng, validateControl, type Stage, type StageControl } from "@/lib/engine";
+import { formText } from "./form-text";
 
 /** Form text of a control; kind "none" means a fixed value. */
 export interface ControlFormValues {
@@ -109,11 +103,6 @@ export function readControl(stage: Stage, raw: unknown): ControlRead {
   }
 }
 
-// Engineering prefix without the unit, as the stage fields show it.
-function text(v: number): string {
-  return formatEng(v, "", 6).replace("µ", "u");
-}
-
 /** A stored control as form text (47 kΩ -> "47k"), so a round trip reads the same. */
 export function controlToForm(control: StageControl | null): ControlFormValues {
   if (!control) return { ...NO_CONTROL };
@@ -122,16 +111,26 @@ export function controlToForm(control: StageControl | null): ControlFormValues {
       ...NO_CONTROL,
       kind: "selector",
       field: control.field,
-      values: control.values.map((v) => text(v)).join(", "),
+      values: control.values.map((v) => formText(v)).join(", "),
     };
   return {
     ...NO_CONTROL,
     kind: control.kind,
     field: control.field,
-    seriesR: control.seriesR ? text(control.seriesR) : "",
-    trackR: text(control.trackR),
+    seriesR: control.seriesR ? formText(control.seriesR) : "",
+    trackR: formText(control.trackR),
     taper: control.kind === "pot" ? control.taper : "linear",
   };
+}
+
+/** A stored control as the stage reads it now: null when there is none or it no longer fits the stage. */
+export function storedControl(stage: Stage, raw: unknown): StageControl | null {
+  if (raw === null || raw === undefined) return null;
+  try {
+    return validateControl(stage, raw);
+  } catch {
+    return null;
+  }
 }
 
 /** Zod refinement step: reads `control` against `stage`, issues on the control's field. */

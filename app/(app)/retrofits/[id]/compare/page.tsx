@@ -20,7 +20,7 @@ import { compareSnapshots } from "@/lib/diff";
 import { defaultPair, loadPair, revisionsOf } from "@/lib/diff/load";
 import type { DiffRow } from "@/lib/diff/types";
 import { COMMENT_ROLES, listComments } from "@/lib/review/comments";
-import { STATE_LABELS } from "@/lib/review/states";
+import { STATE_WORDS } from "@/lib/review/words";
 
 export const metadata: Metadata = { title: "Compare revisions" };
 
@@ -147,9 +147,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
       <p className="text-sm text-ink-soft">
         {a.number === 0
           ? "Nothing before"
-          : `r${a.number} (${STATE_LABELS[a.state as keyof typeof STATE_LABELS]})`}{" "}
-        → r{b.number} ({STATE_LABELS[b.state as keyof typeof STATE_LABELS]}). Comments go to r{b.number}; open
-        a file and choose a line number to comment on it.
+          : `r${a.number} (${STATE_WORDS[a.state as keyof typeof STATE_WORDS]})`}{" "}
+        → r{b.number} ({STATE_WORDS[b.state as keyof typeof STATE_WORDS]}). Comments go to r{b.number}; open a
+        file and choose a line number to comment on it.
       </p>
 
       <section aria-labelledby="board-h">
