@@ -18,6 +18,8 @@ import {
   renderAtmega328pAdc,
   renderAttiny85Adc,
 } from "./adc-avr";
+import { MSP430G2553_POT_WIRING, renderMsp430g2553Adc } from "./adc-msp430g2553";
+import { PIC12F1840_POT_WIRING, renderPic12f1840Adc } from "./adc-pic12f1840";
 import { renderRp2040Adc, RP2040_POT_WIRING } from "./adc-rp2040";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import type { BundleSpec, BundleTargetRequest } from "./types";
@@ -29,8 +31,8 @@ interface AdcDevice {
   adcBits: 10 | 12;
   timer?: string;
   wiring: readonly { role: string; pin: string; packagePin: number }[];
-  /** output path under the target folder -> rendered part */
-  part: (table: AdcTable, controlText: string) => { path: string; content: string };
+  /** output paths under the target folder -> rendered parts */
+  part: (table: AdcTable, controlText: string) => { path: string; content: string }[];
 }
 
 const ADC_DEVICES: Record<string, AdcDevice> = {
@@ -39,42 +41,73 @@ const ADC_DEVICES: Record<string, AdcDevice> = {
     timer: "TIMER1",
     wiring: ATMEGA328P_POT_WIRING,
     // a whole program: it takes main.c's place
-    part: (table, controlText) => ({
-      path: "src/main.c",
-      content: renderAtmega328pAdc({ table, controlText }),
-    }),
+    part: (table, controlText) => [
+      {
+        path: "src/main.c",
+        content: renderAtmega328pAdc({ table, controlText }),
+      },
+    ],
   },
   attiny85: {
     adcBits: 10,
     timer: "TIMER0",
     wiring: ATTINY85_POT_WIRING,
-    part: (table, controlText) => ({
-      path: "src/main.c",
-      content: renderAttiny85Adc({ table, controlText }),
-    }),
+    part: (table, controlText) => [
+      {
+        path: "src/main.c",
+        content: renderAttiny85Adc({ table, controlText }),
+      },
+    ],
   },
   stm32g031: {
     adcBits: 12,
     wiring: STM32G031_POT_WIRING,
-    part: (table, controlText) => ({
-      path: "src/adc_control.h",
-      content: renderStm32g031Adc({ table, controlText }),
-    }),
+    part: (table, controlText) => [
+      {
+        path: "src/adc_control.h",
+        content: renderStm32g031Adc({ table, controlText }),
+      },
+    ],
+  },
+  pic12f1840: {
+    adcBits: 10,
+    timer: "TIMER2",
+    wiring: PIC12F1840_POT_WIRING,
+    // the image's assembly part (main.asm includes it) and the same steps in C (main.c includes it)
+    part: (table, controlText) => {
+      const { asm, c } = renderPic12f1840Adc({ table, controlText });
+      return [
+        { path: "src/adc_control.inc", content: asm },
+        { path: "src/adc_control.h", content: c },
+      ];
+    },
+  },
+  msp430g2553: {
+    adcBits: 10,
+    wiring: MSP430G2553_POT_WIRING,
+    part: (table, controlText) => [
+      {
+        path: "src/adc_control.h",
+        content: renderMsp430g2553Adc({ table, controlText }),
+      },
+    ],
   },
   rp2040: {
     adcBits: 12,
     wiring: RP2040_POT_WIRING,
     // a header main.c includes (main.c.hbs, `adc`)
-    part: (table, controlText) => ({
-      path: "src/adc_control.h",
-      content: renderRp2040Adc({ table, controlText }),
-    }),
+    part: (table, controlText) => [
+      {
+        path: "src/adc_control.h",
+        content: renderRp2040Adc({ table, controlText }),
+      },
+    ],
   },
 };
 
 export interface KeptControl {
   table: AdcTable;
-  file: { path: string; content: string };
+  files: { path: string; content: string }[];
   wiring: { role: string; pin: string; packagePin: number }[];
   lines: TravelCheckLine[];
   /** plan.json entry */
@@ -141,7 +174,7 @@ export function controlOnTarget(
     kept: true,
     control: {
       table,
-      file: dev.part(table, describe(c)),
+      files: dev.part(table, describe(c)),
       wiring: dev.wiring.map((w) => ({ ...w })),
       lines: travelChecklist(table),
       summary: {

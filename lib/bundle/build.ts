@@ -154,10 +154,10 @@ export function buildBundleSourcesWith(
       adcNote: adjust && !adjust.kept ? adjust.note : "",
     };
     for (const [out, tpl] of Object.entries(entry.files)) {
-      if (kept && kept.file.path === out) continue;
+      if (kept?.files.some((f) => f.path === out)) continue;
       files.push({ path: `${folders[i]}/${out}`, content: render(`${plan.device}/${tpl}`, ctx) });
     }
-    if (kept) files.push({ path: `${folders[i]}/${kept.file.path}`, content: kept.file.content });
+    for (const f of kept?.files ?? []) files.push({ path: `${folders[i]}/${f.path}`, content: f.content });
     for (const name of ["PINMAP.md", "pinmap.csv", "CHECKLIST.md"]) {
       files.push({ path: `${folders[i]}/${name}`, content: render(`common/${name}.hbs`, ctx) });
     }

@@ -52,9 +52,31 @@ export interface PinSample {
   level: 0 | 1;
 }
 
-/** Runs to `fromCycle`, then samples RA<bit> after each of `steps` instructions. */
-export function tracePin(dir: string, bit: number, fromCycle: number, steps: number): PinSample[] {
-  const cmds = [`break c ${fromCycle}`, "run"];
+/**
+ * A voltage on one RA pin through gpsim's module library (libgpsim_modules,
+ * "pullup": a source of `volts` behind 100 ohm), for the ADC: gpsim 0.31
+ * converts the pin voltage against VDD (5 V) when the pin is analog.
+ */
+export function analogSource(pin: string, volts: number): string[] {
+  return [
+    "module library libgpsim_modules",
+    "module load pullup wiper_src",
+    `wiper_src.voltage = ${volts}`,
+    "wiper_src.resistance = 100",
+    "node wiper_node",
+    `attach wiper_node wiper_src.pin ${pin.toLowerCase()}`,
+  ];
+}
+
+/** Runs to `fromCycle`, then samples RA<bit> after each of `steps` instructions; `setup` runs first (stimuli). */
+export function tracePin(
+  dir: string,
+  bit: number,
+  fromCycle: number,
+  steps: number,
+  setup: string[] = [],
+): PinSample[] {
+  const cmds = [...setup, `break c ${fromCycle}`, "run"];
   for (let i = 0; i < steps; i++) cmds.push("step", "cycles", "porta");
   const out = gpsim(dir, cmds);
   const samples: PinSample[] = [];
@@ -88,9 +110,14 @@ export function latchWrites(dir: string, cycles: number): LatchWrite[] {
   return got;
 }
 
-/** Register values (gpsim's lower-case symbols) after running `cycles` instruction cycles. */
-export function registersAt(dir: string, cycles: number, names: string[]): Record<string, number> {
-  const out = gpsim(dir, [`break c ${cycles}`, "run", ...names.map((n) => n.toLowerCase())]);
+/** Register values (gpsim's lower-case symbols) after running `cycles` instruction cycles; `setup` runs first. */
+export function registersAt(
+  dir: string,
+  cycles: number,
+  names: string[],
+  setup: string[] = [],
+): Record<string, number> {
+  const out = gpsim(dir, [...setup, `break c ${cycles}`, "run", ...names.map((n) => n.toLowerCase())]);
   const regs: Record<string, number> = {};
   for (const n of names) {
     const m = new RegExp(`\\b${n.toLowerCase()} = 0x([0-9A-Fa-f]+)`).exec(out);

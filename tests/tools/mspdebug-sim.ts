@@ -17,6 +17,12 @@ export interface SimOptions {
   calibration?: boolean;
   /** Add the Watchdog Timer+ model (default true). */
   watchdog?: boolean;
+  /**
+   * Bytes written into the simulator's memory before running. The simulator
+   * has no ADC10, but a byte written at ADC10MEM (0x01B4) stays there, so an
+   * image reads it as its conversion result.
+   */
+  memory?: { addr: number; bytes: number[] }[];
 }
 
 export interface IsrStop {
@@ -62,6 +68,8 @@ function devices(o: SimOptions): string[] {
   if (o.watchdog !== false) cmds.push("simio add wdt wdt");
   if (o.calibration !== false)
     cmds.push(`mw 0x10f8 ${SIM_CALIBRATION.map((b) => `0x${b.toString(16)}`).join(" ")}`);
+  for (const m of o.memory ?? [])
+    cmds.push(`mw 0x${m.addr.toString(16)} ${m.bytes.map((b) => `0x${b.toString(16)}`).join(" ")}`);
   return cmds;
 }
 

@@ -59,5 +59,15 @@ typedef union {
   struct { unsigned TMR1IF : 1, TMR2IF : 1, CCP1IF : 1, SSP1IF : 1, TXIF : 1, RCIF : 1, ADIF : 1, TMR1GIF : 1; };
 } PIR1bits_t;
 extern volatile PIR1bits_t PIR1bits;
+/* ADC chapter: ADCON0: - CHS<4:0> GO/nDONE ADON; ADCON1: ADFM ADCS<2:0> - - ADPREF<1:0>; ADRESH, ADRESL */
+extern volatile uint8_t ADCON0, ADCON1, ADRESH, ADRESL;
+typedef union {
+  struct { unsigned ADON : 1, GO_nDONE : 1, CHS : 5, : 1; };
+} ADCON0bits_t;
+extern volatile ADCON0bits_t ADCON0bits;
+typedef union {
+  struct { unsigned ADPREF : 2, : 2, ADCS : 3, ADFM : 1; };
+} ADCON1bits_t;
+extern volatile ADCON1bits_t ADCON1bits;
 
 #endif

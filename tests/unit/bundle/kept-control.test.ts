@@ -39,10 +39,24 @@ describe("kept rate pot in the bundle", () => {
     expect(text("rp2040/src/adc_control.h")).toMatch(/PWM_CH_DIV\(ADJ_SLICE\)/);
   });
 
-  it("a target without ADC firmware keeps the fixed value and says so", () => {
-    expect(text("msp430g2553/src/main.c")).not.toContain("adc_control");
-    expect(text("msp430g2553/CHECKLIST.md")).toMatch(/does not read the rate pot yet/);
-    expect(plan.targets[4].control).toMatchObject({ kept: false });
+  it("the MSP430G2553 and PIC12F1840 include their ADC parts; the PIC's image part is assembly", () => {
+    expect(text("msp430g2553/src/main.c")).toContain('#include "adc_control.h"');
+    expect(text("msp430g2553/src/adc_control.h")).toMatch(/INCH_4 \| SHS_0/);
+    expect(text("pic12f1840/src/main.asm")).toContain('#include "adc_control.inc"');
+    expect(text("pic12f1840/src/adc_control.inc")).toMatch(/adj_pr2:\n\s+brw/);
+    expect(text("pic12f1840/src/main.c")).toContain('#include "adc_control.h"');
+    expect(plan.targets[4].control).toMatchObject({ steps: 64 });
+    expect(plan.targets[5].control).toMatchObject({ steps: 64 });
+  });
+
+  it("a control that no target reads on an ADC keeps the fixed value and says so", () => {
+    const trim = buildBundleSources({
+      ...spec,
+      control: { kind: "selector", field: "c", values: [100e-9, 220e-9] },
+    });
+    const cl = String(trim.find((f) => f.path === "msp430g2553/CHECKLIST.md")!.content);
+    expect(cl).toMatch(/is not carried over by this firmware/);
+    expect(trim.some((f) => f.path.endsWith("adc_control.h"))).toBe(false);
   });
 
   it("pin map names supply, wiper, ground and filter capacitor", () => {

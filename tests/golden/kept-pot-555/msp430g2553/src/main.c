@@ -10,6 +10,7 @@
 #include <msp430.h>
 #include <stdint.h>
 #include "timing.h"
+#include "adc_control.h"
 
 int main(void)
 {
@@ -37,8 +38,8 @@ int main(void)
   /* SMCLK, divide by 1, up mode; starts the timer -> 0x0210 */
   TA0CTL = TASSEL_2 | ID_0 | MC_1;
 
-  /* Sleep in LPM0: CPU off, SMCLK and ACLK keep the timer running. */
-  __asm__ volatile("bis.w %0, r2\n\tnop" : : "i"(LPM0_bits));
+  adc_control_init();
   for (;;) {
+    adc_control_poll();
   }
 }
