@@ -5,13 +5,16 @@
 // checklist lines at minimum/middle/maximum and the plan.json entry.
 import {
   buildAdcTable,
+  buildSelectorTable,
   EngineError,
   isEngineError,
   travelChecklist,
   type AdcTable,
+  type SelectorTable,
   type StageControl,
-  type TravelCheckLine,
+  type TimerPlan,
 } from "@/lib/engine";
+import { formatEng } from "@/lib/engine/units";
 import {
   ATMEGA328P_POT_WIRING,
   ATTINY85_POT_WIRING,
@@ -21,7 +24,9 @@ import {
 import { MSP430G2553_POT_WIRING, renderMsp430g2553Adc } from "./adc-msp430g2553";
 import { PIC12F1840_POT_WIRING, renderPic12f1840Adc } from "./adc-pic12f1840";
 import { renderRp2040Adc, RP2040_POT_WIRING } from "./adc-rp2040";
+import { atmega328pSelectorWiring, renderAtmega328pSelector, SELECTOR_DEBOUNCE_MS } from "./selector-avr";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
+import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
 
 /** Table entries over the travel: 64 steps of a 10-bit ADC are 16 counts each, room for the hysteresis. */
@@ -105,24 +110,50 @@ const ADC_DEVICES: Record<string, AdcDevice> = {
   },
 };
 
+/** A checklist line of a kept control: expected period and its pass limits. */
+export interface ControlCheckLine {
+  instruction: string;
+  expectedS: number;
+  minS: number;
+  maxS: number;
+}
+
+export interface PotSummary {
+  kind: "pot";
+  field: string;
+  adcBits: number;
+  steps: number;
+  countsPerStep: number;
+  hysteresisCounts: number;
+  worstStepPpm: number;
+  worstErrorPpm: number;
+  periodCounts: number[];
+  highCounts: number[];
+}
+
+export interface SelectorSummary {
+  kind: "selector";
+  field: string;
+  positions: number;
+  debounceMs: number;
+  values: number[];
+  periodCounts: number[];
+  highCounts: number[];
+  worstErrorPpm: number;
+}
+
 export interface KeptControl {
-  table: AdcTable;
+  /** the table's plan: its timer, mode and pin hold for every step or position */
+  table: { plan: TimerPlan };
+  /** steps (pot) or positions (selector) */
+  count: number;
+  /** headings of the pin map and checklist sections */
+  titles: { wiring: string; checks: string; intro: string };
   files: { path: string; content: string }[];
   wiring: { role: string; pin: string; packagePin: number }[];
-  lines: TravelCheckLine[];
+  lines: ControlCheckLine[];
   /** plan.json entry */
-  summary: {
-    kind: "pot";
-    field: string;
-    adcBits: number;
-    steps: number;
-    countsPerStep: number;
-    hysteresisCounts: number;
-    worstStepPpm: number;
-    worstErrorPpm: number;
-    periodCounts: number[];
-    highCounts: number[];
-  };
+  summary: PotSummary | SelectorSummary;
 }
 
 export type ControlOnTarget = { kept: true; control: KeptControl } | { kept: false; note: string } | null;
@@ -141,6 +172,8 @@ export function controlOnTarget(
 ): ControlOnTarget {
   const c = spec.control;
   if (!c) return null;
+  if (c.kind === "selector" && SELECTOR_DEVICES[request.device])
+    return selectorOnTarget(spec, request, index, c);
   const dev = ADC_DEVICES[request.device];
   if (c.kind !== "pot" || !dev)
     return {
@@ -174,6 +207,13 @@ export function controlOnTarget(
     kept: true,
     control: {
       table,
+      count: table.steps.length,
+      titles: {
+        wiring: "Rate pot wiring (the old board's control, kept)",
+        checks: `Rate pot checks (the kept control: ${table.steps.length} steps, worst step ${ppm(table.worstStepPpm)})`,
+        intro:
+          "The fixed-period lines above hold with the pot where the old board was set; these check its travel.",
+      },
       files: dev.part(table, describe(c)),
       wiring: dev.wiring.map((w) => ({ ...w })),
       lines: travelChecklist(table),
@@ -188,6 +228,100 @@ export function controlOnTarget(
         worstErrorPpm: table.worstErrorPpm,
         periodCounts: table.steps.map((s) => s.periodCounts),
         highCounts: table.steps.map((s) => s.highCounts),
+      },
+    },
+  };
+}
+
+type SelectorControl = Extract<StageControl, { kind: "selector" }>;
+
+interface SelectorDevice {
+  timer: string;
+  wiring: (table: SelectorTable, valueText: (v: number) => string) => KeptControl["wiring"];
+  part: (
+    table: SelectorTable,
+    startIndex: number,
+    controlText: string,
+  ) => { path: string; content: string }[];
+}
+
+/** Devices whose firmware reads a selector switch on input pins. */
+const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
+  atmega328p: {
+    timer: "TIMER1",
+    wiring: atmega328pSelectorWiring,
+    // a whole program: it takes main.c's place
+    part: (table, startIndex, controlText) => [
+      { path: "src/main.c", content: renderAtmega328pSelector({ table, startIndex, controlText }) },
+    ],
+  },
+};
+
+function selectorOnTarget(
+  spec: BundleSpec,
+  request: BundleTargetRequest,
+  index: number,
+  c: SelectorControl,
+): ControlOnTarget {
+  const dev = SELECTOR_DEVICES[request.device];
+  let table: SelectorTable;
+  try {
+    table = buildSelectorTable({
+      stage: spec.stage,
+      control: c,
+      device: request.device,
+      clockHz: request.clockHz,
+      clockSource: request.clockSource,
+      timer: dev.timer,
+    });
+  } catch (e) {
+    const why = e instanceof Error ? e.message : String(e);
+    throw new EngineError(
+      isEngineError(e) ? e.code : "invalid-request",
+      `target ${index + 1} (${request.device}) cannot keep the selector: ${why}`,
+      `targets.${index}`,
+    );
+  }
+  const plan = table.plan;
+  // stage fields name their unit by their last letter in plain words: a capacitance ends in "c" or "C"
+  const valueText = (v: number) => `${c.field} = ${formatEng(v, /c$/i.test(c.field) ? "F" : "ohm")}`;
+  const stored = (spec.stage as unknown as Record<string, number>)[c.field];
+  const startIndex = Math.max(
+    0,
+    c.values.findIndex((v) => v === stored),
+  );
+  // pass limits: the checklist's rule for the fixed lines (clock accuracy, jitter, one timer count)
+  const countS = (plan.divider * plan.modeFactor) / plan.clockHz;
+  const widen = (v: number) => v * plan.clockAccuracyPpm * 1e-6 + (plan.jitterS ?? 0) + countS;
+  const lines = table.positions.map((p) => ({
+    instruction: `Turn the selector to position ${p.position} (${valueText(p.value)}), wait a moment and measure the period.`,
+    expectedS: p.periodS,
+    minS: p.periodS - widen(p.periodS),
+    maxS: p.periodS + widen(p.periodS),
+  }));
+  const files = dev.part(table, startIndex, describe(c));
+  return {
+    kept: true,
+    control: {
+      table,
+      count: table.positions.length,
+      titles: {
+        wiring: "Selector switch wiring (the old board's control, kept)",
+        checks: `Selector checks (the kept control: ${table.positions.length} positions, one line each)`,
+        intro: `The fixed-period lines above hold at the position of the stored value; these check every position. ${table.noContactRule}`,
+      },
+      files,
+      wiring: dev.wiring(table, valueText),
+      lines,
+      summary: {
+        kind: "selector",
+        field: c.field,
+        positions: table.positions.length,
+        debounceMs: SELECTOR_DEBOUNCE_MS,
+        values: table.positions.map((p) => p.value),
+        periodCounts: table.positions.map((p) => p.periodCounts),
+        highCounts: table.positions.map((p) => p.highCounts),
+        worstErrorPpm: Math.max(...table.positions.map((p) => Math.abs(p.errorPpm))),
       },
     },
   };

@@ -149,7 +149,13 @@ export function buildBundleSourcesWith(
       limitsEnd: limits.length + 3,
       // the stage's control on this target: kept (ADC firmware), or not kept with the reason
       adc: kept
-        ? { wiring: kept.wiring, lines: kept.lines, summary: kept.summary, steps: kept.table.steps.length }
+        ? {
+            wiring: kept.wiring,
+            lines: kept.lines,
+            summary: kept.summary,
+            steps: kept.count,
+            titles: kept.titles,
+          }
         : false,
       adcNote: adjust && !adjust.kept ? adjust.note : "",
     };

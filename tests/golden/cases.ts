@@ -85,6 +85,20 @@ export const GOLDEN_CASES: GoldenCase[] = [
     },
   },
   {
+    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4); the ATtiny85 says it is not
+    name: "kept-selector-555",
+    spec: {
+      retrofit: retrofit(false),
+      revision: 1,
+      stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
+      control: { kind: "selector", field: "c", values: [47e-9, 100e-9, 220e-9] },
+      targets: [
+        { device: "atmega328p", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER1" },
+        { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
+      ],
+    },
+  },
+  {
     // mains zero-cross gate firing on both AVRs (50 Hz, both half cycles), with the cautions
     name: "zero-cross-avr",
     spec: {

@@ -1,0 +1,96 @@
+// ATmega328P firmware that keeps the old stage's selector switch: one input
+// pin per position (internal pull-up, the switch's common contact to ground,
+// so the selected position reads low), debounced, and the engine's selector
+// table (buildSelectorTable: the old stage's own period per switched value,
+// one Timer1 divider) as ICR1/OCR1A per position. Rendered from
+// templates/atmega328p/selector.c.hbs. Facts: ATmega328P datasheet
+// DS40002061, I/O-Ports chapter (DDxn = 0 and PORTxn = 1: input with pull-up;
+// PINx reads the pin), Timer/Counter1 (mode 14, TOV1 at TOP, ICR1 not double
+// buffered). Package pins of PD2..PD7 on PDIP-28 from memory.
+import type { SelectorTable } from "@/lib/engine";
+import { render } from "./render";
+
+/** Input pins in position order: PD2..PD7 (PDIP-28 pins 4, 5, 6, 11, 12, 13; from memory). */
+const ATMEGA328P_SELECTOR_PINS = [
+  { bit: 2, packagePin: 4 },
+  { bit: 3, packagePin: 5 },
+  { bit: 4, packagePin: 6 },
+  { bit: 5, packagePin: 11 },
+  { bit: 6, packagePin: 12 },
+  { bit: 7, packagePin: 13 },
+] as const;
+
+/**
+ * Debounce: a position is taken once the pins read the same for this many
+ * 1 ms samples. Rotary and slide switches settle within a few milliseconds
+ * (common practice, no source).
+ */
+export const SELECTOR_DEBOUNCE_MS = 20;
+
+const TIMER1_CS: Record<number, string> = {
+  1: "(1 << CS10)",
+  8: "(1 << CS11)",
+  64: "(1 << CS11) | (1 << CS10)",
+  256: "(1 << CS12)",
+  1024: "(1 << CS12) | (1 << CS10)",
+};
+
+export function atmega328pSelectorWiring(
+  table: SelectorTable,
+  valueText: (v: number) => string,
+): { role: string; pin: string; packagePin: number }[] {
+  const pins = ATMEGA328P_SELECTOR_PINS.slice(0, table.positions.length);
+  return [
+    ...table.positions.map((p, i) => ({
+      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up`,
+      pin: `PD${pins[i].bit}`,
+      packagePin: pins[i].packagePin,
+    })),
+    { role: "switch common contact to ground", pin: "GND", packagePin: 8 },
+  ];
+}
+
+export function renderAtmega328pSelector({
+  table,
+  startIndex,
+  controlText,
+}: {
+  table: SelectorTable;
+  /** position used until a contact reads low: the stage's stored value */
+  startIndex: number;
+  controlText: string;
+}): string {
+  const plan = table.plan;
+  if (plan.device !== "atmega328p" || plan.timer !== "TIMER1" || plan.mode !== "pwm")
+    throw new Error("The selector firmware runs on ATmega328P Timer1 fast PWM plans.");
+  const n = table.positions.length;
+  if (n < 2 || n > ATMEGA328P_SELECTOR_PINS.length)
+    throw new Error(
+      `control.values: the ATmega328P reads 2 to ${ATMEGA328P_SELECTOR_PINS.length} positions (PD2..PD7).`,
+    );
+  if (plan.pin.port.startsWith("PD")) throw new Error(`targets: ${plan.pin.port} is a selector input.`);
+  const cs = TIMER1_CS[plan.divider];
+  if (!cs) throw new Error(`divider ${plan.divider} is not a Timer1 clock select.`);
+  const pins = ATMEGA328P_SELECTOR_PINS.slice(0, n);
+  return render("atmega328p/selector.c.hbs", {
+    deviceName: "ATmega328P",
+    controlText,
+    clockHz: plan.clockHz,
+    divider: plan.divider,
+    csExpr: cs,
+    debounceMs: SELECTOR_DEBOUNCE_MS,
+    startIndex,
+    noContactRule: table.noContactRule,
+    mask: `0x${pins
+      .reduce((m, p) => m | (1 << p.bit), 0)
+      .toString(16)
+      .toUpperCase()
+      .padStart(2, "0")}`,
+    positions: table.positions.map((p, i) => ({
+      position: p.position,
+      bit: pins[i].bit,
+      top: p.periodCounts - 1,
+      ocr: p.highCounts - 1,
+    })),
+  });
+}
