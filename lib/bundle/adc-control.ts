@@ -24,7 +24,13 @@ import {
 import { MSP430G2553_POT_WIRING, renderMsp430g2553Adc } from "./adc-msp430g2553";
 import { PIC12F1840_POT_WIRING, renderPic12f1840Adc } from "./adc-pic12f1840";
 import { renderRp2040Adc, RP2040_POT_WIRING } from "./adc-rp2040";
-import { atmega328pSelectorWiring, renderAtmega328pSelector, SELECTOR_DEBOUNCE_MS } from "./selector-avr";
+import {
+  atmega328pSelectorWiring,
+  attiny85SelectorWiring,
+  renderAtmega328pSelector,
+  renderAttiny85Selector,
+  SELECTOR_DEBOUNCE_MS,
+} from "./selector-avr";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
@@ -134,6 +140,9 @@ export interface PotSummary {
 export interface SelectorSummary {
   kind: "selector";
   field: string;
+  /** the table's timer divider and clock (the firmware's; the target's own plan may differ) */
+  divider: number;
+  clockHz: number;
   positions: number;
   debounceMs: number;
   values: number[];
@@ -255,6 +264,13 @@ const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
       { path: "src/main.c", content: renderAtmega328pSelector({ table, startIndex, controlText }) },
     ],
   },
+  attiny85: {
+    timer: "TIMER0",
+    wiring: attiny85SelectorWiring,
+    part: (table, startIndex, controlText) => [
+      { path: "src/main.c", content: renderAttiny85Selector({ table, startIndex, controlText }) },
+    ],
+  },
 };
 
 function selectorOnTarget(
@@ -316,6 +332,8 @@ function selectorOnTarget(
       summary: {
         kind: "selector",
         field: c.field,
+        divider: plan.divider,
+        clockHz: plan.clockHz,
         positions: table.positions.length,
         debounceMs: SELECTOR_DEBOUNCE_MS,
         values: table.positions.map((p) => p.value),

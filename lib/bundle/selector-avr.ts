@@ -94,3 +94,76 @@ export function renderAtmega328pSelector({
     })),
   });
 }
+
+/**
+ * ATtiny85 input pins in position order: PB0, PB2, PB3, PB4 (PDIP-8 pins 5, 7, 2, 3;
+ * from memory). PB1 carries OC0B, PB5 is RESET. ATtiny25/45/85 datasheet, I/O
+ * Ports chapter (pull-up with DDBn = 0, PORTBn = 1) and Timer/Counter0 (mode 7:
+ * TOP = OCR0A; OCR0A/OCR0B double buffered, updated at BOTTOM).
+ */
+const ATTINY85_SELECTOR_PINS = [
+  { bit: 0, packagePin: 5 },
+  { bit: 2, packagePin: 7 },
+  { bit: 3, packagePin: 2 },
+  { bit: 4, packagePin: 3 },
+] as const;
+
+export function attiny85SelectorWiring(
+  table: SelectorTable,
+  valueText: (v: number) => string,
+): { role: string; pin: string; packagePin: number }[] {
+  const pins = ATTINY85_SELECTOR_PINS.slice(0, table.positions.length);
+  return [
+    ...table.positions.map((p, i) => ({
+      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up`,
+      pin: `PB${pins[i].bit}`,
+      packagePin: pins[i].packagePin,
+    })),
+    { role: "switch common contact to ground", pin: "GND", packagePin: 4 },
+  ];
+}
+
+export function renderAttiny85Selector({
+  table,
+  startIndex,
+  controlText,
+}: {
+  table: SelectorTable;
+  startIndex: number;
+  controlText: string;
+}): string {
+  const plan = table.plan;
+  if (plan.device !== "attiny85" || plan.timer !== "TIMER0" || plan.mode !== "pwm")
+    throw new Error("The selector firmware runs on ATtiny85 Timer0 fast PWM plans.");
+  const n = table.positions.length;
+  if (n < 2 || n > ATTINY85_SELECTOR_PINS.length)
+    throw new Error(
+      `control.values: the ATtiny85 reads 2 to ${ATTINY85_SELECTOR_PINS.length} positions (PB0, PB2, PB3, PB4).`,
+    );
+  if (plan.pin.port !== "PB1") throw new Error("targets: the ATtiny85 selector firmware drives OC0B on PB1.");
+  for (const p of table.positions)
+    if (p.periodCounts > 256) throw new Error(`control: position ${p.position} needs more than 256 counts.`);
+  const pins = ATTINY85_SELECTOR_PINS.slice(0, n);
+  return render("attiny85/selector.c.hbs", {
+    deviceName: "ATtiny85",
+    controlText,
+    clockHz: plan.clockHz,
+    divider: plan.divider,
+    tccr0a: plan.registers.TCCR0A,
+    tccr0b: plan.registers.TCCR0B,
+    debounceMs: SELECTOR_DEBOUNCE_MS,
+    startIndex,
+    noContactRule: table.noContactRule,
+    mask: `0x${pins
+      .reduce((m, p) => m | (1 << p.bit), 0)
+      .toString(16)
+      .toUpperCase()
+      .padStart(2, "0")}`,
+    positions: table.positions.map((p, i) => ({
+      position: p.position,
+      bit: pins[i].bit,
+      top: p.periodCounts - 1,
+      ocr: p.highCounts - 1,
+    })),
+  });
+}

@@ -85,7 +85,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
     },
   },
   {
-    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4); the ATtiny85 says it is not
+    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4) and the ATtiny85 (PB0, PB2, PB3)
     name: "kept-selector-555",
     spec: {
       retrofit: retrofit(false),

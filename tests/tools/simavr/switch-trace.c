@@ -4,9 +4,11 @@
  * pin-trace.c. The switch is a list of <cycle>:<mask> events: from that
  * cycle on, the input pins whose bit is set in mask are held low (a closed
  * contact to ground) and the others high (the pull-up's level), through the
- * port's pin IRQs. Events must be in cycle order.
+ * port's pin IRQs; only the pins in <in bits> are driven (the switch's
+ * contacts), so an output on the same port is left alone. Events must be in
+ * cycle order.
  * usage: switch-trace <mcu> <f_hz> <image.hex> <out port> <out bit> <cycles> <out.vcd>
- *        <in port> <cycle>:<mask> [<cycle>:<mask> ...]
+ *        <in port> <in bits> <cycle>:<mask> [<cycle>:<mask> ...]
  */
 #include <stdio.h>
 #include <stdlib.h>
@@ -43,9 +45,12 @@ static void on_ddr(struct avr_irq_t *irq, uint32_t value, void *param)
   emit();
 }
 
+static unsigned driven;
+
 static void set_switch(char port, unsigned mask)
 {
   for (int b = 0; b < 8; b++) {
+    if (!((driven >> b) & 1)) continue;
     avr_irq_t *p = avr_io_getirq(avr, AVR_IOCTL_IOPORT_GETIRQ(port), b);
     if (p) avr_raise_irq(p, (mask >> b) & 1 ? 0 : 1);
   }
@@ -53,8 +58,8 @@ static void set_switch(char port, unsigned mask)
 
 int main(int argc, char **argv)
 {
-  if (argc < 10) {
-    fprintf(stderr, "usage: switch-trace <mcu> <f_hz> <image.hex> <port> <bit> <cycles> <out.vcd> <in port> <cycle>:<mask>...\n");
+  if (argc < 11) {
+    fprintf(stderr, "usage: switch-trace <mcu> <f_hz> <image.hex> <port> <bit> <cycles> <out.vcd> <in port> <in bits> <cycle>:<mask>...\n");
     return 2;
   }
   const char *mcu = argv[1];
@@ -63,13 +68,14 @@ int main(int argc, char **argv)
   bit = atoi(argv[5]);
   unsigned long long cycles = strtoull(argv[6], NULL, 10);
   char in_port = argv[8][0];
-  int nev = argc - 9;
+  driven = (unsigned)strtoul(argv[9], NULL, 0);
+  int nev = argc - 10;
   unsigned long long *at = calloc((size_t)nev, sizeof *at);
   unsigned *mask = calloc((size_t)nev, sizeof *mask);
   for (int i = 0; i < nev; i++) {
-    char *colon = strchr(argv[9 + i], ':');
-    if (!colon) { fprintf(stderr, "bad event %s\n", argv[9 + i]); return 2; }
-    at[i] = strtoull(argv[9 + i], NULL, 10);
+    char *colon = strchr(argv[10 + i], ':');
+    if (!colon) { fprintf(stderr, "bad event %s\n", argv[10 + i]); return 2; }
+    at[i] = strtoull(argv[10 + i], NULL, 10);
     mask[i] = (unsigned)strtoul(colon + 1, NULL, 0);
   }
   avr = avr_make_mcu_by_name(mcu);
