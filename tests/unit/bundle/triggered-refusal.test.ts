@@ -34,21 +34,20 @@ describe("bundle and triggered plans", () => {
     },
   );
 
-  it.each(["atmega328p", "attiny85"] as const)(
-    "builds a zero-cross %s target with its trigger firmware",
-    (device) => {
-      const files = buildBundleSources({
-        retrofit: { name: "Refusal check" },
-        revision: 1,
-        stage,
-        targets: [
-          { device, clockHz: 8e6, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 } as never,
-        ],
-      });
-      const main = files.find((f) => f.path === `${device}/src/main.c`);
-      expect(String(main?.content)).toMatch(/ISR\(INT0_vect, ISR_NAKED\)/);
-    },
-  );
+  it.each([
+    ["atmega328p", 8e6, /ISR\(INT0_vect, ISR_NAKED\)/],
+    ["attiny85", 8e6, /ISR\(INT0_vect, ISR_NAKED\)/],
+    ["rp2040", 48e6, /void trig_edge_isr\(void\)/],
+  ] as const)("builds a zero-cross %s target with its trigger firmware", (device, clockHz, handler) => {
+    const files = buildBundleSources({
+      retrofit: { name: "Refusal check" },
+      revision: 1,
+      stage,
+      targets: [{ device, clockHz, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 } as never],
+    });
+    const main = files.find((f) => f.path === `${device}/src/main.c`);
+    expect(String(main?.content)).toMatch(handler);
+  });
 
   it("still builds the same target free-running", () => {
     const files = buildBundleSources({
