@@ -6,6 +6,7 @@ import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { avrTriggerView } from "./trigger-avr";
 import { rp2040TriggerView } from "./trigger-rp2040";
+import { stm32g031TriggerView } from "./trigger-stm32g031";
 import { triggerDoc } from "./trigger-doc";
 import { sha256Hex } from "./hash";
 import { checklistLimits, limitBasis } from "./limits";
@@ -21,6 +22,7 @@ const TRIGGER_VIEWS: Record<string, (plan: BundlePlan) => unknown> = {
   atmega328p: avrTriggerView,
   attiny85: avrTriggerView,
   rp2040: rp2040TriggerView,
+  stm32g031: stm32g031TriggerView,
 };
 const TRIGGER_DEVICES = new Set(Object.keys(TRIGGER_VIEWS));
 

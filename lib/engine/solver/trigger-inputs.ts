@@ -57,6 +57,7 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
   // (EXTI_RTSR1, EXTI_FTSR1; both set = both edges), EXTICR port selection.
   // Cortex-M0+ Technical Reference Manual: 15-cycle exception entry with
   // zero-wait-state memory. Pin: TSSOP-20 PA1 (from memory).
+  // Handler: templates/stm32g031/trigger.c.hbs (naked Thumb, run from SRAM).
   stm32g031: {
     input: pin({
       port: "PA1",
@@ -72,10 +73,11 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       falling: "EXTI_FTSR1 bit 1",
       both: "EXTI_RTSR1 and EXTI_FTSR1 bit 1",
     },
-    responseCycles: 3 + 15 + 12,
-    handlerCycles: 8,
+    responseCycles: 3 + 15 + 3,
+    handlerCycles: 10,
+    timerDrivesPin: true,
     basis:
-      "EXTI input synchroniser 3 cycles (from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ TRM) + 12 for flash wait states on the vector and stack fetches at 2 wait states (RM0444 FLASH_ACR LATENCY; from memory); handler 8 cycles to the TIMx_CR1 store (ldr 2, movs 1, str 2, plus the literal fetch; ARMv6-M cycle counts)",
+      "EXTI input synchroniser 3 cycles (from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ Technical Reference Manual, interrupt latency with zero-wait-state memory: vector table and handler run from SRAM) + up to 3 to finish the busy loop's branch in flash (1 + 2 wait states, RM0444 FLASH_ACR LATENCY); EXTI handler (templates/stm32g031/trigger.c.hbs, naked) 5 cycles to the TIMx_CR1 CEN store (ldr 2, movs 1, str 2; ARMv6-M cycle counts), restart rule 10 (EGR UG first); the timer's one-pulse mode drives the pin itself, so the pulse has no handler in its path",
   },
   // RP2040 datasheet 2.19 GPIO: IO_BANK0 PROC0_INTE EDGE_HIGH / EDGE_LOW per
   // GPIO; Cortex-M0+ 15-cycle entry. Pin: QFN-56 GPIO15 = pin 18 (from memory).
