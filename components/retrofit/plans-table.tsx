@@ -4,6 +4,7 @@
 import { formatEng } from "@/lib/engine";
 import type { TargetPlanRow } from "@/lib/revisions/plan-targets";
 import { deviceById } from "@/lib/validation/target";
+import { BudgetVerdict } from "./budget-verdict";
 import { fmtPpm, fmtS } from "./format";
 
 type Cell = (r: Extract<TargetPlanRow, { ok: true }>) => React.ReactNode;
@@ -34,10 +35,7 @@ const ROWS: [string, Cell][] = [
     "Accuracy budget",
     (r) =>
       r.budget ? (
-        <span className={r.budget.meetsTolerance ? "text-ok" : "text-hazard"}>
-          {r.budget.meetsTolerance ? "meets" : "misses"} {fmtPpm(r.budget.requiredPpm)}: total{" "}
-          {fmtPpm(r.budget.totalPpm)}
-        </span>
+        <BudgetVerdict budget={r.budget} />
       ) : (
         <span className="text-ink-muted">no tolerance set</span>
       ),

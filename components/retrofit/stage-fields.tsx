@@ -5,6 +5,7 @@ import { useFormContext } from "react-hook-form";
 import { STAGE_FIELDS, STAGE_KINDS, type StageKind } from "@/lib/engine";
 import { stageToForm } from "@/lib/validation/stage";
 import type { WorkspaceForm } from "./form-values";
+import { StageSyncFields } from "./stage-sync-fields";
 
 const UNIT_TEXT: Record<string, string> = { Ω: "Ω", F: "F", V: "V", A: "A", s: "s", "": "ratio" };
 
@@ -96,6 +97,7 @@ export function StageFields() {
           );
         })}
       </div>
+      <StageSyncFields />
       <p className="text-xs text-ink-muted">
         Values in engineering notation: 4k7, 100n, 2.2u, 20 V. Tolerances in percent: 5, or -20/+80 for an
         electrolytic.

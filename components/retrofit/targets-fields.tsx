@@ -5,6 +5,7 @@ import { useFieldArray, useFormContext } from "react-hook-form";
 import { listDevices } from "@/lib/engine";
 import { defaultTarget, deviceById } from "@/lib/validation/target";
 import type { WorkspaceForm } from "./form-values";
+import { TargetStartFields } from "./target-start-fields";
 
 const DEVICES = listDevices();
 
@@ -175,6 +176,7 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                   Active-low output (the pin is low during the old stage&apos;s pulse)
                 </label>
               </div>
+              <TargetStartFields i={i} errors={err} />
             </div>
           </div>
         );

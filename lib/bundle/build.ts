@@ -5,6 +5,8 @@ import { controlOnTarget } from "./adc-control";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { avrTriggerView } from "./trigger-avr";
+import { rp2040TriggerView } from "./trigger-rp2040";
+import { stm32g031TriggerView } from "./trigger-stm32g031";
 import { triggerDoc } from "./trigger-doc";
 import { sha256Hex } from "./hash";
 import { checklistLimits, limitBasis } from "./limits";
@@ -15,8 +17,14 @@ import { cautionLines } from "./safety";
 import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
 
-/** Devices whose templates make triggered and zero-cross firmware. */
-const TRIGGER_DEVICES = new Set(["atmega328p", "attiny85"]);
+/** Devices whose templates make triggered and zero-cross firmware, with the view their template reads as `trigger`. */
+const TRIGGER_VIEWS: Record<string, (plan: BundlePlan) => unknown> = {
+  atmega328p: avrTriggerView,
+  attiny85: avrTriggerView,
+  rp2040: rp2040TriggerView,
+  stm32g031: stm32g031TriggerView,
+};
+const TRIGGER_DEVICES = new Set(Object.keys(TRIGGER_VIEWS));
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;
 
@@ -46,13 +54,13 @@ function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
         `targets.${index}`,
       );
     }
-    // Triggered and zero-cross firmware exists for the AVRs only (trigger-avr.ts);
+    // Triggered and zero-cross firmware exists only where TRIGGER_VIEWS has a view;
     // elsewhere such a plan must never be shipped as a free-running image.
     const start = plan.start;
     if (start !== undefined && start !== "free" && !TRIGGER_DEVICES.has(plan.device))
       throw new EngineError(
         "invalid-request",
-        `target ${index + 1} (${request.device}): no firmware for triggered starts on ${DEVICES[plan.device]?.name ?? plan.device} yet (start "${start}"); plan it free-running or use an ATmega328P or ATtiny85.`,
+        `target ${index + 1} (${request.device}): no firmware for triggered starts on ${DEVICES[plan.device]?.name ?? plan.device} yet (start "${start}"); plan it free-running or use one of: ${[...TRIGGER_DEVICES].map((d) => DEVICES[d]?.name ?? d).join(", ")}.`,
         `targets.${index}`,
       );
     return plan;
@@ -133,7 +141,7 @@ export function buildBundleSourcesWith(
       writes: view.writes,
       pin: view.pin,
       x: view.extra,
-      trigger: TRIGGER_DEVICES.has(plan.device) ? avrTriggerView(plan) : null,
+      trigger: TRIGGER_VIEWS[plan.device]?.(plan) ?? null,
       triggerDoc: triggerDoc(plan),
       soft: { wide: plan.softwareDivider > 65535 },
       cautions,

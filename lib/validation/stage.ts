@@ -7,6 +7,8 @@ import {
   isEngineError,
   STAGE_FIELDS,
   STAGE_KINDS,
+  SYNC_FIELDS,
+  SYNC_KINDS,
   validateStage,
   type EngUnit,
   type Stage,
@@ -61,6 +63,24 @@ export const stageSchema = z
         bad = true;
       } else if (r.value !== undefined) out[f.name] = r.value;
     }
+    // Mains synchronisation (engine.md section 6) of a UJT, PUT or threshold
+    // stage: both fields blank = free-running; kept so a saved stage never loses it.
+    const sync = (input as { sync?: unknown }).sync;
+    if (sync && typeof sync === "object" && (SYNC_KINDS as readonly string[]).includes(input.kind)) {
+      const raw = sync as Record<string, unknown>;
+      const blank = SYNC_FIELDS.every((f) => raw[f.name] === undefined || raw[f.name] === "");
+      if (!blank) {
+        const got: Record<string, unknown> = {};
+        for (const f of SYNC_FIELDS) {
+          const r = readField(f, raw[f.name]);
+          if (!r.ok) {
+            ctx.addIssue({ code: "custom", message: r.message, path: ["sync", f.name] });
+            bad = true;
+          } else got[f.name] = r.value;
+        }
+        out.sync = got;
+      }
+    }
     const tolerances: Tolerances = {};
     for (const [name, raw] of Object.entries(input.tolerances ?? {})) {
       const r = readTolerance(raw);
@@ -105,6 +125,15 @@ export function stageToForm(stage: Stage | null, kind?: StageKind): StageFormVal
     if (f.unit === "bool") values[f.name] = v === true;
     else values[f.name] = typeof v === "number" ? engText(v, FORM_UNIT[f.unit]) : "";
     values.tolerances[f.name] = formatTolerance(stage?.kind === k ? stage.tolerances?.[f.name] : undefined);
+  }
+  if ((SYNC_KINDS as readonly string[]).includes(k)) {
+    const sync = (same as { sync?: Record<string, unknown> }).sync;
+    values.sync = Object.fromEntries(
+      SYNC_FIELDS.map((f) => [
+        f.name,
+        typeof sync?.[f.name] === "number" ? formText(sync[f.name] as number) : "",
+      ]),
+    );
   }
   return values;
 }

@@ -136,6 +136,36 @@ export const GOLDEN_CASES: GoldenCase[] = [
       ],
     },
   },
+  {
+    // STM32G031: mains zero-cross (both half cycles) and a rising-edge trigger with the ignore rule
+    name: "trigger-stm32g031",
+    spec: {
+      retrofit: retrofit(true),
+      revision: 1,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 47e3, timingC: 100e-9, eta: 0.63 },
+      targets: [
+        { device: "stm32g031", clockHz: 16e6, periodS: 0.01, highS: 1e-4, mode: "isr",
+          start: "zero-cross", delayS: 0.004, edge: "both" },
+        { device: "stm32g031", clockHz: 16e6, periodS: 0.02, highS: 0.001, mode: "isr",
+          start: "trigger", delayS: 0.004, edge: "rising" },
+      ],
+    },
+  },
+  {
+    // RP2040: mains zero-cross (both half cycles) and a falling-edge trigger with the restart rule
+    name: "trigger-rp2040",
+    spec: {
+      retrofit: retrofit(true),
+      revision: 1,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 47e3, timingC: 100e-9, eta: 0.63 },
+      targets: [
+        { device: "rp2040", clockHz: 48e6, periodS: 0.01, highS: 1e-4, mode: "isr",
+          start: "zero-cross", delayS: 0.004, edge: "both" },
+        { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 0.02, highS: 0.001, mode: "isr",
+          start: "trigger", delayS: 0.004, edge: "falling", retrigger: "restart" },
+      ],
+    },
+  },
 ];
 
 export const GOLDEN_ROOT = new URL("./", import.meta.url).pathname;

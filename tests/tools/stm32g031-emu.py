@@ -25,7 +25,18 @@ register the code kept polling). For interrupt plans the caller may ask for N
 handler calls: each sets SR.UIF as the update event would and calls the
 handler found in the vector table, as the NVIC would, recording the pin.
 
-Input: one JSON argument {elf, package, extClockHz, maxInstructions, isrIrq, isrCalls, pinPort, pinBit}.
+Triggered plans: `edges` (a list of "rising" / "falling") raise EXTI line
+`extiLine` as the EXTI would (RM0444 EXTI chapter): the edge sets RPR1 or
+FPR1 only when that line's RTSR1 or FTSR1 bit is set, and the handler is
+called (through the vector table VTOR points to, IRQ `extiIrq`) only when the
+pending bit is set and IMR1 and the NVIC enable it. Each call records the
+handler's writes with the clock cycles spent before each, counted from the
+executed opcodes with the ARMv6-M cycle table (only the opcodes such a
+handler needs are known; any other is reported). A timer's EGR.UG puts CNT
+to 0 and, in one-pulse mode (CR1.OPM), clears CEN as the update does.
+
+Input: one JSON argument {elf, package, extClockHz, maxInstructions, isrIrq, isrCalls, pinPort, pinBit,
+extiIrq, extiLine, edges}.
 Output: one JSON object on stdout.
 """
 import json
@@ -53,6 +64,11 @@ NAMES = {
 TIMERS = {"TIM2": (0x40000000, 0, 0xFFFFFFFF), "TIM3": (0x40000400, 1, 0xFFFF)}  # base, APBENR1 bit, ARR reset
 TIM_REGS = ["CR1", "CR2", "SMCR", "DIER", "SR", "EGR", "CCMR1", "CCMR2", "CCER", "CNT", "PSC", "ARR",
             "RCR", "CCR1", "CCR2", "CCR3", "CCR4"]
+EXTI = 0x40021800
+for off, r in [(0x00, "RTSR1"), (0x04, "FTSR1"), (0x0C, "RPR1"), (0x10, "FPR1"), (0x60, "EXTICR1"),
+               (0x64, "EXTICR2"), (0x80, "IMR1")]:
+    NAMES[EXTI + off] = f"EXTI_{r}"
+NAMES[0xE000ED08] = "VTOR"
 GPIO = {"A": (0x50000000, 0, 0xEBFFFFFF), "B": (0x50000400, 1, 0xFFFFFFFF), "C": (0x50000800, 2, 0xFFFFFFFF)}
 GPIO_REGS = ["MODER", "OTYPER", "OSPEEDR", "PUPDR", "IDR", "ODR", "BSRR", "LCKR", "AFRL", "AFRH", "BRR"]
 for t, (base, _, _) in TIMERS.items():
@@ -63,6 +79,20 @@ for p, (base, _, _) in GPIO.items():
         NAMES[base + 4 * i] = f"GPIO{p}_{r}"
 
 PACKAGES_WITH_OSC_OUT = {"LQFP-48", "LQFP-32", "UFQFPN-48", "UFQFPN-32"}  # not the TSSOP-20 or SO-8
+
+
+def armv6m_cycles(op):
+    """ARMv6-M Architecture Reference Manual / Cortex-M0+ TRM instruction timing, for the opcodes a
+    trigger handler uses; -1000 marks an opcode this table does not know (the total then goes negative)."""
+    if op & 0xF800 == 0x4800:  # ldr rt, [pc, #imm]
+        return 2
+    if op & 0xF800 == 0x2000:  # movs rd, #imm
+        return 1
+    if op & 0xF800 == 0x6000:  # str rt, [rn, #imm]
+        return 2
+    if op == 0x4770:  # bx lr
+        return 3
+    return -1000
 
 
 def load_elf(uc, path):
@@ -93,6 +123,15 @@ class Board:
         self.faults = []
         self.reads = {}
         self.sws = 0  # SYSCLK source: 0 HSISYS, 1 HSE, 2 PLLRCLK
+        self.handler_writes = None  # during an EXTI handler call: [name, value, cycles before the write]
+        self.handler_ops = []
+
+    def cycles_before(self):
+        """ARMv6-M cycles of the handler's instructions before the one now executing."""
+        total = 0
+        for op in self.handler_ops[:-1]:
+            total += armv6m_cycles(op)
+        return total
 
     def get(self, addr):
         return self.regs.get(addr, 0)
@@ -178,6 +217,8 @@ class Board:
     def write(self, addr, value):
         name = NAMES.get(addr, hex(addr))
         self.log.append([name, value])
+        if self.handler_writes is not None:
+            self.handler_writes.append([name, value, self.cycles_before()])
         if not self.check_clocked(addr, "write"):
             return  # an unclocked block drops the write
         if addr == RCC:
@@ -198,13 +239,19 @@ class Board:
         if addr == 0xE000E100:
             self.regs[addr] = self.get(addr) | value
             return
+        if addr in (EXTI + 0x0C, EXTI + 0x10):  # RPR1 / FPR1: write 1 to clear
+            self.regs[addr] = self.get(addr) & ~value
+            return
         for base, _, _ in TIMERS.values():
             if addr == base + 0x10:  # SR: rc_w0
                 self.regs[addr] = self.get(addr) & value
                 return
-            if addr == base + 0x14:  # EGR: UG sets UIF
+            if addr == base + 0x14:  # EGR: UG sets UIF, count to 0; in one-pulse mode the update clears CEN
                 if value & 1:
                     self.regs[base + 0x10] = self.get(base + 0x10) | 1
+                    self.regs[base + 0x24] = 0
+                    if self.get(base) & (1 << 3):
+                        self.regs[base] = self.get(base) & ~1
                 return
         for base, _, _ in GPIO.values():
             if addr == base + 0x18:  # BSRR
@@ -235,6 +282,8 @@ def main():
 
     def on_code(u, address, size, _user):
         state["steps"] += 1
+        if board.handler_writes is not None:
+            board.handler_ops.append(struct.unpack("<H", u.mem_read(address, 2))[0] if size == 2 else 0)
         if size == 2:
             op = struct.unpack("<H", u.mem_read(address, 2))[0]
             if op in (0xBF30, 0xE7FE):  # wfi; b .
@@ -291,6 +340,44 @@ def main():
             calls.append({"level": (board.get(gbase + 0x14) >> bit) & 1,
                           "uifCleared": bool(tim_sr) and all(not board.get(a) & 1 for a in tim_sr)})
     out["isrCalls"] = calls
+
+    edge_calls = []
+    line = args.get("extiLine")
+    if state["idle"] is not None and line is not None:
+        irq = int(args["extiIrq"])
+        bit = 1 << int(line)
+        for edge in args.get("edges", []):
+            sel = board.get(EXTI + (0x00 if edge == "rising" else 0x04))
+            pend = EXTI + (0x0C if edge == "rising" else 0x10)
+            if sel & bit:
+                board.regs[pend] = board.get(pend) | bit
+            pending = (board.get(EXTI + 0x0C) | board.get(EXTI + 0x10)) & bit
+            enabled = board.get(EXTI + 0x80) & bit and board.get(0xE000E100) & (1 << irq)
+            entry = {"edge": edge, "called": False}
+            if pending and enabled:
+                vtor = board.get(0xE000ED08)
+                handler = struct.unpack("<I", uc.mem_read(vtor + 4 * (16 + irq), 4))[0]
+                entry["handler"] = handler
+                board.handler_writes = []
+                board.handler_ops = []
+                uc.reg_write(UC_ARM_REG_SP, sp - 64)
+                uc.reg_write(UC_ARM_REG_LR, RETURN_TRAP | 1)
+                try:
+                    uc.emu_start(handler | 1, RETURN_TRAP, 0, 200)
+                    entry["called"] = uc.reg_read(UC_ARM_REG_PC) == RETURN_TRAP
+                except UcError as e:
+                    entry["error"] = f"handler stopped at {uc.reg_read(UC_ARM_REG_PC):#x}: {e}"
+                entry["writes"] = board.handler_writes
+                entry["cycles"] = sum(armv6m_cycles(op) for op in board.handler_ops)
+                board.handler_writes = None
+            entry["pendingAfter"] = bool((board.get(EXTI + 0x0C) | board.get(EXTI + 0x10)) & bit)
+            entry["timers"] = {t: {"CR1": board.get(base), "CNT": board.get(base + 0x24)}
+                               for t, (base, _, _) in TIMERS.items()}
+            edge_calls.append(entry)
+    out["edgeCalls"] = edge_calls
+    out["exti"] = {r: board.get(EXTI + off) for off, r in [(0x00, "RTSR1"), (0x04, "FTSR1"), (0x60, "EXTICR1"),
+                                                            (0x80, "IMR1")]}
+    out["vtor"] = board.get(0xE000ED08)
 
     tims = {}
     for t, (base, _, _) in TIMERS.items():

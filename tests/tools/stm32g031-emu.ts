@@ -49,6 +49,20 @@ export interface Stm32Run {
   nvicIser: number;
   timers: Record<"TIM2" | "TIM3", Stm32Timer>;
   gpio: Record<"A" | "B" | "C", Record<string, number>>;
+  /** Triggered plans: one entry per edge raised on the EXTI line (tests/tools/stm32g031-emu.py). */
+  edgeCalls?: {
+    edge: "rising" | "falling";
+    called: boolean;
+    handler?: number;
+    error?: string;
+    /** the handler's writes: [register, value, ARMv6-M cycles spent before the write] */
+    writes?: [string, number, number][];
+    cycles?: number;
+    pendingAfter: boolean;
+    timers: Record<"TIM2" | "TIM3", { CR1: number; CNT: number }>;
+  }[];
+  exti?: { RTSR1: number; FTSR1: number; EXTICR1: number; IMR1: number };
+  vtor?: number;
   /** Every peripheral write in order: [register name, value]. */
   writes: [string, number][];
   faults: string[];
@@ -64,6 +78,10 @@ export interface RunOptions {
   isrCalls?: number;
   pinPort?: string;
   pinBit?: number;
+  /** Triggered plans: EXTI IRQ (RM0444 vector table), line, and the edges to raise in order. */
+  extiIrq?: number;
+  extiLine?: number;
+  edges?: ("rising" | "falling")[];
 }
 
 function requireUnicorn(): void {

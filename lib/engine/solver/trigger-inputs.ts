@@ -19,6 +19,8 @@ export interface TriggerInput {
   handlerCycles: number;
   /** Where each count comes from. */
   basis: string;
+  /** The timer's own output pin carries the pulse (its pwm pin); otherwise the handlers switch the isr pin. */
+  timerDrivesPin?: boolean;
 }
 
 export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
@@ -55,6 +57,7 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
   // (EXTI_RTSR1, EXTI_FTSR1; both set = both edges), EXTICR port selection.
   // Cortex-M0+ Technical Reference Manual: 15-cycle exception entry with
   // zero-wait-state memory. Pin: TSSOP-20 PA1 (from memory).
+  // Handler: templates/stm32g031/trigger.c.hbs (naked Thumb, run from SRAM).
   stm32g031: {
     input: pin({
       port: "PA1",
@@ -70,13 +73,15 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       falling: "EXTI_FTSR1 bit 1",
       both: "EXTI_RTSR1 and EXTI_FTSR1 bit 1",
     },
-    responseCycles: 3 + 15 + 12,
-    handlerCycles: 8,
+    responseCycles: 3 + 15 + 3,
+    handlerCycles: 10,
+    timerDrivesPin: true,
     basis:
-      "EXTI input synchroniser 3 cycles (from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ TRM) + 12 for flash wait states on the vector and stack fetches at 2 wait states (RM0444 FLASH_ACR LATENCY; from memory); handler 8 cycles to the TIMx_CR1 store (ldr 2, movs 1, str 2, plus the literal fetch; ARMv6-M cycle counts)",
+      "EXTI input synchroniser 3 cycles (from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ Technical Reference Manual, interrupt latency with zero-wait-state memory: vector table and handler run from SRAM) + up to 3 to finish the busy loop's branch in flash (1 + 2 wait states, RM0444 FLASH_ACR LATENCY); EXTI handler (templates/stm32g031/trigger.c.hbs, naked) 5 cycles to the TIMx_CR1 CEN store (ldr 2, movs 1, str 2; ARMv6-M cycle counts), restart rule 10 (EGR UG first); the timer's one-pulse mode drives the pin itself, so the pulse has no handler in its path",
   },
   // RP2040 datasheet 2.19 GPIO: IO_BANK0 PROC0_INTE EDGE_HIGH / EDGE_LOW per
   // GPIO; Cortex-M0+ 15-cycle entry. Pin: QFN-56 GPIO15 = pin 18 (from memory).
+  // Handler: templates/rp2040/trigger.c.hbs (naked Thumb, run from SRAM).
   rp2040: {
     input: pin({
       port: "GPIO15",
@@ -94,10 +99,11 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       falling: "PROC0_INTE EDGE_LOW",
       both: "PROC0_INTE EDGE_HIGH and EDGE_LOW",
     },
-    responseCycles: 2 + 15,
-    handlerCycles: 8,
+    responseCycles: 2 + 15 + 1,
+    handlerCycles: 10,
+    timerDrivesPin: true,
     basis:
-      "GPIO input synchroniser 2 cycles (RP2040 datasheet, GPIO; from memory) + Cortex-M0+ exception entry 15 cycles; handler 8 cycles to the CSR EN store, with the handler and vector table in SRAM (an XIP cache miss would add far more)",
+      "GPIO input synchroniser 2 cycles (RP2040 datasheet, GPIO; from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ Technical Reference Manual, interrupt latency with zero-wait-state memory: vector table and handler run from SRAM) + 1 to finish the busy loop's branch; edge handler (templates/rp2040/trigger.c.hbs, naked) 5 cycles to the PWM CSR.EN store (ldr 2, movs 1, str 2; ARMv6-M cycle counts), restart rule 10 to the CTR = 0 store; the PWM slice then drives the pin itself, so the pulse has no handler in its path",
   },
   // PIC12F1840 datasheet: 13.0 Interrupt-on-change (IOCAP/IOCAN per pin select
   // the edge), 7.3 Interrupt latency (3 to 5 instruction cycles); RA1 = PDIP-8 pin 6.

@@ -83,7 +83,7 @@ export function planTriggered(r: CheckedRequest): TimerPlan {
   const notes: string[] = [
     `${start === "zero-cross" ? "Each mains zero crossing" : "Each trigger"} (${edge} edge on ${tin.input.port}, ${tin.edgeHow[edge]}) starts ${timer.name} from 0: pulse on after ${delayCounts} counts (${fmt(delayS)} s), off ${highCounts} counts later (${fmt(highS)} s), then the timer stops.`,
     `Input edge to timer start: up to ${latencyCycles} clock cycles (${fmt(latencyS)} s): ${tin.basis}. The prescaler's phase adds up to one count (${fmt(count)} s).`,
-    `Registers: ${timer.name}'s clock select and top for one run; the start on the edge and the stop after the pulse are written by the handlers. Triggered firmware is generated for the ATmega328P and ATtiny85 (other devices: not yet).`,
+    `Registers: ${timer.name}'s clock select and top for one run; the start on the edge and the stop after the pulse are written by the handlers.`,
   ];
   if (start === "trigger")
     notes.push(
@@ -115,7 +115,7 @@ export function planTriggered(r: CheckedRequest): TimerPlan {
     periodErrorPpm: 0,
     highErrorPpm: ppm(highS, pulseS),
     registers: timer.registers(config),
-    pin: { ...timer.pins.isr! },
+    pin: { ...(tin.timerDrivesPin && timer.pins.pwm ? timer.pins.pwm : timer.pins.isr!) },
     requestedMode: r.mode,
     activeLow: r.activeLow,
     targetPeriodS: r.periodS,

@@ -1,5 +1,5 @@
-// Triggered and zero-cross firmware exists for the two AVRs only (engine.md
-// section 6): on any other device such a plan must be refused by the bundle,
+// Triggered and zero-cross firmware exists for the AVRs, the RP2040 and the
+// STM32G031 so far (engine.md section 6): on any other device such a plan must be refused by the bundle,
 // naming the target and the device, and never shipped as a free-running image.
 import { describe, expect, it } from "vitest";
 import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
@@ -18,11 +18,11 @@ function refusal(target: BundleTargetRequest & Record<string, unknown>) {
 
 describe("bundle and triggered plans", () => {
   it.each(["trigger", "zero-cross"] as const)(
-    "refuses a %s plan on the STM32G031 before writing any file, naming the target",
+    "refuses a %s plan on the PIC12F1840 before writing any file, naming the target",
     (start) => {
       const e = refusal({
-        device: "stm32g031",
-        clockHz: 16e6,
+        device: "pic12f1840",
+        clockHz: 4e6,
         periodS: 0.01,
         highS: 1e-4,
         start,
@@ -30,25 +30,25 @@ describe("bundle and triggered plans", () => {
       });
       expect(isEngineError(e)).toBe(true);
       expect((e as { field?: string }).field).toBe("targets.0");
-      expect((e as Error).message).toMatch(/no firmware for triggered starts on STM32G031 yet/);
+      expect((e as Error).message).toMatch(/no firmware for triggered starts on PIC12F1840 yet/);
     },
   );
 
-  it.each(["atmega328p", "attiny85"] as const)(
-    "builds a zero-cross %s target with its trigger firmware",
-    (device) => {
-      const files = buildBundleSources({
-        retrofit: { name: "Refusal check" },
-        revision: 1,
-        stage,
-        targets: [
-          { device, clockHz: 8e6, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 } as never,
-        ],
-      });
-      const main = files.find((f) => f.path === `${device}/src/main.c`);
-      expect(String(main?.content)).toMatch(/ISR\(INT0_vect, ISR_NAKED\)/);
-    },
-  );
+  it.each([
+    ["atmega328p", 8e6, /ISR\(INT0_vect, ISR_NAKED\)/],
+    ["attiny85", 8e6, /ISR\(INT0_vect, ISR_NAKED\)/],
+    ["rp2040", 48e6, /void trig_edge_isr\(void\)/],
+    ["stm32g031", 16e6, /void trig_edge_isr\(void\)/],
+  ] as const)("builds a zero-cross %s target with its trigger firmware", (device, clockHz, handler) => {
+    const files = buildBundleSources({
+      retrofit: { name: "Refusal check" },
+      revision: 1,
+      stage,
+      targets: [{ device, clockHz, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 } as never],
+    });
+    const main = files.find((f) => f.path === `${device}/src/main.c`);
+    expect(String(main?.content)).toMatch(handler);
+  });
 
   it("still builds the same target free-running", () => {
     const files = buildBundleSources({

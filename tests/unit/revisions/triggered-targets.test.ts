@@ -82,7 +82,7 @@ describe("bundles for triggered starts", () => {
 
   it("elsewhere names the target and the device and says why; never a free-running image", () => {
     const a = analyzeStage(oneShot);
-    const req = { ...planRequestOf(a, base), device: "stm32g031", clockHz: 16e6 };
+    const req = { ...planRequestOf(a, base), device: "pic12f1840", clockHz: 31250 };
     delete (req as { clockSource?: string }).clockSource;
     let caught: unknown;
     try {
@@ -92,7 +92,7 @@ describe("bundles for triggered starts", () => {
     }
     expect(isEngineError(caught)).toBe(true);
     expect((caught as Error).message).toMatch(
-      /target 1 \(stm32g031\).*no firmware for triggered starts on STM32G031 yet/,
+      /target 1 \(pic12f1840\).*no firmware for triggered starts on PIC12F1840 yet/,
     );
   });
 });

@@ -1,4 +1,5 @@
 // The plans a revision froze, one row per target.
+import { BudgetVerdict } from "@/components/retrofit/budget-verdict";
 import { formatEng } from "@/lib/engine";
 import type { StoredPlan } from "@/lib/revisions/types";
 
@@ -41,9 +42,7 @@ export function PlanSummary({ plans }: { plans: StoredPlan[] }) {
               <td className="num">{formatEng(plan.periodS, "s", 6)}</td>
               <td className="num">{ppm(plan.periodErrorPpm)}</td>
               <td className="num">{formatEng(plan.highS, "s", 6)}</td>
-              <td>
-                {budget ? `${budget.meetsTolerance ? "meets" : "misses"} ${ppm(budget.requiredPpm)}` : "—"}
-              </td>
+              <td>{budget ? <BudgetVerdict budget={budget} /> : "—"}</td>
             </tr>
           ))}
         </tbody>
