@@ -12,7 +12,7 @@ import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { approvedMail, decisionMail } from "@/lib/mail/messages";
-import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
 import { decideRefusal, STATE_LABELS, type Decision } from "./states";
@@ -64,7 +64,6 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
     }
     return { id: revisionId, number: revision.number, state: decision, decidedAt: now, superseded };
   });
-  kickOutbox();
   return result;
 }
 

@@ -10,7 +10,7 @@ import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { reviewRequestedMail } from "@/lib/mail/messages";
-import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { activeReviewers } from "./recipients";
 import { STATE_LABELS, submitRefusal } from "./states";
@@ -47,6 +47,5 @@ export async function submitRevision(user: AuthUser, revisionId: number, note = 
     await enqueueMail(reviewRequestedMail({ revision, retrofit, author, reviewers, note }), tx);
     return { id: revisionId, number: revision.number, state: "in_review" as const, submittedAt: now };
   });
-  kickOutbox();
   return result;
 }
