@@ -98,6 +98,10 @@ export const targets = pgTable(
     pin: text("pin"),
     activeLow: boolean("active_low").notNull().default(false),
     requiredTolerancePct: doublePrecision("required_tolerance_pct"),
+    // Triggered start (engine.md section 6) and gate-drive needs: null = free-running / none.
+    // Shapes: TargetTrigger and GateDrive in lib/revisions/types.ts (SI units).
+    trigger: jsonb("trigger"),
+    gateDrive: jsonb("gate_drive"),
     createdAt: createdAt(),
   },
   (t) => [index("targets_retrofit_idx").on(t.retrofitId)],

@@ -23,7 +23,7 @@ function StatRow({ label, s, unit = "s" }: { label: string; s: CaptureStats; uni
 export function MeasurementTable({ m }: { m: MeasurementSummary }) {
   return (
     <div className="flex flex-col gap-3" data-testid="measurement">
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Measurement">
         <table className="table-dense">
           <thead>
             <tr>

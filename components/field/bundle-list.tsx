@@ -4,6 +4,7 @@
 import Link from "next/link";
 import type { FieldAsset, FieldBundle } from "@/lib/field/shapes";
 import { CopySha } from "./copy-sha";
+import { VerifyBundle } from "./verify-bundle";
 
 function bySite(assets: FieldAsset[]): [string, FieldAsset[]][] {
   const m = new Map<string, FieldAsset[]>();
@@ -34,21 +35,25 @@ function BundleRow({ b, asset }: { b: FieldBundle; asset: FieldAsset }) {
         <span className="text-sm text-ink-soft">{b.devices.join(", ")}</span>
       </div>
       <CopySha sha256={b.sha256} />
+      <VerifyBundle sha256={b.sha256} label={`bundle r${b.number}`} />
       <div className="flex flex-wrap gap-2">
         <a
           className={current ? "btn-primary" : "btn"}
           href={`/api/v1/revisions/${b.revisionId}/bundle`}
           download
-          aria-label={`Download bundle r${b.number} of ${asset.assetTag}`}
         >
-          Download bundle <span className="num text-xs">({kib(b.byteSize)})</span>
+          {/* The accessible name starts with the visible words (WCAG 2.5.3) and adds which bundle. */}
+          Download bundle{" "}
+          <span className="sr-only">
+            r{b.number} of {asset.assetTag}
+          </span>{" "}
+          <span className="num text-xs">({kib(b.byteSize)})</span>
         </a>
-        <Link
-          className="btn"
-          href={`/field/revisions/${b.revisionId}`}
-          aria-label={`Check r${b.number} of ${asset.assetTag}`}
-        >
-          Record check
+        <Link className="btn" href={`/field/revisions/${b.revisionId}`}>
+          Record check{" "}
+          <span className="sr-only">
+            of r{b.number} of {asset.assetTag}
+          </span>
         </Link>
       </div>
     </li>

@@ -1,5 +1,6 @@
 // The checklist lines of one field check: expected, limits, measured, verdict.
-// Pass/fail is spelled out, not shown by colour alone.
+// Pass/fail is spelled out, not shown by colour alone, and comes right after
+// the line's name so it stays on screen at phone width; limits wrap instead.
 import { formatEng } from "@/lib/engine";
 import type { CheckLine } from "@/lib/field/shapes";
 
@@ -9,11 +10,13 @@ function fmt(l: CheckLine, x: number): string {
 
 export function CheckLines({ lines }: { lines: CheckLine[] }) {
   return (
-    <div className="overflow-x-auto">
+    // Focusable so that keyboard users can scroll it if a long label still overflows.
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Checklist results">
       <table className="table-dense">
         <thead>
           <tr>
             <th scope="col">Line</th>
+            <th scope="col">Result</th>
             <th scope="col">Measured</th>
             <th scope="col">Limits</th>
             <th scope="col">Result</th>
@@ -25,12 +28,13 @@ export function CheckLines({ lines }: { lines: CheckLine[] }) {
               <th scope="row" className="font-normal">
                 {l.label}
               </th>
-              <td className="num whitespace-nowrap">{fmt(l, l.measured)}</td>
-              <td className="num whitespace-nowrap text-ink-soft">
-                {fmt(l, l.min)} … {fmt(l, l.max)}
-              </td>
-              <td className={`font-semibold ${l.pass ? "text-ok" : "text-hazard"}`}>
+              <td className={`font-semibold ${l.pass ? "text-ok" : "text-hazard"}`} data-testid="line-result">
                 {l.pass ? "Pass" : "Fail"}
+              </td>
+              <td className="num">{fmt(l, l.measured)}</td>
+              <td className="num text-ink-soft">
+                <span className="whitespace-nowrap">{fmt(l, l.min)} …</span>{" "}
+                <span className="whitespace-nowrap">{fmt(l, l.max)}</span>
               </td>
             </tr>
           ))}

@@ -3,6 +3,7 @@
 // tolerance histogram. Computed in the browser by the engine itself.
 import { HistogramChart } from "@/components/charts/histogram-chart";
 import { WaveformChart } from "@/components/charts/waveform-chart";
+import { ControlFields } from "./control-fields";
 import type { Stage, StageAnalysis } from "@/lib/engine";
 import { fmtHz, fmtPct, fmtS } from "./format";
 
@@ -90,6 +91,7 @@ export function AnalysisPanel({
         <h3 className="text-sm font-medium">Waveform sketch, two periods</h3>
         <WaveformChart stage={stage} analysis={analysis} />
       </div>
+      <ControlFields stage={stage} />
       {mc && (
         <div>
           <h3 className="text-sm font-medium">Period histogram</h3>

@@ -2,7 +2,8 @@
 // same stage and target schemas the API validates with).
 import { z } from "zod";
 import type { TargetRow } from "@/db/schema";
-import { formatEng, type Stage } from "@/lib/engine";
+import { formatEng, type GateDrive, type Stage } from "@/lib/engine";
+import type { TargetTrigger } from "@/lib/revisions/types";
 import { stageSchema, stageToForm, type StageFormValues } from "@/lib/validation/stage";
 import { targetsSchema, type Target, type TargetInput } from "@/lib/validation/target";
 
@@ -10,7 +11,11 @@ export const workspaceSchema = z.object({ stage: stageSchema, targets: targetsSc
 export type WorkspaceForm = { stage: StageFormValues; targets: TargetInput[] };
 export type WorkspaceOut = { stage: Stage; targets: Target[] };
 
+const sText = (v: number | undefined) => (v === undefined ? "" : formatEng(v, "", 6).replace("µ", "u"));
+
 export function targetToForm(t: TargetRow): TargetInput {
+  const tr = (t.trigger ?? {}) as TargetTrigger;
+  const g = (t.gateDrive ?? {}) as GateDrive;
   return {
     device: t.device,
     clockSource: t.clockSource,
@@ -20,6 +25,16 @@ export function targetToForm(t: TargetRow): TargetInput {
     timer: t.timer ?? "",
     requiredTolerancePct: t.requiredTolerancePct === null ? "" : String(t.requiredTolerancePct),
     activeLow: t.activeLow,
+    start: (tr.start ?? "") as TargetInput["start"],
+    delayS: sText(tr.delayS),
+    pulseS: sText(tr.pulseS),
+    minIntervalS: sText(tr.minIntervalS),
+    edge: (tr.edge ?? "") as TargetInput["edge"],
+    retrigger: (tr.retrigger ?? "") as TargetInput["retrigger"],
+    gateMinS: sText(g.minPulseS),
+    gateMaxS: sText(g.maxPulseS),
+    gateTrainPeriodS: sText(g.trainPeriodS),
+    gateTrainPulses: g.trainPulses === undefined ? "" : String(g.trainPulses),
   };
 }
 

@@ -6,7 +6,7 @@ import { SignOutButton } from "./sign-out-button";
 
 export function AppHeader({ user }: { user: AuthUser }) {
   return (
-    <header className="border-b border-paper-line bg-paper-raised">
+    <header className="no-print border-b border-paper-line bg-paper-raised">
       <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
         <Link href="/" className="font-mono text-base font-semibold tracking-tight">
           clockgraft

@@ -92,7 +92,10 @@ export function buildBundleSourcesWith(
         `targets.${i}`,
       );
     const view = entry.view(plan);
-    const limits = checklistLimits(plan, analysis);
+    const pct = spec.targets[i]?.requiredTolerancePct;
+    const limits = checklistLimits(plan, analysis, {
+      requiredRelative: typeof pct === "number" && pct > 0 ? pct / 100 : undefined,
+    });
     const own = images?.byFolder[folders[i]] ?? [];
     const imageList = own.map((f) => ({
       path: f.path,

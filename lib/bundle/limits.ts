@@ -19,6 +19,19 @@ export interface ChecklistLimit {
   expected: number;
   min: number;
   max: number;
+  /** Frequency and duty follow from the two measured times: shown, not judged
+   *  on their own, so one slip fails one line, not three. */
+  derived: boolean;
+  /** Where the limit comes from, in words for the checklist line. */
+  source: string;
+}
+
+export interface LimitOptions {
+  /** The engineer's required tolerance as a fraction (2 % = 0.02). */
+  requiredRelative?: number;
+  /** Reading resolution of the instrument in seconds (scope cursors, counter digit). */
+  resolutionS?: number;
+  clockAccuracyPpm?: number;
 }
 
 export interface ChecklistBasis {
@@ -40,17 +53,53 @@ export function checklistLimits(
   // The old stage's analysis is reference only: the new board must match the
   // plan, which already carries the choice of what to reproduce.
   _analysis?: StageAnalysis | null,
-  clockAccuracyPpm?: number,
+  options: LimitOptions | number = {},
 ): ChecklistLimit[] {
-  const b = limitBasis(plan, clockAccuracyPpm);
-  const band = (value: number) => value * b.clockAccuracyPpm * 1e-6 + b.jitterS + b.countS;
+  const o: LimitOptions = typeof options === "number" ? { clockAccuracyPpm: options } : options;
+  const b = limitBasis(plan, o.clockAccuracyPpm);
+  const required = o.requiredRelative !== undefined && o.requiredRelative > 0 ? o.requiredRelative : 0;
+  const resolution = o.resolutionS !== undefined && o.resolutionS > 0 ? o.resolutionS : 0;
+  const boardBand = (value: number) => value * b.clockAccuracyPpm * 1e-6 + b.jitterS + b.countS;
+  // The promise to the process is the required tolerance; the board's own
+  // spread is the floor (a limit tighter than the board can hold would fail
+  // good boards). The reading's resolution widens the band: a cursor reading
+  // cannot be judged finer than it was read.
+  const band = (value: number) => Math.max(required * value, boardBand(value)) + resolution;
+  const why = (value: number) => {
+    const parts = [
+      required * value >= boardBand(value)
+        ? `required ±${trimPct(required)} % of the achieved value`
+        : "board spread: clock accuracy × value + jitter + one timer count",
+    ];
+    if (resolution > 0) parts.push("instrument resolution");
+    return parts.join(" + ");
+  };
   const pMin = plan.periodS - band(plan.periodS);
   const pMax = plan.periodS + band(plan.periodS);
   const hMin = Math.max(0, plan.highS - band(plan.highS));
   const hMax = Math.min(pMax, plan.highS + band(plan.highS));
+  const fromTimes = "follows from the period and high-time limits";
   return [
-    { id: "period", label: "Period", unit: "s", expected: plan.periodS, min: pMin, max: pMax },
-    { id: "high", label: "High time", unit: "s", expected: plan.highS, min: hMin, max: hMax },
+    {
+      id: "period",
+      label: "Period",
+      unit: "s",
+      expected: plan.periodS,
+      min: pMin,
+      max: pMax,
+      derived: false,
+      source: why(plan.periodS),
+    },
+    {
+      id: "high",
+      label: "High time",
+      unit: "s",
+      expected: plan.highS,
+      min: hMin,
+      max: hMax,
+      derived: false,
+      source: why(plan.highS),
+    },
     {
       id: "frequency",
       label: "Frequency",
@@ -58,6 +107,8 @@ export function checklistLimits(
       expected: 1 / plan.periodS,
       min: 1 / pMax,
       max: 1 / pMin,
+      derived: true,
+      source: fromTimes,
     },
     {
       id: "duty",
@@ -66,8 +117,14 @@ export function checklistLimits(
       expected: plan.highS / plan.periodS,
       min: hMin / pMax,
       max: hMax / pMin,
+      derived: true,
+      source: fromTimes,
     },
   ];
+}
+
+function trimPct(fraction: number): string {
+  return String(Number((fraction * 100).toPrecision(6)));
 }
 
 /** True when a measured value lies inside a limit (inclusive). */

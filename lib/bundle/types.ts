@@ -16,6 +16,11 @@ export interface BundleTargetRequest {
   clockSource?: string;
   /** Package name from DeviceInfo.packages; omitted = the device's default package. */
   package?: string;
+  /** engine.md section 6; "trigger" / "zero-cross" bundles are refused until their firmware exists */
+  start?: "free" | "trigger" | "zero-cross";
+  delayS?: number;
+  /** The engineer's required tolerance in percent; the checklist's pass limits follow it. */
+  requiredTolerancePct?: number;
 }
 
 export interface BundleRetrofit {

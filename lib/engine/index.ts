@@ -5,3 +5,4 @@ export * from "./errors";
 export * from "./version";
 export * from "./stage-api";
 export * from "./timer-api";
+export * from "./adjust";

@@ -1,10 +1,10 @@
 import "server-only";
 // Capture queries. Content bytes are selected only where they are needed
 // (re-reading a window of the trace), never for lists.
-import { and, desc, eq, type SQL } from "drizzle-orm";
+import { and, desc, eq, inArray, type SQL } from "drizzle-orm";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
-import { captures, users } from "@/db/schema";
+import { captures, retrofits, users } from "@/db/schema";
 import type { AuthUser } from "@/lib/auth/guard";
 import { READ_ALL } from "@/lib/auth/roles";
 import type { CaptureMeasurement } from "@/lib/capture";
@@ -123,6 +123,19 @@ export async function listCaptures({
     .orderBy(desc(captures.createdAt), desc(captures.id))
     .limit(200);
   return (rows as CaptureRow[]).map(toView);
+}
+
+/** Asset tags of the retrofits a capture list refers to, so a list on a
+ *  phone can say which machine each trace came from. Callers pass ids from
+ *  captures they may already read. */
+export async function assetTagsFor(retrofitIds: number[]): Promise<Map<number, string>> {
+  const ids = [...new Set(retrofitIds)];
+  if (ids.length === 0) return new Map();
+  const rows = await db
+    .select({ id: retrofits.id, assetTag: retrofits.assetTag })
+    .from(retrofits)
+    .where(inArray(retrofits.id, ids));
+  return new Map(rows.map((r) => [r.id, r.assetTag]));
 }
 
 /** Load by id and apply the read rule, with the same 404 for "missing" and

@@ -35,7 +35,14 @@ export function revisionPlans(stored: unknown): BundlePlan[] {
   return list.map(planOf).filter((p): p is BundlePlan => p !== null);
 }
 
-export type Measured = { periodS: number; highS: number };
+export type Measured = { periodS: number; highS: number; resolutionS?: number };
+
+/** The required tolerance stored with a target (its budget), as a fraction. */
+export function requiredRelativeOf(stored: unknown, target: number): number | undefined {
+  const list = Array.isArray(stored) ? stored : [];
+  const ppm = (list[target] as { budget?: { requiredPpm?: unknown } } | undefined)?.budget?.requiredPpm;
+  return typeof ppm === "number" && ppm > 0 ? ppm * 1e-6 : undefined;
+}
 
 /** Each checklist line of one target with the measured value and its verdict.
  *  Frequency and duty follow from the two measured times (IEEE Std 181-2011:
@@ -45,6 +52,7 @@ export function judgeCheck(
   analysis: unknown,
   measured: Measured,
   target: number,
+  requiredRelative?: number,
 ): { lines: CheckLine[]; passed: boolean } {
   const values: Record<string, number> = {
     period: measured.periodS,
@@ -52,9 +60,14 @@ export function judgeCheck(
     frequency: 1 / measured.periodS,
     duty: measured.highS / measured.periodS,
   };
-  const lines = checklistLimits(plan, (analysis ?? null) as Analysis).map((limit) => {
+  const limits = checklistLimits(plan, (analysis ?? null) as Analysis, {
+    requiredRelative,
+    resolutionS: measured.resolutionS,
+  });
+  const lines = limits.map((limit) => {
     const value = values[limit.id];
     return { ...limit, target, device: plan.device, measured: value, pass: withinLimit(limit, value) };
   });
-  return { lines, passed: lines.every((l) => l.pass) };
+  // Only the measured quantities decide; derived lines are shown for reading.
+  return { lines, passed: lines.every((l) => l.derived || l.pass) };
 }

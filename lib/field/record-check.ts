@@ -2,6 +2,7 @@ import "server-only";
 // Records a field check against an approved revision: the server computes the
 // checklist limits and the verdict; a failed check e-mails the revision's author.
 import { z } from "zod";
+import { dbId } from "@/lib/validation/id";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
@@ -11,7 +12,7 @@ import { formatEng } from "@/lib/engine";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { assertCanReadRevision } from "@/lib/revisions/access";
 import { loadReadableCapture } from "./captures";
-import { judgeCheck, revisionPlans } from "./judge";
+import { judgeCheck, requiredRelativeOf, revisionPlans } from "./judge";
 import { getRevisionWithRetrofit, getUserEmail, insertFieldCheck, listFieldChecks } from "./queries";
 import type { CheckLine, FieldCheckView } from "./shapes";
 
@@ -19,11 +20,11 @@ const seconds = z.number().finite().positive("Enter a time greater than zero.");
 
 export const fieldCheckSchema = z
   .object({
-    revisionId: z.number().int().positive(),
+    revisionId: dbId,
     target: z.number().int().min(0).default(0),
     measuredPeriodS: seconds.optional(),
     measuredHighS: seconds.optional(),
-    captureId: z.number().int().positive().optional(),
+    captureId: dbId.optional(),
     notes: z.string().max(4000).default(""),
     signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
   })
@@ -74,7 +75,13 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
       },
     );
   }
-  const verdict = judgeCheck(plan, revision.analysis, { periodS, highS }, input.target);
+  const verdict = judgeCheck(
+    plan,
+    revision.analysis,
+    { periodS, highS },
+    input.target,
+    requiredRelativeOf(revision.plans, input.target),
+  );
 
   const author = verdict.passed ? null : await getUserEmail({ id: revision.createdBy });
   const id = await db.transaction(async (tx) => {

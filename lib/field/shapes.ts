@@ -13,6 +13,9 @@ export type CheckLine = {
   max: number;
   measured: number;
   pass: boolean;
+  /** Absent on checks stored before limits said where they come from. */
+  derived?: boolean;
+  source?: string;
 };
 
 export type FieldCheckView = {

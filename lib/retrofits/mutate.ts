@@ -9,6 +9,7 @@ import { recordAudit } from "@/lib/audit";
 import type { Stage } from "@/lib/engine";
 import type { RetrofitFacts } from "@/lib/validation/retrofit";
 import type { Target } from "@/lib/validation/target";
+import { gateDriveOf, triggerOf } from "@/lib/revisions/plan-targets";
 
 async function putStage(tx: Tx, retrofitId: number, stage: Stage) {
   await tx
@@ -36,6 +37,8 @@ async function putTargets(tx: Tx, retrofitId: number, list: Target[]) {
       pin: t.pin ?? null,
       activeLow: t.activeLow,
       requiredTolerancePct: t.requiredTolerancePct ?? null,
+      trigger: triggerOf(t),
+      gateDrive: gateDriveOf(t),
     })),
   );
 }

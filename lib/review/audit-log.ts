@@ -4,12 +4,16 @@ import "server-only";
 import { and, desc, eq, gte, lt, sql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
+import { dbIdText } from "@/lib/validation/id";
 import { auditEvents, users } from "@/db/schema";
 
 const day = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, "Use YYYY-MM-DD.")
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), "Not a date.");
+  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), "Not a date.")
+  // PostgreSQL timestamps have no year 0 (documentation, "Date/Time Types":
+  // years count 1 BC, 1 AD), and the audit log starts long after 1970.
+  .refine((s) => Number(s.slice(0, 4)) >= 1970, "Use a year from 1970 on.");
 
 export const auditFilter = z.object({
   action: z
@@ -18,12 +22,7 @@ export const auditFilter = z.object({
     .max(80)
     .optional()
     .transform((s) => s || undefined),
-  actor: z.coerce
-    .number()
-    .int()
-    .positive()
-    .optional()
-    .or(z.literal("").transform(() => undefined)),
+  actor: dbIdText.optional().or(z.literal("").transform(() => undefined)),
   from: day.optional().or(z.literal("").transform(() => undefined)),
   to: day.optional().or(z.literal("").transform(() => undefined)),
   page: z.coerce.number().int().min(1).max(10000).default(1),

@@ -108,7 +108,11 @@ async function loadInputs(tx: Reader, retrofitId: number, lock: boolean): Promis
     stored.push({ target, plan: r.plan, budget: r.budget });
     // The bundle planner passes the whole request to planTarget, so the clock
     // option travels with it and plan.json records it.
-    requests.push(planRequestOf(analysis, target) as BundleTargetRequest);
+    // The required tolerance travels too, so the printed limits and the field
+    // check's judge (which reads the stored budget) use the same number.
+    const request = planRequestOf(analysis, target) as BundleTargetRequest;
+    if (r.budget && r.budget.requiredPpm > 0) request.requiredTolerancePct = r.budget.requiredPpm / 1e4;
+    requests.push(request);
   });
   return { retrofit, analysis, stage, stored, requests };
 }

@@ -3,11 +3,14 @@
 // catalogue so a wrong clock option or timer is a field error, not a 500.
 import { z } from "zod";
 import { clockMakes, listDevices, type DeviceInfo } from "@/lib/engine";
-import { engNumber } from "./eng";
+import { engNumber, optionalEngNumber } from "./eng";
 
 const DEVICES = listDevices();
 export const DEVICE_IDS = DEVICES.map((d) => d.id) as [string, ...string[]];
 export const TIMER_MODES = ["pwm", "toggle", "isr"] as const;
+export const PLAN_STARTS = ["free", "trigger", "zero-cross"] as const;
+export const INPUT_EDGES = ["rising", "falling", "both"] as const;
+export const RETRIGGER_RULES = ["ignore", "restart"] as const;
 
 export function deviceById(id: string): DeviceInfo | undefined {
   return DEVICES.find((d) => d.id === id);
@@ -42,8 +45,68 @@ export const targetSchema = z
         .max(100, "At most 100 %.")
         .optional(),
     ),
+    // How the output starts (engine.md section 6). Blank = by the stage: a
+    // synchronised stage follows the zero crossings, a 555 one-shot a trigger.
+    start: z.preprocess(
+      blankToUndefined,
+      z.enum(PLAN_STARTS, { error: "Start is free, trigger or zero-cross." }).optional(),
+    ),
+    /** Input edge to pulse; blank = the stage's firing delay (or 0). */
+    delayS: optionalEngNumber("s").optional(),
+    /** Output pulse width of a triggered start; blank = the old stage's pulse. */
+    pulseS: optionalEngNumber("s", { positive: true }).optional(),
+    /** Shortest time between triggers; blank = twice delay plus pulse (closer triggers are ignored). */
+    minIntervalS: optionalEngNumber("s", { positive: true }).optional(),
+    edge: z.preprocess(
+      blankToUndefined,
+      z.enum(INPUT_EDGES, { error: "Input edge is rising, falling or both." }).optional(),
+    ),
+    retrigger: z.preprocess(
+      blankToUndefined,
+      z.enum(RETRIGGER_RULES, { error: "Retrigger is ignore or restart." }).optional(),
+    ),
+    // Gate-drive needs, part of the budget verdict.
+    gateMinS: optionalEngNumber("s", { positive: true }).optional(),
+    gateMaxS: optionalEngNumber("s", { positive: true }).optional(),
+    gateTrainPeriodS: optionalEngNumber("s", { positive: true }).optional(),
+    gateTrainPulses: z.preprocess(
+      blankToUndefined,
+      z.coerce
+        .number({ error: "Pulses in the train is a whole number." })
+        .int("Pulses in the train is a whole number.")
+        .min(2, "A train has at least 2 pulses.")
+        .max(1000, "At most 1000 pulses.")
+        .optional(),
+    ),
   })
   .superRefine((t, ctx) => {
+    const free = t.start === undefined || t.start === "free";
+    if (t.start === "free") {
+      for (const f of ["delayS", "pulseS", "minIntervalS", "edge", "retrigger"] as const) {
+        if (t[f] !== undefined)
+          ctx.addIssue({ code: "custom", path: [f], message: "Only for a trigger or zero-cross start." });
+      }
+    }
+    if (!free && t.delayS !== undefined && t.delayS < 0)
+      ctx.addIssue({ code: "custom", path: ["delayS"], message: "Delay must not be negative." });
+    if (t.start === "zero-cross" && t.retrigger !== undefined)
+      ctx.addIssue({
+        code: "custom",
+        path: ["retrigger"],
+        message: "Zero crossings come once per half cycle: retrigger is for a trigger start.",
+      });
+    if (t.gateMinS !== undefined && t.gateMaxS !== undefined && t.gateMinS > t.gateMaxS)
+      ctx.addIssue({
+        code: "custom",
+        path: ["gateMinS"],
+        message: "Minimum gate pulse must not be above the maximum.",
+      });
+    if ((t.gateTrainPeriodS === undefined) !== (t.gateTrainPulses === undefined))
+      ctx.addIssue({
+        code: "custom",
+        path: [t.gateTrainPeriodS === undefined ? "gateTrainPeriodS" : "gateTrainPulses"],
+        message: "A pulse train needs both its period and its number of pulses.",
+      });
     const device = deviceById(t.device);
     if (!device) return;
     const clock = device.clocks.find((c) => c.id === t.clockSource);

@@ -50,7 +50,7 @@ describe("field work in the browser", () => {
     expect(zip.subarray(0, 4).toString("latin1")).toBe("PK\x03\x04");
     expect(createHash("sha256").update(zip).digest("hex")).toBe(stored.sha);
 
-    await card.getByRole("link", { name: /Check r1/ }).click();
+    await card.getByRole("link", { name: /Record check of r1/ }).click();
     await page.waitForURL(new RegExp(`/field/revisions/${rev.id}$`), { timeout: 60_000 });
 
     // 100 Hz, 2 ms high: the revision's nominal output, sampled every 10 us.

@@ -96,6 +96,12 @@ describe("PostgreSQL restart under load", () => {
       for (const o of outcomes.filter((x) => x.status >= 400)) {
         expect(isErrorShape(o.body), JSON.stringify(o.body)).toBe(true);
       }
+      // The outage must actually have been seen by clients: without at least
+      // one 503 the test would pass even if the restart missed the load window.
+      expect(
+        statuses.filter((s) => s === 503).length,
+        "at least one 503 during the PostgreSQL restart",
+      ).toBeGreaterThan(0);
       // Work was done before and after the outage.
       expect(outcomes.some((o) => o.status === 201 && o.at < restartedAt)).toBe(true);
       const after = await fetch(`${BASE_URL}/api/v1/retrofits/${rfs[0].id}/revisions`, {

@@ -25,7 +25,7 @@ export const timer555MonostableModel: StageModel<Timer555MonostableStage> = {
     unit: "relative",
     segments: [
       { from: 0, toward: 1, tauS: s.r * s.c, durationS: r.highS, out: 1 },
-      // Shown idle for as long again so the sketch has a gap between pulses.
+      // Idle after the pulse until the next trigger (the sketch shows one pulse, no repeat).
       { from: 0, toward: 0, tauS: 0, durationS: r.highS, out: 0 },
     ],
   }),

@@ -222,3 +222,39 @@ describe("paths that match no handler", () => {
     },
   );
 });
+
+describe("ids past the integer column and impossible audit dates", () => {
+  // Row ids are PostgreSQL `integer` (at most 2^31 - 1, PostgreSQL documentation,
+  // "Numeric Types", table 8.2); year 0000 does not exist in its timestamps
+  // ("Date/Time Types"). Each of these used to reach the database and answer 500.
+  const big = 2 ** 31;
+  const cases: { what: string; method: "GET" | "POST"; path: (w: World) => string; json?: unknown }[] = [
+    {
+      what: "field check revisionId",
+      method: "POST",
+      path: () => "/api/v1/field-checks",
+      json: { revisionId: big, measuredPeriodS: 0.01, signedOffBy: "A. Tester" },
+    },
+    {
+      what: "field check captureId",
+      method: "POST",
+      path: () => "/api/v1/field-checks",
+      json: { revisionId: 1, captureId: big, measuredPeriodS: 0.01, signedOffBy: "A. Tester" },
+    },
+    {
+      what: "use-as-stage retrofitId",
+      method: "POST",
+      path: (w) => `/api/v1/captures/${w.captureId}/use-as-stage`,
+      json: { retrofitId: big },
+    },
+    { what: "audit actor", method: "GET", path: () => `/api/v1/audit?actor=${big}` },
+    { what: "audit from year 0000", method: "GET", path: () => "/api/v1/audit?from=0000-01-01" },
+    { what: "audit to year 0000", method: "GET", path: () => "/api/v1/audit?to=0000-12-31" },
+  ];
+  it.each(cases)("$what", async (c) => {
+    const state = { fp: await fingerprint(w) };
+    const res = await send(w, "admin", c.method, { path: c.path(w), json: c.json });
+    await judge(res, c.what, state, true);
+    expect(res.status, `${c.what}: ${res.text.slice(0, 200)}`).toBe(400);
+  });
+});

@@ -44,3 +44,37 @@ describe("checklist limits", () => {
     expect(list).toContain(`${eng(period.min, "s")} … ${eng(period.max, "s")}`);
   });
 });
+
+// Issue 18 point 1: limits from the required tolerance and the instrument.
+// The rule (required tolerance as the promise, board spread as the floor,
+// plus reading resolution) is ours: common practice, no source. Duty =
+// pulse duration / period per IEEE Std 181-2011, so frequency and duty follow
+// from the two measured times and are not judged on their own.
+describe("limits from the required tolerance and the instrument", () => {
+  const plan = planTarget(TARGETS[0]) as BundlePlan;
+
+  it("a 2 % requirement gives ±2 % of the achieved 20 ms period (±400 us)", () => {
+    const p = checklistLimits(plan, null, { requiredRelative: 0.02 }).find((l) => l.id === "period")!;
+    expect(p.max - p.expected).toBeCloseTo(400e-6, 12);
+    expect(p.source).toContain("required ±2 %");
+  });
+
+  it("the board's own spread is the floor when the requirement is tighter", () => {
+    const p = checklistLimits(plan, null, { requiredRelative: 1e-6 }).find((l) => l.id === "period")!;
+    expect(p.max - p.expected).toBeCloseTo(1.5e-6, 15);
+    expect(p.source).toContain("board spread");
+  });
+
+  it("instrument resolution widens the band by exactly its value", () => {
+    const p = checklistLimits(plan, null, { requiredRelative: 0.02, resolutionS: 10e-6 }).find(
+      (l) => l.id === "period",
+    )!;
+    expect(p.max - p.expected).toBeCloseTo(410e-6, 12);
+    expect(p.source).toContain("instrument resolution");
+  });
+
+  it("frequency and duty are marked derived", () => {
+    const ls = checklistLimits(plan, null);
+    expect(ls.filter((l) => l.derived).map((l) => l.id)).toEqual(["frequency", "duty"]);
+  });
+});

@@ -17,7 +17,7 @@ function refusal(target: BundleTargetRequest & Record<string, unknown>) {
 }
 
 describe("bundle and triggered plans", () => {
-  it.each(["trigger", "zero-cross"])(
+  it.each(["trigger", "zero-cross"] as const)(
     "refuses a %s plan before writing any file, naming the target",
     (start) => {
       const e = refusal({

@@ -86,7 +86,14 @@ function modelResets(rp: RP2040, dropped: Record<string, number>): void {
  */
 export function bootAndRun(
   flash: Uint8Array,
-  opts: { gpio: number; edgesWanted: number; maxNs: number; maxInstructions?: number },
+  opts: {
+    gpio: number;
+    edgesWanted: number;
+    maxNs: number;
+    maxInstructions?: number;
+    /** called before the first instruction (e.g. to set ADC input values) */
+    setup?: (rp: RP2040) => void;
+  },
 ): RunOutcome {
   if (flash.length < 256) throw new BootRefused("flash image shorter than the 256-byte stage-2 block");
   const stored = new DataView(flash.buffer, flash.byteOffset, 256).getUint32(252, true);
@@ -103,6 +110,7 @@ export function bootAndRun(
   modelResets(rp, dropped);
   rp.core.SP = 0x20042000;
   rp.core.PC = 0x20041f00;
+  opts.setup?.(rp);
 
   const edges: Edge[] = [];
   rp.gpio[opts.gpio].addListener((state) => {

@@ -27,10 +27,10 @@ export default async function CapturePage({ params }: { params: Promise<{ id: st
         <Link href="/captures" className="text-sm underline">
           ← Captures
         </Link>
-        <h1 className="text-xl font-semibold">
+        <h1 className="break-words text-xl font-semibold">
           Capture #{c.id}: {c.fileName}
         </h1>
-        <p className="num text-xs text-ink-soft" title={c.sha256}>
+        <p className="num break-all text-xs text-ink-soft" title={c.sha256}>
           sha256 {c.sha256} · {(c.byteSize / 1024).toFixed(1)} KiB · {c.uploadedBy.name} ·{" "}
           {c.createdAt.slice(0, 16).replace("T", " ")} UTC
         </p>

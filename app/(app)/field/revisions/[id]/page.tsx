@@ -6,6 +6,7 @@ import { notFound } from "next/navigation";
 import { CapturePanel } from "@/components/capture/capture-panel";
 import { CheckForm } from "@/components/field/check-form";
 import { CopySha } from "@/components/field/copy-sha";
+import { VerifyBundle } from "@/components/field/verify-bundle";
 import { FieldHistory } from "@/components/field/field-history";
 import { capturesKey } from "@/components/field/keys";
 import { HazardCaution } from "@/components/ui/hazard-caution";
@@ -49,6 +50,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
             Download bundle
           </a>
         </div>
+        <VerifyBundle sha256={revision.bundleSha256} label={`bundle r${revision.number}`} />
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
       {FIELD.includes(user.role) && approved && (

@@ -2,6 +2,7 @@
 // mean period and mean pulse duration), keeping the link to the capture.
 import { eq, sql } from "drizzle-orm";
 import { z } from "zod";
+import { dbId } from "@/lib/validation/id";
 import { db } from "@/db/client";
 import { captures, retrofits, stages } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
@@ -14,7 +15,7 @@ import { analyzeStage } from "@/lib/engine";
 import { loadReadableCapture } from "@/lib/field/captures";
 import { getRetrofit } from "@/lib/field/queries";
 
-const bodySchema = z.object({ retrofitId: z.number().int().positive().optional() }).strict();
+const bodySchema = z.object({ retrofitId: dbId.optional() }).strict();
 
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Capture");

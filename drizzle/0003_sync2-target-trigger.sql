@@ -1,0 +1,2 @@
+ALTER TABLE "targets" ADD COLUMN "trigger" jsonb;--> statement-breakpoint
+ALTER TABLE "targets" ADD COLUMN "gate_drive" jsonb;
