@@ -37,5 +37,6 @@ stop_bg "dev-worker-$NAME"
 start_bg "dev-worker-$NAME" npx tsx scripts/worker.ts # generation and mail run as jobs
 start_bg "dev-$NAME" node node_modules/next/dist/bin/next dev -p "$PORT"
 wait_for_url "$TEST_BASE_URL/api/health" 240
+wait_for_log ".data/run/dev-worker-$NAME.log" "ready"
 restore_tsconfig
 echo "dev server $NAME on $TEST_BASE_URL (log .data/run/dev-$NAME.log)"
