@@ -48,7 +48,8 @@ export async function stopBoss(): Promise<void> {
 function drizzleQuery(text: string, values: unknown[]): SQL {
   const parts = text.split(/\$(\d+)/);
   const chunks: SQL[] = [];
-  parts.forEach((p, i) => chunks.push(i % 2 === 0 ? sql.raw(p) : sql`${values[Number(p) - 1]}`));
+  // sql.param, not ${value}: drizzle would expand an array value into a list and break a cast.
+  parts.forEach((p, i) => chunks.push(i % 2 === 0 ? sql.raw(p) : sql`${sql.param(values[Number(p) - 1])}`));
   return sql.join(chunks, sql.raw(""));
 }
 
