@@ -22,13 +22,14 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({
 });
 
 export const roleEnum = pgEnum("role", ["admin", "engineer", "reviewer", "technician"]);
+// Values renamed in place by drizzle/*_review-state-words-data.sql; see lib/review/words.ts.
 export const revisionStateEnum = pgEnum("revision_state", [
-  "draft",
-  "in_review",
-  "approved",
-  "changes_requested",
+  "prepared",
+  "awaiting_check",
+  "released",
+  "returned",
 ]);
-export const reviewDecisionEnum = pgEnum("review_decision", ["approved", "changes_requested"]);
+export const reviewDecisionEnum = pgEnum("review_decision", ["release", "return"]);
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
 
@@ -76,6 +77,8 @@ export const stages = pgTable("stages", {
   kind: text("kind").notNull(),
   // Stage fields in SI units, exactly the engine's Stage shape (tolerances included).
   values: jsonb("values").notNull(),
+  // The adjustable value (pot, trimmer, selector) as the engine's StageControl; null = all values fixed.
+  control: jsonb("control"),
   // Set when the stage came from a capture's measurement.
   captureId: integer("capture_id"),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -129,7 +132,7 @@ export const revisions = pgTable(
       .notNull()
       .references(() => retrofits.id),
     number: integer("number").notNull(),
-    state: revisionStateEnum("state").notNull().default("draft"),
+    state: revisionStateEnum("state").notNull().default("prepared"),
     // Snapshot of the inputs and results: the exact BundleSpec and plans.
     spec: jsonb("spec").notNull(),
     analysis: jsonb("analysis").notNull(),

@@ -55,6 +55,7 @@ for (const r of DEMO_RETROFITS) {
       mode: t.mode ?? null,
       timer: t.timer ?? null,
       requiredTolerancePct: t.requiredTolerancePct ?? null,
+      trigger: t.trigger ?? null,
     })),
   );
 }
@@ -77,7 +78,7 @@ for (const tag of ["KL-HTR-03", "MH-BCN-01"]) {
   const now = new Date();
   await db
     .update(revisions)
-    .set({ state: "approved", submittedAt: now, decidedBy: ids.reviewer, decidedAt: now })
+    .set({ state: "released", submittedAt: now, decidedBy: ids.reviewer, decidedAt: now })
     .where(eq(revisions.id, r1[tag]));
 }
 console.log(`seeded ${DEMO_USERS.length} users, ${DEMO_RETROFITS.length} retrofits and their r1 revisions`);

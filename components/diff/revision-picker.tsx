@@ -1,8 +1,8 @@
 import type { RevisionChoice } from "@/lib/diff/load";
-import { STATE_LABELS } from "@/lib/review/states";
+import { STATE_WORDS } from "@/lib/review/words";
 
 const label = (r: RevisionChoice) =>
-  `r${r.number} · ${STATE_LABELS[r.state as keyof typeof STATE_LABELS] ?? r.state}${r.supersededAt ? " (superseded)" : ""}`;
+  `r${r.number} · ${STATE_WORDS[r.state as keyof typeof STATE_WORDS] ?? r.state}${r.supersededAt ? " (superseded)" : ""}`;
 
 /** Plain GET form: works without JavaScript and keeps the pair in the URL. */
 export function RevisionPicker({ choices, a, b }: { choices: RevisionChoice[]; a: number; b: number }) {

@@ -1,4 +1,4 @@
-// Approved bundles by site, then asset: one card per retrofit so the list
+// Released bundles by site, then asset: one card per retrofit so the list
 // reads top to bottom on a phone. Superseded revisions stay listed, marked, so
 // a technician can tell which firmware an older board carries.
 import Link from "next/link";
@@ -64,7 +64,7 @@ export function BundleList({ assets }: { assets: FieldAsset[] }) {
   if (assets.length === 0) {
     return (
       <p className="panel text-ink-soft">
-        No approved bundles yet. Bundles appear here once a reviewer approves a revision for your site.
+        No released bundles yet. Bundles appear here once a checker releases a revision for your site.
       </p>
     );
   }

@@ -26,7 +26,7 @@ export function FieldHistory({ retrofitId }: { retrofitId: number }) {
       )}
       {data && data.checks.length === 0 && (
         <p className="text-ink-soft">
-          No field checks yet. A technician records one from the Field page after installing an approved
+          No field checks yet. A technician records one from the Field page after installing a released
           bundle.
         </p>
       )}

@@ -56,14 +56,14 @@ export function VerifyBundle({ sha256, label }: { sha256: string; label: string 
         {state.kind === "hashing" && <>Hashing {state.name}…</>}
         {state.kind === "match" && (
           <span className="font-medium text-ok">
-            ✓ Matches: {state.name} is the approved bundle (sha256 <span className="num">{state.actual}</span>
+            ✓ Matches: {state.name} is the released bundle (sha256 <span className="num">{state.actual}</span>
             ).
           </span>
         )}
         {state.kind === "mismatch" && (
           <span className="font-medium text-hazard">
             ✗ Does not match: {state.name} has sha256 <span className="num">{state.actual}</span>, the
-            approved bundle has <span className="num">{state.expected}</span>. Do not flash it; download the
+            released bundle has <span className="num">{state.expected}</span>. Do not flash it; download the
             bundle again.
           </span>
         )}

@@ -4,64 +4,14 @@
 // engineering notation; a bad value gets a message naming its field, and the
 // typed text stays in its box.
 import { useState } from "react";
+import { useFormContext } from "react-hook-form";
 import { TravelChart } from "@/components/charts/travel-chart";
-import {
-  analyzeTravel,
-  isEngineError,
-  parseEng,
-  STAGE_FIELDS,
-  type Stage,
-  type StageControl,
-  type TravelAnalysis,
-} from "@/lib/engine";
+import { analyzeTravel, isEngineError, STAGE_FIELDS, type Stage, type TravelAnalysis } from "@/lib/engine";
+import { NO_CONTROL, readControl, type ControlFormValues } from "@/lib/validation/control";
 import { fmtS } from "./format";
 
-type Kind = "none" | StageControl["kind"];
-
-export interface Draft {
-  kind: Kind;
-  field: string;
-  seriesR: string;
-  trackR: string;
-  taper: "linear" | "log";
-  values: string;
-}
-
-function readDraft(d: Draft): { control: unknown } | { error: string } {
-  try {
-    if (d.kind === "selector") {
-      const values = d.values
-        .split(/[,;\s]+/)
-        .filter(Boolean)
-        .map((t, i) => {
-          try {
-            return parseEng(t);
-          } catch {
-            throw new Error(`Selector values, entry ${i + 1} ("${t}") is not a number.`);
-          }
-        });
-      return { control: { kind: "selector", field: d.field, values } };
-    }
-    const num = (label: string, text: string) => {
-      try {
-        return parseEng(text, "Ω");
-      } catch {
-        throw new Error(`${label}: "${text}" is not a resistance (e.g. 47k, 2k2).`);
-      }
-    };
-    return {
-      control: {
-        kind: d.kind,
-        field: d.field,
-        seriesR: d.seriesR.trim() ? num("Series resistor", d.seriesR) : 0,
-        trackR: num("Track resistance", d.trackR),
-        ...(d.kind === "pot" ? { taper: d.taper } : {}),
-      },
-    };
-  } catch (e) {
-    return { error: (e as Error).message };
-  }
-}
+type Kind = ControlFormValues["kind"];
+export type Draft = ControlFormValues;
 
 export function travelFor(
   stage: Stage | null,
@@ -69,8 +19,9 @@ export function travelFor(
   field: string,
 ): { travel: TravelAnalysis } | { error: string } | null {
   if (!stage || d.kind === "none") return null;
-  const read = readDraft({ ...d, field });
-  if ("error" in read) return read;
+  const read = readControl(stage, { ...d, field });
+  if (!read.ok) return { error: read.message };
+  if (!read.control) return null;
   try {
     return { travel: analyzeTravel(stage, read.control) };
   } catch (e) {
@@ -81,24 +32,30 @@ export function travelFor(
 
 const inputClass = "mt-1 w-full rounded border border-paper-line px-2 py-1";
 
-export function ControlFields({ stage }: { stage: Stage | null }) {
-  const [d, setD] = useState<Draft>({
-    kind: "none",
-    field: "",
-    seriesR: "",
-    trackR: "",
-    taper: "linear",
-    values: "",
-  });
+function fieldChoices(stage: Stage | null, kind: Kind) {
   const fields = stage ? (STAGE_FIELDS[stage.kind] ?? []).filter((f) => f.unit !== "bool") : [];
-  const choices = d.kind === "selector" ? fields : fields.filter((f) => f.unit === "Ω");
+  return kind === "selector" ? fields : fields.filter((f) => f.unit === "Ω");
+}
+
+// Inside the workspace form the draft is the form's "control" value, so it is
+// saved with the stage and validated by the same schema; alone it keeps its own state.
+export function ControlFields({ stage }: { stage: Stage | null }) {
+  const form = useFormContext<{ control: Draft }>();
+  const [d, setD] = useState<Draft>(() => form?.getValues("control") ?? { ...NO_CONTROL });
+  const choices = fieldChoices(stage, d.kind);
   const field = choices.some((f) => f.name === d.field) ? d.field : (choices[0]?.name ?? "");
 
   // the React compiler memoises this render-pure call
   const result = travelFor(stage, d, field);
   const travel = result && "travel" in result ? result.travel : null;
 
-  const set = (patch: Partial<Draft>) => setD((x) => ({ ...x, ...patch }));
+  const set = (patch: Partial<Draft>) => {
+    const next = { ...d, ...patch };
+    const nextChoices = fieldChoices(stage, next.kind);
+    if (!nextChoices.some((f) => f.name === next.field)) next.field = nextChoices[0]?.name ?? "";
+    setD(next);
+    form?.setValue("control", next, { shouldDirty: true, shouldValidate: true });
+  };
   return (
     <fieldset className="space-y-2 text-sm" aria-labelledby="control-title">
       <legend id="control-title" className="font-medium">

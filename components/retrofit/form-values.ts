@@ -2,16 +2,20 @@
 // same stage and target schemas the API validates with).
 import { z } from "zod";
 import type { TargetRow } from "@/db/schema";
-import { formatEng, type GateDrive, type Stage } from "@/lib/engine";
+import type { GateDrive, Stage, StageControl } from "@/lib/engine";
 import type { TargetTrigger } from "@/lib/revisions/types";
+import { controlToForm, refineControl, type ControlFormValues } from "@/lib/validation/control";
+import { formText } from "@/lib/validation/form-text";
 import { stageSchema, stageToForm, type StageFormValues } from "@/lib/validation/stage";
 import { targetsSchema, type Target, type TargetInput } from "@/lib/validation/target";
 
-export const workspaceSchema = z.object({ stage: stageSchema, targets: targetsSchema });
-export type WorkspaceForm = { stage: StageFormValues; targets: TargetInput[] };
-export type WorkspaceOut = { stage: Stage; targets: Target[] };
+export const workspaceSchema = z
+  .object({ stage: stageSchema, control: z.unknown().optional(), targets: targetsSchema })
+  .transform(refineControl);
+export type WorkspaceForm = { stage: StageFormValues; control: ControlFormValues; targets: TargetInput[] };
+export type WorkspaceOut = { stage: Stage; control?: StageControl | null; targets: Target[] };
 
-const sText = (v: number | undefined) => (v === undefined ? "" : formatEng(v, "", 6).replace("µ", "u"));
+const sText = (v: number | undefined) => (v === undefined ? "" : formText(v));
 
 export function targetToForm(t: TargetRow): TargetInput {
   const tr = (t.trigger ?? {}) as TargetTrigger;
@@ -19,7 +23,7 @@ export function targetToForm(t: TargetRow): TargetInput {
   return {
     device: t.device,
     clockSource: t.clockSource,
-    clockHz: formatEng(t.clockHz, "", 6).replace("µ", "u"),
+    clockHz: formText(t.clockHz),
     clockAccuracyPpm: t.clockAccuracyPpm === null ? "" : String(t.clockAccuracyPpm),
     mode: (t.mode ?? "") as TargetInput["mode"],
     timer: t.timer ?? "",
@@ -38,6 +42,10 @@ export function targetToForm(t: TargetRow): TargetInput {
   };
 }
 
-export function toForm(stage: Stage | null, targets: TargetRow[]): WorkspaceForm {
-  return { stage: stageToForm(stage), targets: targets.map(targetToForm) };
+export function toForm(
+  stage: Stage | null,
+  targets: TargetRow[],
+  control: StageControl | null = null,
+): WorkspaceForm {
+  return { stage: stageToForm(stage), control: controlToForm(control), targets: targets.map(targetToForm) };
 }

@@ -15,7 +15,8 @@ import type { RevisionState } from "@/db/schema";
 import { STAGE_KINDS } from "@/lib/engine";
 import { fetchJson } from "@/lib/client/fetch-json";
 import type { RetrofitListItem } from "@/lib/retrofits/list";
-import { StateBadge, STATE_LABEL } from "./state-badge";
+import { STATE_WORDS } from "@/lib/review/words";
+import { StateBadge } from "./state-badge";
 
 type ListResponse = {
   items: RetrofitListItem[];
@@ -198,9 +199,9 @@ export function RetrofitsTable({ canEdit }: { canEdit: boolean }) {
           <select id="rf-state" className="input" value={state} onChange={reset(setState)}>
             <option value="">Any state</option>
             <option value="none">No revision yet</option>
-            {(Object.keys(STATE_LABEL) as RevisionState[]).map((s) => (
+            {(Object.keys(STATE_WORDS) as RevisionState[]).map((s) => (
               <option key={s} value={s}>
-                {STATE_LABEL[s]}
+                {STATE_WORDS[s]}
               </option>
             ))}
           </select>

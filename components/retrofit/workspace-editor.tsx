@@ -7,7 +7,7 @@ import { useState } from "react";
 import { FormProvider, useForm, useWatch, type Path, type Resolver } from "react-hook-form";
 import type { TargetRow } from "@/db/schema";
 import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
-import type { Stage } from "@/lib/engine";
+import type { Stage, StageControl } from "@/lib/engine";
 import { AnalysisPanel } from "./analysis-panel";
 import { toForm, workspaceSchema, type WorkspaceForm, type WorkspaceOut } from "./form-values";
 import { useLive } from "./live";
@@ -26,6 +26,7 @@ type Phase =
 export function WorkspaceEditor(props: {
   retrofitId: number;
   stage: Stage | null;
+  control?: StageControl | null;
   targets: TargetRow[];
   editable: boolean;
   nextNumber: number;
@@ -33,7 +34,7 @@ export function WorkspaceEditor(props: {
 }) {
   const form = useForm<WorkspaceForm, unknown, WorkspaceOut>({
     resolver: zodResolver(workspaceSchema) as unknown as Resolver<WorkspaceForm, unknown, WorkspaceOut>,
-    defaultValues: toForm(props.stage, props.targets),
+    defaultValues: toForm(props.stage, props.targets, props.control ?? null),
     mode: "onChange",
   });
   const values = useWatch({ control: form.control }) as WorkspaceForm;
@@ -56,7 +57,7 @@ export function WorkspaceEditor(props: {
         try {
           await fetchJson(`/api/v1/retrofits/${props.retrofitId}`, {
             method: "PATCH",
-            body: JSON.stringify({ stage: out.stage, targets: out.targets }),
+            body: JSON.stringify({ stage: out.stage, control: out.control ?? null, targets: out.targets }),
           });
           if (!then) {
             setPhase({ kind: "saved" });

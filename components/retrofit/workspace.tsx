@@ -5,7 +5,7 @@ import useSWR from "swr";
 import { useState } from "react";
 import type { Retrofit, TargetRow } from "@/db/schema";
 import { HazardCaution } from "@/components/ui/hazard-caution";
-import type { Stage } from "@/lib/engine";
+import type { Stage, StageControl } from "@/lib/engine";
 import { FactsForm } from "./facts-form";
 import { RevisionsList, type RevisionListItem } from "./revisions-list";
 import { WorkspaceEditor } from "./workspace-editor";
@@ -17,6 +17,7 @@ export type RetrofitDetailJson = {
     archivedAt: string | null;
   };
   stage: Stage | null;
+  control?: StageControl | null;
   targets: TargetRow[];
   revisions: RevisionListItem[];
 };
@@ -83,6 +84,7 @@ export function RetrofitWorkspace({ id, canEdit }: { id: number; canEdit: boolea
         key={r.id}
         retrofitId={r.id}
         stage={data.stage}
+        control={data.control ?? null}
         targets={data.targets}
         editable={editable}
         nextNumber={(data.revisions[0]?.number ?? 0) + 1}

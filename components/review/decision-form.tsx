@@ -3,17 +3,18 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
+import type { DecisionWord } from "@/lib/review/words";
 
-/** Approve or request changes, with a note. A 409 (someone decided first) is shown as is. */
+/** Release for the field or return for rework, with a note. A 409 (someone decided first) is shown as is. */
 export function DecisionForm({ revisionId, number }: { revisionId: number; number: number }) {
   const router = useRouter();
   const [note, setNote] = useState("");
-  const [busy, setBusy] = useState<null | "approved" | "changes_requested">(null);
+  const [busy, setBusy] = useState<null | DecisionWord>(null);
   const [error, setError] = useState<string | null>(null);
 
-  async function decide(decision: "approved" | "changes_requested") {
-    if (decision === "changes_requested" && !note.trim()) {
-      setError("Say what has to change in the note, so the engineer knows what to do.");
+  async function decide(decision: DecisionWord) {
+    if (decision === "return" && !note.trim()) {
+      setError("Note: say what has to change, so the engineer knows what to rework.");
       return;
     }
     setBusy(decision);
@@ -39,7 +40,7 @@ export function DecisionForm({ revisionId, number }: { revisionId: number; numbe
     <form className="space-y-3" onSubmit={(e) => e.preventDefault()} aria-label={`Decide on r${number}`}>
       <div>
         <label htmlFor="decision-note" className="field-label">
-          Note to the engineer
+          Note (to the engineer; with a release it also reaches the technicians)
         </label>
         <textarea
           id="decision-note"
@@ -59,17 +60,12 @@ export function DecisionForm({ revisionId, number }: { revisionId: number; numbe
           type="button"
           className="btn-primary"
           disabled={busy !== null}
-          onClick={() => decide("approved")}
+          onClick={() => decide("release")}
         >
-          {busy === "approved" ? "Approving…" : `Approve r${number}`}
+          {busy === "release" ? "Releasing…" : `Release r${number} for the field`}
         </button>
-        <button
-          type="button"
-          className="btn"
-          disabled={busy !== null}
-          onClick={() => decide("changes_requested")}
-        >
-          {busy === "changes_requested" ? "Saving…" : "Request changes"}
+        <button type="button" className="btn" disabled={busy !== null} onClick={() => decide("return")}>
+          {busy === "return" ? "Saving…" : `Return r${number} for rework`}
         </button>
       </div>
     </form>

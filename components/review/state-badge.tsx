@@ -1,12 +1,12 @@
 import type { RevisionState } from "@/db/schema";
-import { STATE_LABELS } from "@/lib/review/states";
+import { STATE_WORDS } from "@/lib/review/words";
 
 // Words carry the state; the colour only repeats it.
 const STYLE: Record<RevisionState, string> = {
-  draft: "border-paper-line bg-paper-sunk text-ink-soft",
-  in_review: "border-accent bg-accent-soft text-accent-strong",
-  approved: "border-ok bg-ok-soft text-ok",
-  changes_requested: "border-hazard bg-hazard-soft text-hazard",
+  prepared: "border-paper-line bg-paper-sunk text-ink-soft",
+  awaiting_check: "border-accent bg-accent-soft text-accent-strong",
+  released: "border-ok bg-ok-soft text-ok",
+  returned: "border-hazard bg-hazard-soft text-hazard",
 };
 
 export function StateBadge({ state, superseded }: { state: RevisionState; superseded?: boolean }) {
@@ -15,7 +15,7 @@ export function StateBadge({ state, superseded }: { state: RevisionState; supers
       className={`inline-block rounded border px-2 py-0.5 text-xs font-medium ${STYLE[state]}`}
       data-testid="revision-state"
     >
-      {STATE_LABELS[state]}
+      {STATE_WORDS[state]}
       {superseded ? " · superseded" : ""}
     </span>
   );

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
 
-/** Sends a draft to the reviewers. */
+/** Sends a prepared revision to the checkers. */
 export function SubmitForReview({ revisionId, number }: { revisionId: number; number: number }) {
   const router = useRouter();
   const [note, setNote] = useState("");
@@ -22,18 +22,16 @@ export function SubmitForReview({ revisionId, number }: { revisionId: number; nu
       });
       router.refresh();
     } catch (err) {
-      setError(
-        err instanceof ClientApiError ? err.message : "Not submitted. Check the connection and try again.",
-      );
+      setError(err instanceof ClientApiError ? err.message : "Not sent. Check the connection and try again.");
     } finally {
       setBusy(false);
     }
   }
 
   return (
-    <form onSubmit={submit} className="space-y-2" aria-label={`Submit r${number} for review`}>
+    <form onSubmit={submit} className="space-y-2" aria-label={`Send r${number} for checking`}>
       <label htmlFor="submit-note" className="field-label">
-        Note to the reviewers (optional)
+        Note to the checkers (optional)
       </label>
       <textarea
         id="submit-note"
@@ -48,7 +46,7 @@ export function SubmitForReview({ revisionId, number }: { revisionId: number; nu
         </p>
       )}
       <button type="submit" className="btn-primary" disabled={busy}>
-        {busy ? "Submitting…" : `Submit r${number} for review`}
+        {busy ? "Sending…" : `Send r${number} for checking`}
       </button>
     </form>
   );

@@ -1,6 +1,7 @@
 // Demo scenario, invented for local use: the Ostberg Valley Water Board and
 // three of its sites. Names, assets and component values are ours.
 import type { Role } from "@/db/schema";
+import type { TargetTrigger } from "@/lib/revisions/types";
 
 export const DEMO_USERS: { email: string; name: string; role: Role; password: string; site?: string }[] = [
   { email: "admin@ostberg.test", name: "Ilse Marant", role: "admin", password: "admin-demo-pass" },
@@ -21,6 +22,8 @@ type DemoTarget = {
   mode?: "pwm" | "toggle" | "isr";
   timer?: string;
   requiredTolerancePct?: number;
+  /** absent: the start follows the stage (zero-cross for a synchronised stage) */
+  trigger?: TargetTrigger;
 };
 
 export type DemoRetrofit = {
@@ -37,23 +40,45 @@ export type DemoRetrofit = {
 
 export const DEMO_RETROFITS: DemoRetrofit[] = [
   {
+    name: "Backwash valve hold-off",
+    site: "Tollbridge Works",
+    assetTag: "TB-BWV-1",
+    boardRef: "BW-2 valve card, IC4",
+    description:
+      "555 one-shot started by the filter float switch; holds the backwash valve off for its pulse.",
+    mainsPowered: false,
+    drivesThyristor: false,
+    stage: { kind: "timer555-monostable", supplyV: 12, r: 220e3, c: 10e-6, tolerances: { r: 0.05, c: 0.2 } },
+    targets: [
+      {
+        device: "atmega328p",
+        clockSource: "crystal",
+        clockHz: 16e6,
+        mode: "isr",
+        trigger: { start: "trigger", delayS: 0, minIntervalS: 10, edge: "falling", retrigger: "ignore" },
+      },
+    ],
+  },
+  {
     name: "Sump heater firing stage",
     site: "Kessler Lane Pump House",
     assetTag: "KL-HTR-03",
     boardRef: "FC-112 firing card, Q4",
-    description: "UJT relaxation oscillator pulsing the heater SCR gate through a pulse transformer.",
+    description:
+      "UJT phase control on the 230 V / 50 Hz mains: rectified and clamped by a 20 V zener, it fires the heater SCR gate through a pulse transformer once per half cycle.",
     mainsPowered: true,
     drivesThyristor: true,
     stage: {
       kind: "ujt",
       supplyV: 20,
-      timingR: 33e3,
-      timingC: 220e-9,
+      timingR: 47e3,
+      timingC: 100e-9,
       eta: 0.65,
+      sync: { mainsHz: 50, mainsVrms: 230 },
       tolerances: { timingR: 0.05, timingC: 0.1, eta: [0.08, 0.08] },
     },
     targets: [
-      { device: "atmega328p", clockSource: "crystal", clockHz: 16e6, mode: "pwm", requiredTolerancePct: 2 },
+      { device: "atmega328p", clockSource: "crystal", clockHz: 16e6, mode: "isr", requiredTolerancePct: 2 },
     ],
   },
   {

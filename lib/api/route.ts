@@ -3,6 +3,7 @@
 // authorise -> act.
 import { ApiError, toResponse } from "./errors";
 import { checkCookieMutation, type BodyType } from "./same-origin";
+import { ID_DIGITS, MAX_DB_ID } from "@/lib/validation/id";
 
 type Ctx<P> = { params: Promise<P> };
 
@@ -55,7 +56,7 @@ export async function readOptionalJson(req: Request, maxBytes = MAX_JSON_BYTES):
 
 /** A positive integer id from a URL segment, or 404. */
 export function parseId(raw: string, what: string): number {
-  if (!/^[1-9][0-9]{0,9}$/.test(raw) || Number(raw) > 2147483647) {
+  if (!ID_DIGITS.test(raw) || Number(raw) > MAX_DB_ID) {
     throw new ApiError("not_found", `${what} was not found.`);
   }
   return Number(raw);

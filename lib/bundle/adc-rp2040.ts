@@ -31,7 +31,13 @@ export function renderRp2040Adc({
     throw new Error("channel: ADC0..ADC3 (GPIO26..29).");
   const gpio = plan.pin.gpio ?? Number(/\d+/.exec(plan.pin.port)?.[0]);
   const last = table.steps.length - 1;
+  const div16 = Math.round(plan.divider * 16);
+  if (Math.abs(div16 - plan.divider * 16) > 1e-9 || div16 < 16 || div16 > 4095)
+    throw new Error(`divider ${plan.divider}: the PWM DIV register takes 1..255 in 1/16 steps.`);
   return render("rp2040/adc-control.h.hbs", {
+    divider: plan.divider,
+    divInt: Math.floor(div16 / 16),
+    divFrac: div16 % 16,
     controlText,
     countsPerStep: table.countsPerStep,
     hysteresis: table.hysteresisCounts,

@@ -1,8 +1,11 @@
 // spec -> files. Data flows one way: stage -> analysis -> plans -> files.
 // Nothing here reads the clock, a random source or object key order.
 import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } from "@/lib/engine";
+import { controlOnTarget } from "./adc-control";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
+import { avrTriggerView } from "./trigger-avr";
+import { triggerDoc } from "./trigger-doc";
 import { sha256Hex } from "./hash";
 import { checklistLimits, limitBasis } from "./limits";
 import { oldOutputNote } from "./old-output";
@@ -11,6 +14,9 @@ import { render } from "./render";
 import { cautionLines } from "./safety";
 import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
+
+/** Devices whose templates make triggered and zero-cross firmware. */
+const TRIGGER_DEVICES = new Set(["atmega328p", "attiny85"]);
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;
 
@@ -40,13 +46,13 @@ function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
         `targets.${index}`,
       );
     }
-    // The templates make free-running firmware only: a triggered or zero-cross
-    // plan must never be shipped as a free-running image.
-    const start = (plan as { start?: string }).start;
-    if (start !== undefined && start !== "free")
+    // Triggered and zero-cross firmware exists for the AVRs only (trigger-avr.ts);
+    // elsewhere such a plan must never be shipped as a free-running image.
+    const start = plan.start;
+    if (start !== undefined && start !== "free" && !TRIGGER_DEVICES.has(plan.device))
       throw new EngineError(
         "invalid-request",
-        `target ${index + 1} (${request.device}): no firmware for triggered starts yet (start "${start}"); plan it free-running or wait for triggered-start firmware.`,
+        `target ${index + 1} (${request.device}): no firmware for triggered starts on ${DEVICES[plan.device]?.name ?? plan.device} yet (start "${start}"); plan it free-running or use an ATmega328P or ATtiny85.`,
         `targets.${index}`,
       );
     return plan;
@@ -96,6 +102,16 @@ export function buildBundleSourcesWith(
     const limits = checklistLimits(plan, analysis, {
       requiredRelative: typeof pct === "number" && pct > 0 ? pct / 100 : undefined,
     });
+    const adjust = controlOnTarget(spec, spec.targets[i], i);
+    const kept = adjust?.kept ? adjust.control : null;
+    // the ADC firmware drives the table plan's timer and pin: the pin map and checks must name the same
+    const tp = kept?.table.plan;
+    if (tp && (plan.mode !== "pwm" || plan.modeFactor !== tp.modeFactor || plan.pin.port !== tp.pin.port))
+      throw new EngineError(
+        "invalid-request",
+        `target ${i + 1} (${plan.device}): the kept rate pot runs ${tp.timer} in PWM on ${tp.pin.port}; plan this target as pwm on ${tp.timer}.`,
+        `targets.${i}`,
+      );
     const own = images?.byFolder[folders[i]] ?? [];
     const imageList = own.map((f) => ({
       path: f.path,
@@ -117,6 +133,8 @@ export function buildBundleSourcesWith(
       writes: view.writes,
       pin: view.pin,
       x: view.extra,
+      trigger: TRIGGER_DEVICES.has(plan.device) ? avrTriggerView(plan) : null,
+      triggerDoc: triggerDoc(plan),
       soft: { wide: plan.softwareDivider > 65535 },
       cautions,
       hasCautions: cautions.length > 0,
@@ -129,10 +147,17 @@ export function buildBundleSourcesWith(
       hasImages: imageList.length > 0,
       flashing: view.flashing ?? [],
       limitsEnd: limits.length + 3,
+      // the stage's control on this target: kept (ADC firmware), or not kept with the reason
+      adc: kept
+        ? { wiring: kept.wiring, lines: kept.lines, summary: kept.summary, steps: kept.table.steps.length }
+        : false,
+      adcNote: adjust && !adjust.kept ? adjust.note : "",
     };
     for (const [out, tpl] of Object.entries(entry.files)) {
+      if (kept && kept.file.path === out) continue;
       files.push({ path: `${folders[i]}/${out}`, content: render(`${plan.device}/${tpl}`, ctx) });
     }
+    if (kept) files.push({ path: `${folders[i]}/${kept.file.path}`, content: kept.file.content });
     for (const name of ["PINMAP.md", "pinmap.csv", "CHECKLIST.md"]) {
       files.push({ path: `${folders[i]}/${name}`, content: render(`common/${name}.hbs`, ctx) });
     }
@@ -143,6 +168,7 @@ export function buildBundleSourcesWith(
       limits,
       images: imageList,
       flashing: view.flashing ?? [],
+      control: kept ? kept.summary : adjust && !adjust.kept ? { kept: false, note: adjust.note } : null,
     };
   });
   files.push({
@@ -152,12 +178,14 @@ export function buildBundleSourcesWith(
       retrofit,
       revision: spec.revision,
       stage: spec.stage,
+      ...(spec.control ? { control: spec.control } : {}),
       analysis,
       targets: targets.map((t, i) => ({
         folder: t.folder,
         request: spec.targets[i],
         plan: t.plan,
         limits: t.limits,
+        ...(t.control ? { control: t.control } : {}),
       })),
     }),
   });

@@ -53,9 +53,8 @@ export function checklistLimits(
   // The old stage's analysis is reference only: the new board must match the
   // plan, which already carries the choice of what to reproduce.
   _analysis?: StageAnalysis | null,
-  options: LimitOptions | number = {},
+  o: LimitOptions = {},
 ): ChecklistLimit[] {
-  const o: LimitOptions = typeof options === "number" ? { clockAccuracyPpm: options } : options;
   const b = limitBasis(plan, o.clockAccuracyPpm);
   const required = o.requiredRelative !== undefined && o.requiredRelative > 0 ? o.requiredRelative : 0;
   const resolution = o.resolutionS !== undefined && o.resolutionS > 0 ? o.resolutionS : 0;

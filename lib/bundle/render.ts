@@ -25,6 +25,18 @@ hb.registerHelper("add", (a: number, b: number) => a + b);
 
 const cache = new Map<string, HandlebarsTemplateDelegate>();
 
+/** `{{> [device/file.hbs]}}` includes templates/device/file.hbs, so a feature's code
+ * lives in its own file and the main template only holds the include line. */
+function registerPartials(source: string): void {
+  for (const m of source.matchAll(/\{\{>\s*\[([\w./-]+\.hbs)\]/g)) {
+    const rel = m[1];
+    if (rel.includes("..")) throw new Error(`template include outside templates/: ${rel}`);
+    const text = readFileSync(path.join(templatesRoot(), rel), "utf8");
+    hb.registerPartial(rel, text);
+    registerPartials(text);
+  }
+}
+
 export function templatesRoot(): string {
   return path.join(process.cwd(), "templates");
 }
@@ -33,7 +45,9 @@ function compiled(rel: string): HandlebarsTemplateDelegate {
   let t = cache.get(rel);
   if (!t) {
     const file = path.join(templatesRoot(), rel);
-    t = hb.compile(readFileSync(file, "utf8"), { noEscape: true, strict: true });
+    const source = readFileSync(file, "utf8");
+    registerPartials(source);
+    t = hb.compile(source, { noEscape: true, strict: true });
     cache.set(rel, t);
   }
   return t;
@@ -50,4 +64,5 @@ export function render(rel: string, context: object): string {
 /** Forget compiled templates (tests that edit templates). */
 export function clearTemplateCache(): void {
   cache.clear();
+  for (const name of Object.keys(hb.partials)) hb.unregisterPartial(name);
 }

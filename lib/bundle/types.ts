@@ -1,6 +1,7 @@
 // Shapes of the bundle contract (engine.md section 5). `BundlePlan` lists the
 // TimerPlan fields the generator reads, so a hand-built plan and the solver's
 // plan are interchangeable here.
+import type { StageControl } from "@/lib/engine/adjust/types";
 import type { Stage, StageAnalysis } from "@/lib/engine/stage-types";
 
 export type PlanMode = "pwm" | "toggle" | "isr";
@@ -16,9 +17,11 @@ export interface BundleTargetRequest {
   clockSource?: string;
   /** Package name from DeviceInfo.packages; omitted = the device's default package. */
   package?: string;
-  /** engine.md section 6; "trigger" / "zero-cross" bundles are refused until their firmware exists */
+  /** engine.md section 6; "trigger" / "zero-cross" firmware exists for the AVRs, other devices refuse it */
   start?: "free" | "trigger" | "zero-cross";
   delayS?: number;
+  edge?: "rising" | "falling" | "both";
+  retrigger?: "ignore" | "restart";
   /** The engineer's required tolerance in percent; the checklist's pass limits follow it. */
   requiredTolerancePct?: number;
 }
@@ -35,6 +38,8 @@ export interface BundleSpec {
   retrofit: BundleRetrofit;
   revision: number;
   stage: Stage;
+  /** the stage's adjustable value; a pot is read on an ADC pin by targets with ADC firmware */
+  control?: StageControl | null;
   targets: BundleTargetRequest[];
 }
 
@@ -78,6 +83,19 @@ export interface BundlePlan {
   jitterS?: number;
   clockAccuracyPpm?: number;
   clockSource?: string;
+  activeLow?: boolean;
+  // Triggered plans (engine.md section 6; TimerPlan's fields of the same names).
+  start?: "free" | "trigger" | "zero-cross";
+  delayS?: number;
+  delayCounts?: number;
+  latencyS?: number;
+  latencyCycles?: number;
+  latencyBasis?: string;
+  input?: BundlePin;
+  edge?: "rising" | "falling" | "both";
+  edgeSetting?: string;
+  retrigger?: "ignore" | "restart";
+  inputConditioning?: string;
 }
 
 export type { Stage, StageAnalysis };

@@ -41,7 +41,7 @@ export const NOTHING_ID = 0;
 const nothing = (retrofitId: number): Loaded & { site: string } => ({
   id: NOTHING_ID,
   number: 0,
-  state: "draft",
+  state: "prepared",
   retrofitId,
   spec: {},
   analysis: {},
@@ -100,9 +100,11 @@ export async function defaultPair(
 ): Promise<{ a: number; b: number } | null> {
   const all = await revisionsOf(retrofitId);
   const b =
-    (bId ? all.find((r) => r.id === bId) : undefined) ?? all.find((r) => r.state === "in_review") ?? all[0];
+    (bId ? all.find((r) => r.id === bId) : undefined) ??
+    all.find((r) => r.state === "awaiting_check") ??
+    all[0];
   if (!b) return null;
   const older = all.filter((r) => r.number < b.number);
-  const a = older.find((r) => r.state === "approved") ?? older[0];
+  const a = older.find((r) => r.state === "released") ?? older[0];
   return { a: a?.id ?? NOTHING_ID, b: b.id };
 }

@@ -34,13 +34,13 @@ function devicesOf(spec: unknown): string[] {
   return Array.isArray(targets) ? targets.map((t) => String(t?.device ?? "")) : [];
 }
 
-/** Approved revisions (current and superseded) grouped by retrofit, ordered by site and asset. */
+/** Released revisions (current and superseded) grouped by retrofit, ordered by site and asset. */
 export async function listFieldAssets({ user }: { user: AuthUser }): Promise<FieldAsset[]> {
   const rows = await db
     .select({ r: revisionColumns, f: retrofits })
     .from(revisions)
     .innerJoin(retrofits, eq(revisions.retrofitId, retrofits.id))
-    .where(and(eq(revisions.state, "approved"), isNull(retrofits.archivedAt), siteFilter(user)))
+    .where(and(eq(revisions.state, "released"), isNull(retrofits.archivedAt), siteFilter(user)))
     .orderBy(asc(retrofits.site), asc(retrofits.assetTag), asc(retrofits.id), desc(revisions.number));
   const byRetrofit = new Map<number, FieldAsset>();
   for (const { r, f } of rows) {
@@ -91,7 +91,7 @@ export async function technicianSeesRetrofit({ user, retrofitId }: { user: AuthU
     .select({ id: revisions.id })
     .from(revisions)
     .innerJoin(retrofits, eq(revisions.retrofitId, retrofits.id))
-    .where(and(eq(revisions.retrofitId, retrofitId), eq(revisions.state, "approved"), siteFilter(user)))
+    .where(and(eq(revisions.retrofitId, retrofitId), eq(revisions.state, "released"), siteFilter(user)))
     .limit(1);
   return !!row;
 }
@@ -133,7 +133,7 @@ export async function listFieldChecks({
 }): Promise<FieldCheckView[]> {
   const limitToReadable = READ_ALL.includes(user.role)
     ? undefined
-    : and(eq(revisions.state, "approved"), siteFilter(user));
+    : and(eq(revisions.state, "released"), siteFilter(user));
   const rows = await db
     .select({
       c: fieldChecks,

@@ -42,10 +42,10 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
   if (!found) throw new ApiError("not_found", "Revision was not found.");
   const { revision, retrofit } = found;
   assertCanReadRevision(user, revision, retrofit);
-  if (revision.state !== "approved") {
+  if (revision.state !== "released") {
     throw new ApiError(
       "conflict",
-      `r${revision.number} is ${revision.state.replace("_", " ")}; only approved revisions are checked in the field.`,
+      `r${revision.number} is ${revision.state.replace("_", " ")}; only revisions released for the field are checked there.`,
     );
   }
 

@@ -2,6 +2,7 @@
 // that takes the reader straight to the page where they act.
 import type { OutgoingMail } from "./outbox";
 import { env } from "@/lib/env";
+import { DECISION_WORDS, type DecisionWord } from "@/lib/review/words";
 
 type RevisionInfo = { id: number; number: number };
 type RetrofitInfo = { id: number; name: string; site: string; assetTag: string };
@@ -17,12 +18,12 @@ export function reviewRequestedMail(o: {
   reviewers: Person[];
   note: string;
 }): OutgoingMail[] {
-  const subject = `Review requested: ${label(o.retrofit, o.revision)}`;
+  const subject = `Please check: ${label(o.retrofit, o.revision)}`;
   const body = [
-    `${o.author.name} submitted ${label(o.retrofit, o.revision)} at ${o.retrofit.site} for review.`,
+    `${o.author.name} sent ${label(o.retrofit, o.revision)} at ${o.retrofit.site} for checking.`,
     o.note ? `\nNote: ${o.note}\n` : "",
-    `Compare and decide: ${base()}/retrofits/${o.retrofit.id}/compare?b=${o.revision.id}`,
-    `Review page: ${base()}/revisions/${o.revision.id}/review`,
+    `Compare with the earlier revision: ${base()}/retrofits/${o.retrofit.id}/compare?b=${o.revision.id}`,
+    `Release or return it here: ${base()}/revisions/${o.revision.id}/review`,
   ].join("\n");
   return o.reviewers.map((r) => ({ kind: "review-requested", to: r.email, subject, body }));
 }
@@ -32,39 +33,49 @@ export function decisionMail(o: {
   retrofit: RetrofitInfo;
   author: Person;
   reviewer: Person;
-  decision: "approved" | "changes_requested";
+  decision: DecisionWord;
   note: string;
 }): OutgoingMail {
-  const verdict = o.decision === "approved" ? "approved" : "changes requested";
+  const verdict = DECISION_WORDS[o.decision];
   const next =
-    o.decision === "approved"
-      ? "The bundle is now available to the field technicians."
-      : "Address the comments, generate a new revision and submit it.";
+    o.decision === "release"
+      ? "The bundle is now the field revision; technicians at the site can download and flash it."
+      : "Work through the comments, generate a new revision and send it for checking.";
   return {
     kind: "review-decision",
     to: o.author.email,
-    subject: `Review decision (${verdict}): ${label(o.retrofit, o.revision)}`,
+    subject: `${o.decision === "release" ? "Released" : "Returned"}: ${label(o.retrofit, o.revision)}`,
     body: [
-      `${o.reviewer.name} decided on ${label(o.retrofit, o.revision)}: ${verdict}.`,
+      `${o.reviewer.name} checked ${label(o.retrofit, o.revision)}: ${verdict}.`,
       o.note ? `\nNote: ${o.note}\n` : "",
       next,
-      `Review page: ${base()}/revisions/${o.revision.id}/review`,
+      `Check page: ${base()}/revisions/${o.revision.id}/review`,
     ].join("\n"),
   };
 }
 
-export function approvedMail(o: {
+/** To the site's technicians: which revision is now current, exactly, and
+ *  which earlier released revisions it replaces (none, or their numbers). */
+export function releasedMail(o: {
   revision: RevisionInfo & { bundleSha256: string };
   retrofit: RetrofitInfo;
   technicians: Person[];
+  replaces: number[];
+  note: string;
 }): OutgoingMail[] {
-  const subject = `Revision approved: ${label(o.retrofit, o.revision)}`;
+  const subject = `Field revision now r${o.revision.number}: ${o.retrofit.name} (${o.retrofit.assetTag})`;
+  const replaced =
+    o.replaces.length === 0
+      ? "No earlier revision of this retrofit was released for the field."
+      : `It replaces ${o.replaces.map((n) => `r${n}`).join(", ")}; do not flash ${o.replaces.length === 1 ? "that revision" : "those revisions"} any more.`;
   const body = [
-    `${label(o.retrofit, o.revision)} at ${o.retrofit.site} is approved for the field and replaces any earlier approved revision.`,
+    `${label(o.retrofit, o.revision)} at ${o.retrofit.site} is released for the field and is now the current field revision.`,
+    replaced,
+    o.note ? `\nNote from the checker: ${o.note}\n` : "",
     `Bundle sha256: ${o.revision.bundleSha256}`,
-    `Download and checklist: ${base()}/revisions/${o.revision.id}`,
+    `Download and checklist: ${base()}/field/revisions/${o.revision.id}`,
   ].join("\n");
-  return o.technicians.map((t) => ({ kind: "revision-approved", to: t.email, subject, body }));
+  return o.technicians.map((t) => ({ kind: "revision-released", to: t.email, subject, body }));
 }
 
 export function invitationMail(o: {

@@ -12,7 +12,7 @@ import { sendJob } from "@/lib/jobs/boss";
 import { QUEUES } from "@/lib/jobs/queues";
 
 export type MailKind =
-  "review-requested" | "review-decision" | "revision-approved" | "invitation" | "field-check-failed";
+  "review-requested" | "review-decision" | "revision-released" | "invitation" | "field-check-failed";
 
 export type OutgoingMail = { kind: MailKind; to: string; subject: string; body: string };
 

@@ -3,16 +3,24 @@ import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
 import { retrofits, stages, targets, type Retrofit, type TargetRow } from "@/db/schema";
-import type { Stage } from "@/lib/engine";
+import type { Stage, StageControl } from "@/lib/engine";
+import { storedControl } from "@/lib/validation/control";
 
 export async function getRetrofitById({ id }: { id: number }, tx?: Tx): Promise<Retrofit | null> {
   const [row] = await (tx ?? db).select().from(retrofits).where(eq(retrofits.id, id));
   return row ?? null;
 }
 
-export async function getStageByRetrofitId({ retrofitId }: { retrofitId: number }): Promise<Stage | null> {
+/** The working stage and its control, from one read of the stage row. */
+export async function getStageByRetrofitId({
+  retrofitId,
+}: {
+  retrofitId: number;
+}): Promise<{ stage: Stage; control: StageControl | null } | null> {
   const [row] = await db.select().from(stages).where(eq(stages.retrofitId, retrofitId));
-  return row ? (row.values as Stage) : null;
+  if (!row) return null;
+  const stage = row.values as Stage;
+  return { stage, control: storedControl(stage, row.control) };
 }
 
 export async function getTargetsByRetrofitId({ retrofitId }: { retrofitId: number }): Promise<TargetRow[]> {
@@ -26,15 +34,21 @@ export async function getTargetsByRetrofitId({ retrofitId }: { retrofitId: numbe
 export type RetrofitDetail = {
   retrofit: Retrofit;
   stage: Stage | null;
+  control: StageControl | null;
   targets: TargetRow[];
 };
 
 export async function getRetrofitDetail({ id }: { id: number }): Promise<RetrofitDetail | null> {
   const retrofit = await getRetrofitById({ id });
   if (!retrofit) return null;
-  const [stage, targetRows] = await Promise.all([
+  const [stageRow, targetRows] = await Promise.all([
     getStageByRetrofitId({ retrofitId: id }),
     getTargetsByRetrofitId({ retrofitId: id }),
   ]);
-  return { retrofit, stage, targets: targetRows };
+  return {
+    retrofit,
+    stage: stageRow?.stage ?? null,
+    control: stageRow?.control ?? null,
+    targets: targetRows,
+  };
 }

@@ -6,18 +6,20 @@ import { db, type Tx } from "@/db/client";
 import { retrofits, stages, targets, type Retrofit } from "@/db/schema";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
-import type { Stage } from "@/lib/engine";
+import type { Stage, StageControl } from "@/lib/engine";
 import type { RetrofitFacts } from "@/lib/validation/retrofit";
 import type { Target } from "@/lib/validation/target";
 import { gateDriveOf, triggerOf } from "@/lib/revisions/plan-targets";
 
-async function putStage(tx: Tx, retrofitId: number, stage: Stage) {
+// control undefined leaves a stored control as it is (reads drop one that no longer fits the stage).
+async function putStage(tx: Tx, retrofitId: number, stage: Stage, control?: StageControl | null) {
+  const kept = control === undefined ? {} : { control };
   await tx
     .insert(stages)
-    .values({ retrofitId, kind: stage.kind, values: stage })
+    .values({ retrofitId, kind: stage.kind, values: stage, ...kept })
     .onConflictDoUpdate({
       target: stages.retrofitId,
-      set: { kind: stage.kind, values: stage, captureId: null, updatedAt: new Date() },
+      set: { kind: stage.kind, values: stage, ...kept, captureId: null, updatedAt: new Date() },
     });
 }
 
@@ -47,16 +49,16 @@ export async function createRetrofit({
   input,
   userId,
 }: {
-  input: RetrofitFacts & { stage?: Stage; targets?: Target[] };
+  input: RetrofitFacts & { stage?: Stage; control?: StageControl | null; targets?: Target[] };
   userId: number;
 }): Promise<Retrofit> {
   return db.transaction(async (tx) => {
-    const { stage, targets: list, ...facts } = input;
+    const { stage, control, targets: list, ...facts } = input;
     const [row] = await tx
       .insert(retrofits)
       .values({ ...facts, createdBy: userId })
       .returning();
-    if (stage) await putStage(tx, row.id, stage);
+    if (stage) await putStage(tx, row.id, stage, control);
     if (list) await putTargets(tx, row.id, list);
     await recordAudit(
       {
@@ -78,7 +80,7 @@ export async function updateRetrofit({
   userId,
 }: {
   id: number;
-  input: Partial<RetrofitFacts> & { stage?: Stage; targets?: Target[] };
+  input: Partial<RetrofitFacts> & { stage?: Stage; control?: StageControl | null; targets?: Target[] };
   userId: number;
 }): Promise<Retrofit> {
   return db.transaction(async (tx) => {
@@ -86,13 +88,13 @@ export async function updateRetrofit({
     if (!current) throw notFound("Retrofit");
     if (current.archivedAt)
       throw new ApiError("conflict", "This retrofit is archived and can no longer be edited.");
-    const { stage, targets: list, ...facts } = input;
+    const { stage, control, targets: list, ...facts } = input;
     const [row] = await tx
       .update(retrofits)
       .set({ ...facts, updatedAt: new Date() })
       .where(eq(retrofits.id, id))
       .returning();
-    if (stage) await putStage(tx, id, stage);
+    if (stage) await putStage(tx, id, stage, control);
     if (list) await putTargets(tx, id, list);
     const changed = [...Object.keys(facts), ...(stage ? ["stage"] : []), ...(list ? ["targets"] : [])];
     await recordAudit(

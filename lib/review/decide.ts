@@ -1,55 +1,64 @@
-// Approving or requesting changes. Atomic: the state moves only with
-// UPDATE ... WHERE state = 'in_review' AND created_by <> reviewer, so when two
+// Releasing for the field or returning for rework. Atomic: the state moves only with
+// UPDATE ... WHERE state = 'awaiting_check' AND created_by <> reviewer, so when two
 // reviewers decide at once PostgreSQL lets one UPDATE through and the other,
 // after waiting for the row lock, matches no row and gets 409. The review row,
-// the superseding of older approved revisions, the audit event and the mail
+// the superseding of older released revisions, the audit event and the mail
 // all commit together with the state.
 import "server-only";
-import { and, eq, gt, isNull, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, gt, inArray, isNull, lt, ne, sql } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
 import { retrofits, reviews, revisions, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
-import { approvedMail, decisionMail } from "@/lib/mail/messages";
+import { releasedMail, decisionMail } from "@/lib/mail/messages";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
-import { decideRefusal, STATE_LABELS, type Decision } from "./states";
+import { decideRefusal, type Decision } from "./states";
+import { DECISION_STATE, REVIEW_ACTIONS, STATE_WORDS } from "./words";
 
 export async function decideRevision(user: AuthUser, revisionId: number, decision: Decision, note = "") {
   const result = await db.transaction(async (tx) => {
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = decideRefusal(user, revision);
     if (refusal) throw refusal;
-    // Decisions on one retrofit queue up here, so superseding sees every approval.
+    // Decisions on one retrofit queue up here, so superseding sees every release.
     await tx.select({ id: retrofits.id }).from(retrofits).where(eq(retrofits.id, retrofit.id)).for("update");
+    if (decision === "release") {
+      const stale = await newerCandidate(tx, retrofit.id, revision.number);
+      if (stale) throw stale;
+    }
     const now = new Date();
     const [moved] = await tx
       .update(revisions)
-      .set({ state: decision, decidedBy: user.id, decidedAt: now })
+      .set({ state: DECISION_STATE[decision], decidedBy: user.id, decidedAt: now })
       .where(
-        and(eq(revisions.id, revisionId), eq(revisions.state, "in_review"), ne(revisions.createdBy, user.id)),
+        and(
+          eq(revisions.id, revisionId),
+          eq(revisions.state, "awaiting_check"),
+          ne(revisions.createdBy, user.id),
+        ),
       )
       .returning({ id: revisions.id });
     if (!moved) throw await lostRace(revisionId, revision.number);
 
     await tx.insert(reviews).values({ revisionId, reviewerId: user.id, decision, note });
     let superseded: number[] = [];
-    if (decision === "approved")
+    if (decision === "release")
       superseded = await supersede(tx, retrofit.id, revision.number, revisionId, now);
 
     await recordAudit(
       {
         actorId: user.id,
-        action: decision === "approved" ? "revision.approve" : "revision.request-changes",
+        action: REVIEW_ACTIONS[decision],
         subjectType: "revision",
         subjectId: revisionId,
         details: {
           retrofitId: retrofit.id,
           number: revision.number,
-          from: "in_review",
-          to: decision,
+          from: "awaiting_check",
+          to: DECISION_STATE[decision],
           note,
           superseded,
         },
@@ -58,11 +67,17 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
     );
     const reviewer = { name: user.name, email: user.email };
     await enqueueMail([decisionMail({ revision, retrofit, author, reviewer, decision, note })], tx);
-    if (decision === "approved") {
+    if (decision === "release") {
       const technicians = await techniciansOfSite(tx, retrofit.site);
-      await enqueueMail(approvedMail({ revision, retrofit, technicians }), tx);
+      await enqueueMail(releasedMail({ revision, retrofit, technicians, replaces: superseded, note }), tx);
     }
-    return { id: revisionId, number: revision.number, state: decision, decidedAt: now, superseded };
+    return {
+      id: revisionId,
+      number: revision.number,
+      state: DECISION_STATE[decision],
+      decidedAt: now,
+      superseded,
+    };
   });
   return result;
 }
@@ -74,7 +89,7 @@ async function lostRace(revisionId: number, number: number): Promise<ApiError> {
     .from(revisions)
     .leftJoin(users, eq(users.id, revisions.decidedBy))
     .where(eq(revisions.id, revisionId));
-  const state = row ? STATE_LABELS[row.state].toLowerCase() : "changed";
+  const state = row ? STATE_WORDS[row.state].toLowerCase() : "changed";
   const by = row?.by ? ` by ${row.by}` : "";
   return new ApiError(
     "conflict",
@@ -82,8 +97,31 @@ async function lostRace(revisionId: number, number: number): Promise<ApiError> {
   );
 }
 
-/** Marks older approved revisions superseded; returns their numbers. If a newer
- *  approved revision already exists, the one just approved is superseded at once. */
+/** Only the newest revision that can be released may become the field
+ *  revision: a newer one awaiting check or already released blocks the release
+ *  of an older one (returning the older one is still allowed). */
+async function newerCandidate(tx: Tx, retrofitId: number, number: number): Promise<ApiError | null> {
+  const [newer] = await tx
+    .select({ number: revisions.number, state: revisions.state })
+    .from(revisions)
+    .where(
+      and(
+        eq(revisions.retrofitId, retrofitId),
+        gt(revisions.number, number),
+        inArray(revisions.state, ["awaiting_check", "released"]),
+      ),
+    )
+    .orderBy(desc(revisions.number))
+    .limit(1);
+  if (!newer) return null;
+  return new ApiError(
+    "conflict",
+    `r${newer.number} is newer and ${STATE_WORDS[newer.state].toLowerCase()}; only the newest revision can become the field revision. Release or return r${newer.number}, or return r${number}.`,
+  );
+}
+
+/** Marks older released revisions superseded; returns their numbers. If a newer
+ *  released revision already exists, the one just released is superseded at once. */
 async function supersede(
   tx: Tx,
   retrofitId: number,
@@ -97,7 +135,7 @@ async function supersede(
     .where(
       and(
         eq(revisions.retrofitId, retrofitId),
-        eq(revisions.state, "approved"),
+        eq(revisions.state, "released"),
         lt(revisions.number, number),
         isNull(revisions.supersededAt),
       ),
@@ -109,7 +147,7 @@ async function supersede(
     .where(
       and(
         eq(revisions.retrofitId, retrofitId),
-        eq(revisions.state, "approved"),
+        eq(revisions.state, "released"),
         gt(revisions.number, number),
       ),
     );

@@ -4,6 +4,7 @@ import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { auditEvents, reviews, users } from "@/db/schema";
+import { REVIEW_ACTIONS } from "./words";
 
 export async function revisionHistory(revisionId: number) {
   return db
@@ -37,9 +38,9 @@ export async function revisionReviews(revisionId: number) {
 
 export const ACTION_LABELS: Record<string, string> = {
   "revision.generate": "generated",
-  "revision.submit": "submitted for review",
-  "revision.approve": "approved",
-  "revision.request-changes": "requested changes",
+  [REVIEW_ACTIONS.submit]: "sent for checking",
+  [REVIEW_ACTIONS.release]: "released for the field",
+  [REVIEW_ACTIONS.return]: "returned for rework",
   "revision.download": "downloaded the bundle",
   "comment.add": "commented",
 };

@@ -1,4 +1,4 @@
-// The review queue: revisions in review, newest submission first.
+// The check queue: revisions awaiting check, newest first.
 import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
@@ -20,6 +20,6 @@ export async function reviewQueue() {
     .from(revisions)
     .innerJoin(retrofits, eq(retrofits.id, revisions.retrofitId))
     .innerJoin(users, eq(users.id, revisions.createdBy))
-    .where(eq(revisions.state, "in_review"))
+    .where(eq(revisions.state, "awaiting_check"))
     .orderBy(desc(revisions.submittedAt), desc(revisions.id));
 }

@@ -1,5 +1,5 @@
-// Submitting a draft for review. The state moves with a conditional UPDATE
-// (WHERE state = 'draft'), so a double click or two engineers at once submit
+// Sending a prepared revision for checking. The state moves with a conditional UPDATE
+// (WHERE state = 'prepared'), so a double click or two engineers at once submit
 // it exactly once; the audit event and the mail to the reviewers are written
 // in the same transaction and sent after it commits.
 import "server-only";
@@ -13,7 +13,8 @@ import { reviewRequestedMail } from "@/lib/mail/messages";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { activeReviewers } from "./recipients";
-import { STATE_LABELS, submitRefusal } from "./states";
+import { submitRefusal } from "./states";
+import { REVIEW_ACTIONS, STATE_WORDS } from "./words";
 
 export async function submitRevision(user: AuthUser, revisionId: number, note = "") {
   const result = await db.transaction(async (tx) => {
@@ -23,29 +24,35 @@ export async function submitRevision(user: AuthUser, revisionId: number, note = 
     const now = new Date();
     const [moved] = await tx
       .update(revisions)
-      .set({ state: "in_review", submittedAt: now })
-      .where(and(eq(revisions.id, revisionId), eq(revisions.state, "draft")))
+      .set({ state: "awaiting_check", submittedAt: now })
+      .where(and(eq(revisions.id, revisionId), eq(revisions.state, "prepared")))
       .returning({ id: revisions.id });
     if (!moved) {
       const fresh = await loadRevisionForReview(revisionId, tx);
       throw new ApiError(
         "conflict",
-        `r${revision.number} was submitted a moment ago by someone else; it is now ${STATE_LABELS[fresh.revision.state].toLowerCase()}.`,
+        `r${revision.number} was submitted a moment ago by someone else; it is now ${STATE_WORDS[fresh.revision.state].toLowerCase()}.`,
       );
     }
     await recordAudit(
       {
         actorId: user.id,
-        action: "revision.submit",
+        action: REVIEW_ACTIONS.submit,
         subjectType: "revision",
         subjectId: revisionId,
-        details: { retrofitId: retrofit.id, number: revision.number, from: "draft", to: "in_review", note },
+        details: {
+          retrofitId: retrofit.id,
+          number: revision.number,
+          from: "prepared",
+          to: "awaiting_check",
+          note,
+        },
       },
       tx,
     );
     const reviewers = await activeReviewers(tx, revision.createdBy);
     await enqueueMail(reviewRequestedMail({ revision, retrofit, author, reviewers, note }), tx);
-    return { id: revisionId, number: revision.number, state: "in_review" as const, submittedAt: now };
+    return { id: revisionId, number: revision.number, state: "awaiting_check" as const, submittedAt: now };
   });
   return result;
 }

@@ -17,7 +17,7 @@ export function canReadRevision(
 ): boolean {
   if (READ_ALL.includes(user.role)) return true;
   if (user.role !== "technician") return false;
-  if (revision.state !== "approved") return false;
+  if (revision.state !== "released") return false;
   return user.site === null || user.site === retrofit.site;
 }
 

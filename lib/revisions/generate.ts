@@ -29,7 +29,15 @@ import {
   isTextFile,
 } from "@/lib/bundle";
 import { targetFolders } from "@/lib/bundle/folders";
-import { analyzeStage, ENGINE_VERSION, isEngineError, validateStage, type Stage } from "@/lib/engine";
+import {
+  analyzeStage,
+  ENGINE_VERSION,
+  isEngineError,
+  validateStage,
+  type Stage,
+  type StageControl,
+} from "@/lib/engine";
+import { storedControl } from "@/lib/validation/control";
 import { planOne, planRequestOf, snapshotOf } from "./plan-targets";
 import type { StoredPlan } from "./types";
 
@@ -50,6 +58,8 @@ interface Inputs {
   retrofit: Retrofit;
   analysis: ReturnType<typeof analyzeStage>;
   stage: Stage;
+  /** the stage's adjustable value, null when it has none or it no longer fits the stage */
+  control: StageControl | null;
   stored: StoredPlan[];
   requests: BundleTargetRequest[];
 }
@@ -114,7 +124,7 @@ async function loadInputs(tx: Reader, retrofitId: number, lock: boolean): Promis
     if (r.budget && r.budget.requiredPpm > 0) request.requiredTolerancePct = r.budget.requiredPpm / 1e4;
     requests.push(request);
   });
-  return { retrofit, analysis, stage, stored, requests };
+  return { retrofit, analysis, stage, control: storedControl(stage, stageRow.control), stored, requests };
 }
 
 function specOf(inputs: Inputs, number: number): BundleSpec {
@@ -129,6 +139,7 @@ function specOf(inputs: Inputs, number: number): BundleSpec {
     },
     revision: number,
     stage: inputs.stage,
+    control: inputs.control,
     targets: inputs.requests,
   };
 }

@@ -4,3 +4,4 @@ export * from "./retrofit";
 export * from "./stage";
 export * from "./target";
 export * from "./workspace";
+export * from "./control";

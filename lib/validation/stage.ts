@@ -4,7 +4,6 @@
 // refuse exactly the same stages, each message on its field.
 import { z } from "zod";
 import {
-  formatEng,
   isEngineError,
   STAGE_FIELDS,
   STAGE_KINDS,
@@ -16,6 +15,7 @@ import {
   type Tolerances,
 } from "@/lib/engine";
 import { readEng } from "./eng";
+import { formText } from "./form-text";
 import { formatTolerance, readTolerance } from "./tolerance";
 
 export const STAGE_KIND_IDS = STAGE_KINDS.map((k) => k.kind) as [StageKind, ...StageKind[]];
@@ -112,5 +112,5 @@ export function stageToForm(stage: Stage | null, kind?: StageKind): StageFormVal
 function engText(v: number, unit: EngUnit): string {
   // Plain fractions (eta) stay plain; others get a prefix without the unit.
   if (unit === "") return String(v);
-  return formatEng(v, "", 6).replace("µ", "u");
+  return formText(v);
 }

@@ -1,18 +1,26 @@
 // Bodies of the workspace API: create, update and the stateless plan request.
 import { z } from "zod";
 import { retrofitFactsPatchSchema, retrofitFactsSchema } from "./retrofit";
+import { refineControl } from "./control";
 import { stageSchema } from "./stage";
 import { targetsSchema } from "./target";
 
-export const createRetrofitSchema = retrofitFactsSchema.extend({
-  stage: stageSchema.optional(),
-  targets: targetsSchema.optional(),
-});
+// control: the stage's adjustable value (null clears it); it needs the stage beside it.
+export const createRetrofitSchema = retrofitFactsSchema
+  .extend({
+    stage: stageSchema.optional(),
+    control: z.unknown().optional(),
+    targets: targetsSchema.optional(),
+  })
+  .transform(refineControl);
 
-export const updateRetrofitSchema = retrofitFactsPatchSchema.extend({
-  stage: stageSchema.optional(),
-  targets: targetsSchema.optional(),
-});
+export const updateRetrofitSchema = retrofitFactsPatchSchema
+  .extend({
+    stage: stageSchema.optional(),
+    control: z.unknown().optional(),
+    targets: targetsSchema.optional(),
+  })
+  .transform(refineControl);
 
 export const planBodySchema = z.object({
   stage: stageSchema,
@@ -33,15 +41,24 @@ export const tokenBodySchema = z.object({
 });
 
 export const LIST_SORTS = ["name", "site", "assetTag", "kind", "state", "updatedAt"] as const;
-export const REVISION_STATES = ["draft", "in_review", "approved", "changes_requested"] as const;
+import { readState, REVISION_STATES } from "@/lib/review/words";
+export { REVISION_STATES };
 
 export const listQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),
   site: z.string().trim().max(120).optional(),
   kind: z.string().trim().max(40).optional(),
+  // Old state values are mapped to ours for one API release (lib/review/words.ts).
   state: z
-    .enum([...REVISION_STATES, "none"], {
-      error: "state is draft, in_review, approved, changes_requested or none.",
+    .string()
+    .trim()
+    .transform((v, ctx) => {
+      const s = v === "none" ? ("none" as const) : readState(v);
+      if (!s) {
+        ctx.addIssue({ code: "custom", message: `state is ${REVISION_STATES.join(", ")} or none.` });
+        return z.NEVER;
+      }
+      return s;
     })
     .optional(),
   archived: z.enum(["exclude", "include", "only"]).optional().default("exclude"),

@@ -38,7 +38,7 @@ describe("accessibility scan (axe-core)", () => {
     const engineer = await makeUser("engineer");
     const technician = await makeUser("technician");
     const retrofit = await makeRetrofit({ createdBy: engineer.id });
-    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "approved" });
+    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "released" });
     const csv = squareCsv({ periodS: 10e-3, highS: 2e-3, dtS: 10e-6, periods: 6 });
     const captureId = await insertCapture({
       retrofitId: retrofit.id,

@@ -30,7 +30,7 @@ describe("field work at phone width", () => {
     const engineer = await makeUser("engineer");
     const technician = await makeUser("technician");
     const retrofit = await makeRetrofit({ createdBy: engineer.id });
-    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "approved" });
+    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "released" });
 
     const { context, page } = await signInAs(browser, technician.email, TEST_PASSWORD, { mobile: true });
     await page.goto(`/field/revisions/${rev.id}`);
@@ -84,7 +84,7 @@ describe("field work at phone width", () => {
     const engineer = await makeUser("engineer");
     const technician = await makeUser("technician");
     const retrofit = await makeRetrofit({ createdBy: engineer.id });
-    await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "approved" });
+    await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "released" });
     // 100 Hz, 20 % duty: period 10 ms, duty 20 %.
     const csv = squareCsv({ periodS: 10e-3, highS: 2e-3, dtS: 10e-6, periods: 6 });
     const id = await insertCapture({

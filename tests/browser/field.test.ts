@@ -26,7 +26,7 @@ describe("field work in the browser", () => {
     const engineer = await makeUser("engineer");
     const technician = await makeUser("technician");
     const retrofit = await makeRetrofit({ createdBy: engineer.id });
-    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "approved" });
+    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "released" });
     const [stored] = await db
       .select({ sha: revisions.bundleSha256 })
       .from(revisions)

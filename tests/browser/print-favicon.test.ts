@@ -20,7 +20,7 @@ describe("print stylesheet and favicon", () => {
     const engineer = await makeUser("engineer");
     const technician = await makeUser("technician");
     const retrofit = await makeRetrofit({ createdBy: engineer.id });
-    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "approved" });
+    const rev = await makeRevision({ retrofitId: retrofit.id, userId: engineer.id, state: "released" });
     const { context, page } = await signInAs(browser, technician.email, TEST_PASSWORD);
     await page.goto(`/field/revisions/${rev.id}`);
     const nav = page.getByRole("navigation", { name: "Main" });

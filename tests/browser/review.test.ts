@@ -1,9 +1,9 @@
-// The review loop end to end in the browser: the engineer generates r1 and
-// submits it; the reviewer opens the compare page, comments on a line and
-// requests changes; the engineer changes one stage value, generates r2 and
-// submits; the reviewer sees only the changed numbers and lines and approves;
-// the local mail catcher holds the three messages (review requested, decision,
-// approved). Timing values: NE555 datasheet (TI SLFS022) astable,
+// The check loop end to end in the browser: the engineer generates r1 and
+// sends it for checking; the checker opens the compare page, comments on a
+// line and returns it for rework; the engineer changes one stage value,
+// generates r2 and sends it; the checker sees only the changed numbers and
+// lines and releases it for the field; the local mail catcher holds the
+// messages (please check, returned, released, field revision now r2). Timing values: NE555 datasheet (TI SLFS022) astable,
 // t_H = 0.693 (RA + RB) C, t_L = 0.693 RB C.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -36,19 +36,19 @@ async function generate(page: Page, retrofitId: number): Promise<{ id: number; n
 
 async function submit(page: Page, revisionId: number, number: number) {
   await page.goto(`/revisions/${revisionId}/review`, SLOW);
-  await page.getByRole("button", { name: `Submit r${number} for review` }).click(SLOW);
-  await page.getByTestId("revision-state").getByText("In review").waitFor(SLOW);
+  await page.getByRole("button", { name: `Send r${number} for checking` }).click(SLOW);
+  await page.getByTestId("revision-state").getByText("Awaiting check").waitFor(SLOW);
 }
 
 async function decide(page: Page, revisionId: number, button: string | RegExp, note: string, state: string) {
   await page.goto(`/revisions/${revisionId}/review`, SLOW);
-  await page.getByLabel("Note to the engineer").fill(note);
+  await page.getByLabel(/^Note \(to the engineer/).fill(note);
   await page.getByRole("button", { name: button }).click(SLOW);
   await page.getByTestId("revision-state").getByText(state).waitFor(SLOW);
 }
 
 describe("review loop in the browser", () => {
-  it("r1 submitted, commented, changes requested; r2 submitted, only its changes shown, approved; three mails", async () => {
+  it("r1 sent, commented, returned; r2 sent, only its changes shown, released; four mails", async () => {
     const site = `Browser review site ${Date.now()}`;
     const engineer = await makeUser("engineer");
     const reviewer = await makeUser("reviewer");
@@ -62,7 +62,7 @@ describe("review loop in the browser", () => {
     await submit(eng.page, r1.id, 1);
     const requested = await waitForMail(
       reviewer.email,
-      new RegExp(`Review requested: .*${rf.assetTag}\\) r1`),
+      new RegExp(`Please check: .*${rf.assetTag}\\) r1`),
       60_000,
     );
     expect(requested.text).toContain(`/revisions/${r1.id}/review`);
@@ -74,6 +74,11 @@ describe("review loop in the browser", () => {
     const mainC = rev.page.locator("section[data-file$='src/main.c']");
     await mainC.waitFor(SLOW);
     const path = (await mainC.getAttribute("data-file"))!;
+    // Files start closed (a six-device revision stays short); the index opens the one it jumps to.
+    expect(await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).isVisible()).toBe(
+      false,
+    );
+    await rev.page.getByRole("navigation", { name: "File index" }).getByRole("link", { name: path }).click();
     await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).click();
     await rev.page
       .getByLabel(`Comment on ${path} line 5`, { exact: true })
@@ -85,15 +90,15 @@ describe("review loop in the browser", () => {
     await decide(
       rev.page,
       r1.id,
-      "Request changes",
+      "Return r1 for rework",
       "Name the source of each register value.",
-      "Changes requested",
+      "Returned for rework",
     );
     await rev.page
       .getByTestId("comment")
       .filter({ hasText: `${path}:5` })
       .waitFor();
-    expect((await stateOf(r1.id)).state).toBe("changes_requested");
+    expect((await stateOf(r1.id)).state).toBe("returned");
 
     // Engineer: change RB 10 kΩ -> 4.7 kΩ, generate r2, submit.
     await setStageValue(rf.id, "rb", 4.7e3);
@@ -130,24 +135,26 @@ describe("review loop in the browser", () => {
     // The r1 comment belongs to r1 and does not show on r2's diff.
     expect(await rev.page.getByTestId("inline-comment").count()).toBe(0);
 
-    await decide(rev.page, r2.id, "Approve r2", "Values and sources check out.", "Approved");
-    expect((await stateOf(r2.id)).state).toBe("approved");
-
-    const changes = await waitForMail(
-      engineer.email,
-      new RegExp(`Review decision \\(changes requested\\): .*${rf.assetTag}\\) r1`),
-      60_000,
+    await decide(
+      rev.page,
+      r2.id,
+      "Release r2 for the field",
+      "Values and sources check out.",
+      "Released for field",
     );
+    expect((await stateOf(r2.id)).state).toBe("released");
+
+    const changes = await waitForMail(engineer.email, new RegExp(`Returned: .*${rf.assetTag}\\) r1`), 60_000);
     expect(changes.text).toContain("Name the source of each register value.");
     const approvedDecision = await waitForMail(
       engineer.email,
-      new RegExp(`Review decision \\(approved\\): .*${rf.assetTag}\\) r2`),
+      new RegExp(`Released: .*${rf.assetTag}\\) r2`),
       60_000,
     );
     expect(approvedDecision.text).toContain("Values and sources check out.");
     const approved = await waitForMail(
       technician.email,
-      new RegExp(`Revision approved: .*${rf.assetTag}\\) r2`),
+      new RegExp(`Field revision now r2: .*\\(${rf.assetTag}\\)`),
       60_000,
     );
     expect(approved.text).toMatch(/Bundle sha256: [0-9a-f]{64}/);

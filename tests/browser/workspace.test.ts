@@ -97,7 +97,7 @@ describe("retrofit workspace in the browser", () => {
     await done.waitFor({ timeout: 120_000 });
     const href = (await done.getAttribute("href")) ?? "";
     expect(href).toMatch(/^\/revisions\/\d+$/);
-    await page.getByTestId("revisions-table").getByText("Draft").waitFor();
+    await page.getByTestId("revisions-table").getByText("Prepared").waitFor();
 
     const [download] = await Promise.all([
       page.waitForEvent("download"),

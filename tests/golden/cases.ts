@@ -66,6 +66,61 @@ export const GOLDEN_CASES: GoldenCase[] = [
       ],
     },
   },
+  {
+    // the old 555's Rb is a rate pot (demo values): kept on the AVRs, STM32G031 and RP2040, a note on the MSP430
+    name: "kept-pot-555",
+    spec: {
+      retrofit: retrofit(false),
+      revision: 2,
+      stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
+      control: { kind: "pot", field: "rb", seriesR: 2.2e3, trackR: 47e3, taper: "linear" },
+      targets: [
+        { device: "atmega328p", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER1" },
+        { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
+        { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "stm32g031", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+{ device: "msp430g2553", clockHz: 1e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+      ],
+    },
+  },
+  {
+    // mains zero-cross gate firing on both AVRs (50 Hz, both half cycles), with the cautions
+    name: "zero-cross-avr",
+    spec: {
+      retrofit: retrofit(true),
+      revision: 1,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 47e3, timingC: 100e-9, eta: 0.63 },
+      targets: [
+        { device: "atmega328p", clockHz: 16e6, periodS: 0.01, highS: 1e-4, mode: "isr",
+            start: "zero-cross", delayS: 0.004 },
+        { device: "attiny85", clockHz: 8e6, periodS: 0.01, highS: 1e-4, mode: "isr",
+            start: "zero-cross", delayS: 0.004 },
+      ],
+    },
+  },
+  {
+    // triggered one-shot from a contact (falling edge), both retrigger rules
+    name: "trigger-avr",
+    spec: {
+      retrofit: retrofit(false),
+      revision: 1,
+      stage: { kind: "timer555-monostable", r: 100e3, c: 1e-6 },
+      targets: [
+        {
+          device: "atmega328p",
+          clockHz: 16e6,
+          periodS: 0.5,
+          highS: 0.11,
+          mode: "isr",
+          start: "trigger",
+          delayS: 0,
+          retrigger: "restart",
+        },
+        { device: "attiny85", clockHz: 8e6, periodS: 0.5, highS: 0.11, mode: "isr",
+          start: "trigger", delayS: 0.01 },
+      ],
+    },
+  },
 ];
 
 export const GOLDEN_ROOT = new URL("./", import.meta.url).pathname;

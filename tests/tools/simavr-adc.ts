@@ -1,45 +1,13 @@
 // Builds an AVR C source with avr-gcc and runs it in libsimavr through
-// tests/tools/simavr/adc-pin-trace.c with a chosen voltage on one ADC input,
+// tests/tools/simavr/pin-trace.c with a chosen voltage on one ADC input,
 // then returns the edges of one pin (VCD, IEEE 1364-2005 section 18).
 import { createHash } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { mustRun, requireTool } from "./require-tool";
+import { simavrHarness } from "./simavr";
 import { parseVcd, type Edge } from "./vcd";
-
-const SOURCE = path.join(process.cwd(), "tests/tools/simavr/adc-pin-trace.c");
-
-function harness(): string {
-  requireTool("gcc", "gcc");
-  const src = readFileSync(SOURCE);
-  const dir = path.join(
-    tmpdir(),
-    `cg-simavr-adc-${createHash("sha256").update(src).digest("hex").slice(0, 12)}`,
-  );
-  const bin = path.join(dir, "adc-pin-trace");
-  if (!existsSync(bin)) {
-    mkdirSync(dir, { recursive: true });
-    const tmp = `${bin}.${process.pid}`;
-    mustRun(
-      "gcc",
-      [
-        "-O1",
-        "-Wall",
-        "-Werror",
-        "-I/usr/include/simavr",
-        "-I/usr/include/simavr/avr",
-        "-o",
-        tmp,
-        SOURCE,
-        "-lsimavr",
-      ],
-      dir,
-    );
-    mustRun("mv", [tmp, bin], dir);
-  }
-  return bin;
-}
 
 /** avr-gcc -Os the one C file into an Intel HEX image; returns its path. */
 export function buildAvrHex(source: string, mcu: string, clockHz: number): string {
@@ -72,7 +40,7 @@ export interface AdcRun {
 }
 
 export function runAvrWithAdc(r: AdcRun): Edge[] {
-  const bin = harness();
+  const bin = simavrHarness("pin-trace");
   const dir = path.dirname(r.hex);
   const vcd = `pin-${r.channel}-${r.millivolts}.vcd`;
   mustRun(

@@ -9,15 +9,19 @@ import type { BundleFile } from "@/lib/bundle";
 import { mustRun, requireTool } from "./require-tool";
 import { measure, parseVcd, type Measured } from "./vcd";
 
-const SOURCE = path.join(process.cwd(), "tests/tools/simavr/pin-trace.c");
-
-function harness(): string {
+/** Compiles tests/tools/simavr/<name>.c against libsimavr with the host gcc, once per
+ *  source content (the binary's folder is named by the source's sha256); returns the binary. */
+export function simavrHarness(name: string): string {
   requireTool("gcc", "gcc");
   if (!existsSync("/usr/include/simavr/sim_avr.h"))
     throw new Error("libsimavr headers missing: apt-get install -y libsimavr-dev");
-  const src = readFileSync(SOURCE);
-  const dir = path.join(tmpdir(), `cg-simavr-${createHash("sha256").update(src).digest("hex").slice(0, 12)}`);
-  const bin = path.join(dir, "pin-trace");
+  const source = path.join(process.cwd(), "tests/tools/simavr", `${name}.c`);
+  const src = readFileSync(source);
+  const dir = path.join(
+    tmpdir(),
+    `cg-simavr-${name}-${createHash("sha256").update(src).digest("hex").slice(0, 12)}`,
+  );
+  const bin = path.join(dir, name);
   if (!existsSync(bin)) {
     mkdirSync(dir, { recursive: true });
     const tmp = `${bin}.${process.pid}`;
@@ -31,7 +35,7 @@ function harness(): string {
         "-I/usr/include/simavr/avr",
         "-o",
         tmp,
-        SOURCE,
+        source,
         "-lsimavr",
       ],
       dir,
@@ -57,7 +61,7 @@ export function runAvrImage(
   bit: number,
   cycles: number,
 ): PinRun {
-  const bin = harness();
+  const bin = simavrHarness("pin-trace");
   const hex = files.find((f) => f.path === `${folder}/firmware/firmware.hex`);
   if (!hex) throw new Error(`bundle has no ${folder}/firmware/firmware.hex`);
   const dir = path.join(tmpdir(), `cg-simavr-run-${process.pid}-${Math.random().toString(36).slice(2)}`);

@@ -35,7 +35,7 @@ export default async function AdminPage() {
           Users
         </h1>
         <p className="mt-1 text-sm text-ink-soft">
-          Technicians with a site see approved bundles of that site only. Changes take effect on the
+          Technicians with a site see released bundles of that site only. Changes take effect on the
           user&apos;s next request and are written to the audit log.
         </p>
         <div className="mt-3 overflow-x-auto">

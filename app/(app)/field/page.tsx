@@ -16,7 +16,7 @@ export default async function FieldPage() {
       <div>
         <h1 className="text-xl font-semibold">Field</h1>
         <p className="text-sm text-ink-soft">
-          Approved bundles{user.role === "technician" && user.site ? ` for ${user.site}` : ""}, by site and
+          Released bundles{user.role === "technician" && user.site ? ` for ${user.site}` : ""}, by site and
           asset. Compare the sha256 of the downloaded zip with the one shown before flashing.
         </p>
       </div>

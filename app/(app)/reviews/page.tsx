@@ -19,11 +19,12 @@ export default async function ReviewsPage() {
       <p className="mt-1 text-sm text-ink-soft">Revisions waiting for a decision, newest submission first.</p>
       {rows.length === 0 ? (
         <p className="panel mt-4">
-          Nothing is waiting for review. Engineers submit a revision from its review page after generating it.
+          Nothing is awaiting check. Engineers send a revision for checking from its review page after
+          generating it.
         </p>
       ) : (
         <div className="mt-4 overflow-x-auto">
-          <table className="table-dense" aria-label="Revisions in review">
+          <table className="table-dense" aria-label="Revisions awaiting check">
             <thead>
               <tr>
                 <th scope="col">Retrofit</th>

@@ -1,10 +1,10 @@
 // Input pin and worst-case input-to-timer latency of a triggered plan, per
 // device (engine.md section 6). The latency is the datasheet's interrupt
 // response plus the cycles of the handler up to the write that starts the
-// timer. Triggered firmware is not generated yet: the handler counts below
-// are the budget the generated handler must keep (entry, then one store to
-// the timer's control register, nothing before it), and the templates'
-// tests must count them again when they land.
+// timer. For the AVRs the counts are those of the generated naked handlers
+// (templates/<avr>/trigger.c.hbs) plus the compare handler's entry to the
+// pin change; for the other devices they are the budget their handlers must
+// keep once that firmware lands.
 import type { DeviceId, PinAssignment } from "../plan-types";
 import { pin } from "../devices/spec";
 
@@ -33,9 +33,9 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       both: "EICRA ISC01:0 = 01 (any change)",
     },
     responseCycles: 4 + 3 + 2,
-    handlerCycles: 13,
+    handlerCycles: 17 + 11,
     basis:
-      "ATmega328P datasheet, Interrupt Response Time: 4 cycles to the vector + 3 for its jump, + 2 to finish the idle loop's rjmp; handler 13 cycles to the TCCR1B store (avr-gcc prologue push r1, push r0, in r0 SREG, push r0, clr r1, push r24 = 10; ldi + sts = 3; AVR Instruction Set Manual cycle counts)",
+      "ATmega328P datasheet, Interrupt Response Time: 4 cycles to the vector + 3 for its jmp, + 2 to finish the busy loop's rjmp; INT0 handler (templates/atmega328p/trigger.c.hbs, naked) up to 17 cycles to the timer start (restart rule: cbi 2, push 2, ldi 1, sts x4 8, ldi 1, sts 2, ldi 1; ignore rule 5); the compare handler's entry to the pin change adds 11 (4 + jmp 3 + rjmp 2 + sbi 2), the same for the off edge, so it shifts the delay, not the pulse (AVR Instruction Set Manual cycle counts)",
   },
   // ATtiny25/45/85 datasheet: 9.2 MCUCR ISC01:0 (same encoding), 4.7.1
   // Interrupt Response Time; pin table: PB2 (INT0) = PDIP-8 pin 7.
@@ -47,9 +47,9 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       both: "MCUCR ISC01:0 = 01 (any change)",
     },
     responseCycles: 4 + 2 + 2,
-    handlerCycles: 13,
+    handlerCycles: 17 + 10,
     basis:
-      "ATtiny85 datasheet, Interrupt Response Time: 4 cycles to the vector + 2 for its rjmp, + 2 to finish the idle loop's rjmp; handler 13 cycles to the timer control store (avr-gcc prologue 10, ldi + out/sts 3; AVR Instruction Set Manual)",
+      "ATtiny85 datasheet, Interrupt Response Time: 4 cycles to the vector + 2 for its rjmp, + 2 to finish the busy loop's rjmp; INT0 handler (templates/attiny85/trigger.c.hbs, naked) up to 17 cycles to the timer start (restart rule; ignore rule 5); the compare handler's entry to the pin change adds 10 (4 + rjmp 2 + rjmp 2 + sbi 2), the same for the off edge, so it shifts the delay, not the pulse (AVR Instruction Set Manual cycle counts)",
   },
   // RM0444 (STM32G0x1): EXTI rising/falling trigger selection registers
   // (EXTI_RTSR1, EXTI_FTSR1; both set = both edges), EXTICR port selection.

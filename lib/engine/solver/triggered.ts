@@ -37,7 +37,9 @@ function choose(r: CheckedRequest, delayS: number, pulseS: number): Choice | nul
     for (const d of timer.isrDividers) {
       const delayCounts = Math.max(1, Math.round((delayS * r.clockHz) / d));
       const highCounts = Math.max(1, Math.round((pulseS * r.clockHz) / d));
-      if (delayCounts + highCounts > range.max) continue;
+      // The off edge is a compare at count delay + high, so it must fit the
+      // compare register (one below the isr range's count of states).
+      if (delayCounts + highCounts > range.max - 1) continue;
       if (!best || d < best.divider) best = { timer, divider: d, delayCounts, highCounts };
       break; // dividers ascend: the first that fits is this timer's finest
     }
@@ -81,7 +83,7 @@ export function planTriggered(r: CheckedRequest): TimerPlan {
   const notes: string[] = [
     `${start === "zero-cross" ? "Each mains zero crossing" : "Each trigger"} (${edge} edge on ${tin.input.port}, ${tin.edgeHow[edge]}) starts ${timer.name} from 0: pulse on after ${delayCounts} counts (${fmt(delayS)} s), off ${highCounts} counts later (${fmt(highS)} s), then the timer stops.`,
     `Input edge to timer start: up to ${latencyCycles} clock cycles (${fmt(latencyS)} s): ${tin.basis}. The prescaler's phase adds up to one count (${fmt(count)} s).`,
-    `Registers: ${timer.name}'s clock select and top for one run; the start on the edge and the stop after the pulse are written by the handlers. Firmware for triggered starts is not generated yet.`,
+    `Registers: ${timer.name}'s clock select and top for one run; the start on the edge and the stop after the pulse are written by the handlers. Triggered firmware is generated for the ATmega328P and ATtiny85 (other devices: not yet).`,
   ];
   if (start === "trigger")
     notes.push(

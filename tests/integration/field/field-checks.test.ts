@@ -26,8 +26,8 @@ beforeAll(async () => {
   tech = await signedIn(technician.email, TEST_PASSWORD);
   const retrofit = await makeRetrofit({ createdBy: engineer.id, site: "Test Site North" });
   retrofitId = retrofit.id;
-  approvedId = (await makeRevision({ retrofitId, userId: engineer.id, state: "approved" })).id;
-  draftId = (await makeRevision({ retrofitId, userId: engineer.id, state: "draft" })).id;
+  approvedId = (await makeRevision({ retrofitId, userId: engineer.id, state: "released" })).id;
+  draftId = (await makeRevision({ retrofitId, userId: engineer.id, state: "prepared" })).id;
   // The limits as the bundle prints them (plan.json carries the checklist's numbers).
   const files = await db.select().from(revisionFiles).where(eq(revisionFiles.revisionId, approvedId));
   const plan = JSON.parse(files.find((f) => f.path === "plan.json")!.content) as {

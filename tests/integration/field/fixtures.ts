@@ -37,7 +37,7 @@ export async function makeRetrofit(opts: { createdBy: number; site?: string }) {
 
 export async function makeRevision(opts: { retrofitId: number; userId: number; state: RevisionState }) {
   const rev = await generateRevision({ retrofitId: opts.retrofitId, userId: opts.userId });
-  if (opts.state !== "draft") {
+  if (opts.state !== "prepared") {
     await db
       .update(revisions)
       .set({ state: opts.state, decidedAt: new Date() })

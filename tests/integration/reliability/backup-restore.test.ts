@@ -50,7 +50,7 @@ describe("backup and restore", () => {
     // Make sure there is something of our own in it, in more than one state.
     const w = await makeWorld();
     const rf = await makeRetrofit(w, w.author.id);
-    await makeRevision(rf.id, w.author.id, "approved");
+    await makeRevision(rf.id, w.author.id, "released");
 
     const file = join(dir, "test.dump");
     execFileSync("bash", ["scripts/backup.sh", file, sourceDb], { stdio: "pipe" });
@@ -61,8 +61,8 @@ describe("backup and restore", () => {
     const restored = (await poolFor(restoredDb).query(REVISIONS_SQL)).rows;
     const ids = restored.map((r) => r.id);
     const original = (await poolFor(sourceDb).query(REVISIONS_SQL)).rows.filter((r) => ids.includes(r.id));
-    expect(ids).toContain(w.revision.approved);
-    expect(ids).toContain(w.revision.draft);
+    expect(ids).toContain(w.revision.released);
+    expect(ids).toContain(w.revision.prepared);
     expect(restored.length).toBe(original.length);
     for (let i = 0; i < restored.length; i++) {
       const a = original[i];

@@ -34,7 +34,7 @@ beforeAll(async () => {
     .update(retrofits)
     .set({ site: `${w.site} ${SITE}` })
     .where(eq(retrofits.id, rf.id));
-  const r = await makeRevision(rf.id, w.author.id, "draft");
+  const r = await makeRevision(rf.id, w.author.id, "prepared");
   revId = r.id;
   files = await db.select().from(revisionFiles).where(eq(revisionFiles.revisionId, revId));
   w.retrofitIds.push(rf.id);

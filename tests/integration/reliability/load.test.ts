@@ -32,7 +32,7 @@ describe("50 concurrent connections", () => {
     expect(plan.requests).toBe(500);
 
     const bundle = await load({
-      url: `${BASE_URL}/api/v1/revisions/${w.revision.approved}/bundle`,
+      url: `${BASE_URL}/api/v1/revisions/${w.revision.released}/bundle`,
       headers: auth,
       connections: 50,
       ...bounded(300),

@@ -26,7 +26,7 @@ beforeAll(async () => {
   await db.insert(targets).values({ retrofitId: rf.id, position: 0, ...TARGET });
   other = {
     retrofitId: rf.id,
-    approved: (await makeRevision(rf.id, w.author.id, "approved")).id,
+    approved: (await makeRevision(rf.id, w.author.id, "released")).id,
     captureId: await makeCapture(rf.id, w.author.id),
   };
 });
@@ -57,11 +57,11 @@ describe("technicians reach approved revisions of their own site only", () => {
   ];
 
   it("a draft and an in-review revision are not found, by URL or bundle", async () => {
-    for (const id of [w.revision.draft, w.revision.in_review]) {
+    for (const id of [w.revision.prepared, w.revision.awaiting_check]) {
       for (const path of reads(id)) await refused("technician", "GET", path, undefined, [404]);
     }
     // The same URLs answer for the approved revision, so the 404 is the rule, not a wrong URL.
-    for (const path of reads(w.revision.approved)) {
+    for (const path of reads(w.revision.released)) {
       expect((await send(w, "technician", "GET", { path })).status, path).toBe(200);
     }
   });
@@ -83,14 +83,14 @@ describe("technicians reach approved revisions of their own site only", () => {
     await refused(
       "technician",
       "GET",
-      `/api/v1/diff?a=${w.revision.approved}&b=${w.revision.draft}`,
+      `/api/v1/diff?a=${w.revision.released}&b=${w.revision.prepared}`,
       undefined,
       [404],
     );
     await refused(
       "technician",
       "GET",
-      `/api/v1/diff?a=${w.revision.draft}&b=${w.revision.approved}&format=patch`,
+      `/api/v1/diff?a=${w.revision.prepared}&b=${w.revision.released}&format=patch`,
       undefined,
       [404],
     );
@@ -98,14 +98,14 @@ describe("technicians reach approved revisions of their own site only", () => {
 
   it("field-check lists by revision id do not reveal a draft's checks", async () => {
     const res = await send(w, "technician", "GET", {
-      path: `/api/v1/field-checks?revisionId=${w.revision.draft}`,
+      path: `/api/v1/field-checks?revisionId=${w.revision.prepared}`,
     });
     expect([200, 404], res.text).toContain(res.status);
     if (res.status === 200) expect((res.body as { checks: unknown[] }).checks).toEqual([]);
   });
 
   it("the revision page of a draft shows nothing of it to a technician", async () => {
-    const res = await w.actors.technician.session.fetch(`/revisions/${w.revision.draft}`);
+    const res = await w.actors.technician.session.fetch(`/revisions/${w.revision.prepared}`);
     const html = await res.text();
     expect(res.status).toBeLessThan(500);
     expect(html).toContain("Not allowed");
@@ -120,7 +120,7 @@ describe("ids in bodies", () => {
       "technician",
       "POST",
       "/api/v1/field-checks",
-      { ...check, revisionId: w.revision.draft },
+      { ...check, revisionId: w.revision.prepared },
       [404],
     );
     await refused(
@@ -134,7 +134,7 @@ describe("ids in bodies", () => {
       "technician",
       "POST",
       "/api/v1/field-checks",
-      { revisionId: w.revision.approved, captureId: other.captureId, signedOffBy: "A. Tester" },
+      { revisionId: w.revision.released, captureId: other.captureId, signedOffBy: "A. Tester" },
       [404],
     );
   });
@@ -197,12 +197,12 @@ describe("ids in bodies", () => {
 
   it("a decision body naming another revision is refused", async () => {
     const rf = await makeRetrofit(w, w.author.id);
-    const r = await makeRevision(rf.id, w.author.id, "in_review");
+    const r = await makeRevision(rf.id, w.author.id, "awaiting_check");
     await refused(
       "reviewer",
       "POST",
       `/api/v1/revisions/${r.id}/decision`,
-      { decision: "approved", revisionId: w.revision.in_review },
+      { decision: "release", revisionId: w.revision.awaiting_check },
       [400],
     );
   });
@@ -218,12 +218,12 @@ describe("revisions are immutable", () => {
 
   it("an engineer's PATCH, PUT or DELETE of a revision is refused and the revision is unchanged", async () => {
     const rf = await makeRetrofit(w, w.actors.engineer.id);
-    const r = await makeRevision(rf.id, w.actors.engineer.id, "draft");
+    const r = await makeRevision(rf.id, w.actors.engineer.id, "prepared");
     const [before] = await db.select().from(revisions).where(eq(revisions.id, r.id));
     for (const method of ["PATCH", "PUT", "DELETE"] as const) {
       const res = await send(w, "engineer", method, {
         path: `/api/v1/revisions/${r.id}`,
-        json: { note: "edited", state: "approved", spec: {} },
+        json: { note: "edited", state: "released", spec: {} },
       });
       expect(res.status, `${method}: ${res.text.slice(0, 200)}`).toBeGreaterThanOrEqual(400);
       expect(res.status, method).toBeLessThan(500);
@@ -236,9 +236,9 @@ describe("revisions are immutable", () => {
 describe("nobody decides on a revision they generated", () => {
   it("a reviewer who generated a revision (as an engineer before a role change) cannot approve it", async () => {
     const rf = await makeRetrofit(w, w.author.id);
-    const r = await makeRevision(rf.id, w.actors.reviewer.id, "in_review");
-    await refused("reviewer", "POST", `/api/v1/revisions/${r.id}/decision`, { decision: "approved" }, [403]);
+    const r = await makeRevision(rf.id, w.actors.reviewer.id, "awaiting_check");
+    await refused("reviewer", "POST", `/api/v1/revisions/${r.id}/decision`, { decision: "release" }, [403]);
     const [row] = await db.select().from(revisions).where(eq(revisions.id, r.id));
-    expect(row.state).toBe("in_review");
+    expect(row.state).toBe("awaiting_check");
   });
 });

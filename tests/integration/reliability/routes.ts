@@ -172,31 +172,31 @@ export const ROUTES: RouteEntry[] = [
     method: "GET",
     pattern: "/api/v1/revisions/[id]",
     allowed: ANY,
-    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}` }),
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.released}` }),
   },
   {
     method: "GET",
     pattern: "/api/v1/revisions/[id]/files",
     allowed: ANY,
-    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}/files` }),
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.released}/files` }),
   },
   {
     method: "GET",
     pattern: "/api/v1/revisions/[id]/files/[...path]",
     allowed: ANY,
-    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}/files/README.md` }),
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.released}/files/README.md` }),
   },
   {
     method: "GET",
     pattern: "/api/v1/revisions/[id]/bundle",
     allowed: ANY,
-    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.approved}/bundle` }),
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.released}/bundle` }),
   },
   {
     method: "GET",
     pattern: "/api/v1/revisions/[id]/comments",
     allowed: READ_ALL,
-    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.in_review}/comments` }),
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.awaiting_check}/comments` }),
   },
   {
     method: "POST",
@@ -205,7 +205,7 @@ export const ROUTES: RouteEntry[] = [
     ok: [201],
     input: "json",
     build: async (w) => ({
-      path: `/api/v1/revisions/${w.revision.in_review}/comments`,
+      path: `/api/v1/revisions/${w.revision.awaiting_check}/comments`,
       json: { body: "Check the prescaler.", filePath: "README.md", line: 1 },
     }),
   },
@@ -216,7 +216,7 @@ export const ROUTES: RouteEntry[] = [
     input: "json",
     build: async (w, as) => {
       const rf = await fresh(w);
-      const rev = await makeRevision(rf.id, actingId(w, as), "draft");
+      const rev = await makeRevision(rf.id, actingId(w, as), "prepared");
       return { path: `/api/v1/revisions/${rev.id}/submit`, json: { note: "ready" } };
     },
   },
@@ -227,8 +227,8 @@ export const ROUTES: RouteEntry[] = [
     input: "json",
     build: async (w) => {
       const rf = await fresh(w);
-      const rev = await makeRevision(rf.id, w.author.id, "in_review");
-      return { path: `/api/v1/revisions/${rev.id}/decision`, json: { decision: "approved", note: "ok" } };
+      const rev = await makeRevision(rf.id, w.author.id, "awaiting_check");
+      return { path: `/api/v1/revisions/${rev.id}/decision`, json: { decision: "release", note: "ok" } };
     },
   },
   {
@@ -238,7 +238,7 @@ export const ROUTES: RouteEntry[] = [
     // Technicians may compare approved revisions only; a draft in the pair is hidden.
     hiddenFrom: ["technician"],
     input: "query",
-    build: async (w) => ({ path: `/api/v1/diff?a=${w.revision.approved}&b=${w.revision.draft}` }),
+    build: async (w) => ({ path: `/api/v1/diff?a=${w.revision.released}&b=${w.revision.prepared}` }),
   },
   {
     method: "GET",
@@ -381,7 +381,7 @@ export const ROUTES: RouteEntry[] = [
     build: async (w) => ({
       path: "/api/v1/field-checks",
       json: {
-        revisionId: w.revision.approved,
+        revisionId: w.revision.released,
         measuredPeriodS: 10e-3,
         measuredHighS: 2e-3,
         notes: "cabinet 3",
@@ -422,13 +422,13 @@ export const PAGES: PageEntry[] = [
   {
     pattern: "/retrofits/[id]/compare",
     allowed: READ_ALL,
-    path: (w) => `/retrofits/${w.retrofitId}/compare?a=${w.revision.approved}&b=${w.revision.draft}`,
+    path: (w) => `/retrofits/${w.retrofitId}/compare?a=${w.revision.released}&b=${w.revision.prepared}`,
   },
   { pattern: "/reviews", allowed: REVIEW_VIEW, path: () => "/reviews" },
   {
     pattern: "/revisions/[id]/review",
     allowed: READ_ALL,
-    path: (w) => `/revisions/${w.revision.in_review}/review`,
+    path: (w) => `/revisions/${w.revision.awaiting_check}/review`,
   },
   { pattern: "/settings", allowed: ANY, path: () => "/settings" },
   { pattern: "/captures", allowed: ANY, path: () => "/captures" },
@@ -437,7 +437,7 @@ export const PAGES: PageEntry[] = [
   {
     pattern: "/field/revisions/[id]",
     allowed: FIELD_VIEW,
-    path: (w) => `/field/revisions/${w.revision.approved}`,
+    path: (w) => `/field/revisions/${w.revision.released}`,
   },
-  { pattern: "/revisions/[id]", allowed: ANY, path: (w) => `/revisions/${w.revision.approved}` },
+  { pattern: "/revisions/[id]", allowed: ANY, path: (w) => `/revisions/${w.revision.released}` },
 ];

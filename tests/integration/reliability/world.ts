@@ -45,7 +45,7 @@ export type World = {
   retrofitIds: number[];
   /** A retrofit with draft, in-review and approved revisions (by `author`). */
   retrofitId: number;
-  revision: Record<"draft" | "in_review" | "approved", number>;
+  revision: Record<"prepared" | "awaiting_check" | "released", number>;
   captureId: number;
 };
 
@@ -83,12 +83,12 @@ export async function makeRetrofit(world: Pick<World, "tag" | "site" | "retrofit
   return rf;
 }
 
-export async function makeRevision(retrofitId: number, userId: number, state: RevisionState = "draft") {
+export async function makeRevision(retrofitId: number, userId: number, state: RevisionState = "prepared") {
   const rev = await generateRevision({ retrofitId, userId });
-  if (state !== "draft") {
+  if (state !== "prepared") {
     await db
       .update(revisions)
-      .set({ state, submittedAt: new Date(), decidedAt: state === "in_review" ? null : new Date() })
+      .set({ state, submittedAt: new Date(), decidedAt: state === "awaiting_check" ? null : new Date() })
       .where(eq(revisions.id, rev.id));
   }
   return rev;
@@ -129,14 +129,14 @@ export async function makeWorld(): Promise<World> {
     userIds: [admin.id, engineer.id, reviewer.id, technician.id, author.id, revokedUser.id],
     retrofitIds: [],
     retrofitId: 0,
-    revision: { draft: 0, in_review: 0, approved: 0 },
+    revision: { prepared: 0, awaiting_check: 0, released: 0 },
     captureId: 0,
   };
   const rf = await makeRetrofit(world, author.id);
   world.retrofitId = rf.id;
-  world.revision.approved = (await makeRevision(rf.id, author.id, "approved")).id;
-  world.revision.in_review = (await makeRevision(rf.id, author.id, "in_review")).id;
-  world.revision.draft = (await makeRevision(rf.id, author.id, "draft")).id;
+  world.revision.released = (await makeRevision(rf.id, author.id, "released")).id;
+  world.revision.awaiting_check = (await makeRevision(rf.id, author.id, "awaiting_check")).id;
+  world.revision.prepared = (await makeRevision(rf.id, author.id, "prepared")).id;
 
   world.captureId = await makeCapture(rf.id, technician.id);
   return world;

@@ -41,12 +41,12 @@ const decide = (s: Session, id: number, decision: string, note = "") =>
   });
 
 describe("review authorisation", () => {
-  it("refuses self-approval: an admin cannot approve a revision they generated", async () => {
+  it("refuses a self-check: an admin cannot release a revision they generated", async () => {
     const r = await submitted(admin.id);
-    const res = await decide(adm, r.id, "approved");
+    const res = await decide(adm, r.id, "release");
     expect(res.status).toBe(403);
-    expect(res.body.error.message).toMatch(/You generated r1; another reviewer must decide/);
-    expect((await stateOf(r.id)).state).toBe("in_review");
+    expect(res.body.error.message).toMatch(/You generated r1; another reviewer must check it/);
+    expect((await stateOf(r.id)).state).toBe("awaiting_check");
   });
 
   it("refuses a technician commenting or deciding", async () => {
@@ -56,42 +56,42 @@ describe("review authorisation", () => {
       body: JSON.stringify({ body: "looks fine" }),
     });
     expect(c.status).toBe(403);
-    expect((await decide(tech, r.id, "approved")).status).toBe(403);
-    expect((await decide(tech, r.id, "changes_requested")).status).toBe(403);
-    expect((await stateOf(r.id)).state).toBe("in_review");
+    expect((await decide(tech, r.id, "release")).status).toBe(403);
+    expect((await decide(tech, r.id, "return")).status).toBe(403);
+    expect((await stateOf(r.id)).state).toBe("awaiting_check");
   });
 
   it("refuses an engineer deciding, and a reviewer submitting", async () => {
     const r = await submitted();
-    const res = await decide(eng, r.id, "approved");
+    const res = await decide(eng, r.id, "release");
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe("forbidden");
     const rf = await makeRetrofit();
     const draft = await generate(rf.id, engineer.id);
     expect((await rev.json(`/api/v1/revisions/${draft.id}/submit`, { method: "POST" })).status).toBe(403);
-    expect((await stateOf(r.id)).state).toBe("in_review");
-    expect((await stateOf(draft.id)).state).toBe("draft");
+    expect((await stateOf(r.id)).state).toBe("awaiting_check");
+    expect((await stateOf(draft.id)).state).toBe("prepared");
   });
 
   it("lets a reviewer approve another user's revision and an admin decide one they did not generate", async () => {
     const r = await submitted();
-    const ok = await decide(rev, r.id, "approved", "Registers match the datasheet.");
+    const ok = await decide(rev, r.id, "release", "Registers match the datasheet.");
     expect(ok.status).toBe(200);
     const row = await stateOf(r.id);
-    expect(row.state).toBe("approved");
+    expect(row.state).toBe("released");
     expect(row.decidedAt).not.toBeNull();
     const r2 = await submitted();
-    expect((await decide(adm, r2.id, "changes_requested", "Use TIMER2.")).status).toBe(200);
+    expect((await decide(adm, r2.id, "return", "Use TIMER2.")).status).toBe(200);
   });
 
-  it("decides only from in review: a draft cannot be decided, a decided revision cannot be resubmitted", async () => {
+  it("decides only from awaiting check: a prepared revision cannot be decided, a decided revision cannot be sent again", async () => {
     const rf = await makeRetrofit();
     const draft = await generate(rf.id, engineer.id);
-    const early = await decide(rev, draft.id, "approved");
+    const early = await decide(rev, draft.id, "release");
     expect(early.status).toBe(409);
-    expect(early.body.error.message).toMatch(/draft, not in review/);
+    expect(early.body.error.message).toMatch(/prepared, not awaiting check/);
     await eng.json(`/api/v1/revisions/${draft.id}/submit`, { method: "POST" });
-    expect((await decide(rev, draft.id, "changes_requested")).status).toBe(200);
+    expect((await decide(rev, draft.id, "return")).status).toBe(200);
     const again = await eng.json<Err>(`/api/v1/revisions/${draft.id}/submit`, { method: "POST" });
     expect(again.status).toBe(409);
     expect(again.body.error.message).toMatch(/Generate a new revision/);
@@ -120,7 +120,7 @@ describe("review authorisation", () => {
     const res = await fetch(`${eng.base}/api/v1/revisions/${r.id}/decision`, {
       method: "POST",
       headers: { "content-type": "application/json" },
-      body: JSON.stringify({ decision: "approved" }),
+      body: JSON.stringify({ decision: "release" }),
     });
     expect(res.status).toBe(401);
   });

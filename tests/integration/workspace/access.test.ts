@@ -31,13 +31,13 @@ describe("who may read and change what", () => {
   });
 
   it("a technician reads the approved revision of their site, not of another site", async () => {
-    await setRevisionState(revisionId, "approved");
+    await setRevisionState(revisionId, "released");
     try {
       expect((await tech(`/api/v1/revisions/${revisionId}`)).status).toBe(200);
       expect((await tech(`/api/v1/revisions/${revisionId}/bundle`)).status).toBe(200);
       expect((await otherTech(`/api/v1/revisions/${revisionId}/bundle`)).status).toBe(404);
     } finally {
-      await setRevisionState(revisionId, "draft");
+      await setRevisionState(revisionId, "prepared");
     }
   });
 

@@ -47,7 +47,7 @@ export async function rowCounts(userId: number): Promise<Record<string, number>>
   };
 }
 
-export async function setRevisionState(id: number, state: "approved" | "draft") {
+export async function setRevisionState(id: number, state: "released" | "prepared") {
   await db.update(revisions).set({ state }).where(eq(revisions.id, id));
 }
 

@@ -5,7 +5,13 @@
  * off, as the datasheets' port and compare-output-unit chapters say (the DDR
  * bit must be set for OCnx or PORTxn to reach the pin), so an image that
  * never enables its output shows no edges.
+ * With the three optional arguments it first puts a fixed voltage on one ADC
+ * input through libsimavr's ADC IRQs (avr_adc.h: millivolts on ADC_IRQ_ADCn,
+ * AVcc from avr->avcc), so the firmware's conversions read a wiper position
+ * the test chooses; every other channel stays at 0 mV, so firmware reading the
+ * wrong channel sees the minimum.
  * usage: pin-trace <mcu> <f_hz> <image.hex> <port letter> <bit> <cycles> <out.vcd>
+ *        [<adc channel> <mV> <avcc mV>]
  */
 #include <stdio.h>
 #include <stdlib.h>
@@ -13,6 +19,7 @@
 #include "sim_avr.h"
 #include "sim_hex.h"
 #include "avr_ioport.h"
+#include "avr_adc.h"
 
 static FILE *out;
 static double ps_per_cycle;
@@ -44,8 +51,8 @@ static void on_ddr(struct avr_irq_t *irq, uint32_t value, void *param)
 
 int main(int argc, char **argv)
 {
-  if (argc != 8) {
-    fprintf(stderr, "usage: pin-trace <mcu> <f_hz> <image.hex> <port> <bit> <cycles> <out.vcd>\n");
+  if (argc != 8 && argc != 11) {
+    fprintf(stderr, "usage: pin-trace <mcu> <f_hz> <image.hex> <port> <bit> <cycles> <out.vcd> [<channel> <mV> <avcc mV>]\n");
     return 2;
   }
   const char *mcu = argv[1];
@@ -58,6 +65,7 @@ int main(int argc, char **argv)
   avr_init(avr);
   avr->frequency = f;
   avr->log = 0;
+  if (argc == 11) avr->vcc = avr->avcc = avr->aref = (uint32_t)strtoul(argv[10], NULL, 10);
   ihex_chunk_p chunks = NULL;
   int n = read_ihex_chunks(argv[3], &chunks);
   if (n <= 0) { fprintf(stderr, "cannot read %s\n", argv[3]); return 4; }
@@ -73,6 +81,11 @@ int main(int argc, char **argv)
   if (!pin || !dir) { fprintf(stderr, "no port %c\n", port); return 6; }
   avr_irq_register_notify(pin, on_pin, NULL);
   avr_irq_register_notify(dir, on_ddr, NULL);
+  if (argc == 11) {
+    avr_irq_t *adc = avr_io_getirq(avr, AVR_IOCTL_ADC_GETIRQ, atoi(argv[8]));
+    if (!adc) { fprintf(stderr, "no ADC channel %s\n", argv[8]); return 8; }
+    avr_raise_irq(adc, (uint32_t)strtoul(argv[9], NULL, 10));
+  }
   emit();
   int state = cpu_Running;
   while (avr->cycle < cycles && state != cpu_Done && state != cpu_Crashed) state = avr_run(avr);

@@ -1,6 +1,6 @@
-// The templates make free-running firmware only (engine.md section 6 adds
-// triggered and zero-cross plans): such a plan must be refused by the bundle,
-// naming the target, and never shipped as a free-running image.
+// Triggered and zero-cross firmware exists for the two AVRs only (engine.md
+// section 6): on any other device such a plan must be refused by the bundle,
+// naming the target and the device, and never shipped as a free-running image.
 import { describe, expect, it } from "vitest";
 import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { isEngineError } from "@/lib/engine";
@@ -18,10 +18,10 @@ function refusal(target: BundleTargetRequest & Record<string, unknown>) {
 
 describe("bundle and triggered plans", () => {
   it.each(["trigger", "zero-cross"] as const)(
-    "refuses a %s plan before writing any file, naming the target",
+    "refuses a %s plan on the STM32G031 before writing any file, naming the target",
     (start) => {
       const e = refusal({
-        device: "atmega328p",
+        device: "stm32g031",
         clockHz: 16e6,
         periodS: 0.01,
         highS: 1e-4,
@@ -30,7 +30,23 @@ describe("bundle and triggered plans", () => {
       });
       expect(isEngineError(e)).toBe(true);
       expect((e as { field?: string }).field).toBe("targets.0");
-      expect((e as Error).message).toMatch(/no firmware for triggered starts yet/);
+      expect((e as Error).message).toMatch(/no firmware for triggered starts on STM32G031 yet/);
+    },
+  );
+
+  it.each(["atmega328p", "attiny85"] as const)(
+    "builds a zero-cross %s target with its trigger firmware",
+    (device) => {
+      const files = buildBundleSources({
+        retrofit: { name: "Refusal check" },
+        revision: 1,
+        stage,
+        targets: [
+          { device, clockHz: 8e6, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 } as never,
+        ],
+      });
+      const main = files.find((f) => f.path === `${device}/src/main.c`);
+      expect(String(main?.content)).toMatch(/ISR\(INT0_vect, ISR_NAKED\)/);
     },
   );
 

@@ -94,8 +94,8 @@ describe("diffFiles", () => {
 describe("unifiedPatch against GNU diff and patch", () => {
   const before = lines(60, (i) => `#define T${i} ${i * 3}`);
   const after = before.replace("#define T30 90\n", "#define T30 91\n").replace("#define T58 174\n", "");
-  const ref = { id: 1, number: 1, state: "approved" };
-  const refB = { id: 2, number: 2, state: "in_review" };
+  const ref = { id: 1, number: 1, state: "released" };
+  const refB = { id: 2, number: 2, state: "awaiting_check" };
 
   it("has the same hunks as diff -u", () => {
     requireTool("diff");

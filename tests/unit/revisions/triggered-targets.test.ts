@@ -66,10 +66,24 @@ describe("start by stage", () => {
   });
 });
 
-describe("bundles for triggered starts are refused", () => {
-  it("names the target and says why; never a free-running image", () => {
+describe("bundles for triggered starts", () => {
+  it("builds the one-shot on the ATmega328P with its trigger firmware", () => {
     const a = analyzeStage(oneShot);
     const req = planRequestOf(a, base);
+    const files = buildBundleSources({
+      retrofit: { name: "T" },
+      revision: 1,
+      stage: oneShot,
+      targets: [req],
+    });
+    const main = files.find((f) => f.path === "atmega328p/src/main.c");
+    expect(String(main?.content)).toMatch(/triggered one-shot/);
+  });
+
+  it("elsewhere names the target and the device and says why; never a free-running image", () => {
+    const a = analyzeStage(oneShot);
+    const req = { ...planRequestOf(a, base), device: "stm32g031", clockHz: 16e6 };
+    delete (req as { clockSource?: string }).clockSource;
     let caught: unknown;
     try {
       buildBundleSources({ retrofit: { name: "T" }, revision: 1, stage: oneShot, targets: [req] });
@@ -78,7 +92,7 @@ describe("bundles for triggered starts are refused", () => {
     }
     expect(isEngineError(caught)).toBe(true);
     expect((caught as Error).message).toMatch(
-      /target 1 \(atmega328p\).*no firmware for triggered starts yet/,
+      /target 1 \(stm32g031\).*no firmware for triggered starts on STM32G031 yet/,
     );
   });
 });

@@ -27,7 +27,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
   if (!revision || !retrofit) notFound();
   if (!canReadRevision(user, revision, retrofit)) {
     return (
-      <NotAllowed role={user.role} what="this revision (technicians see approved revisions of their site)" />
+      <NotAllowed role={user.role} what="this revision (technicians see released revisions of their site)" />
     );
   }
   const files = await listRevisionFiles({ revisionId: revision.id });

@@ -27,7 +27,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
   if (!found || !canReadRevision(user, found.revision, found.retrofit)) notFound();
   const { revision, retrofit } = found;
   const devices = ((revision.spec as { targets?: { device: string }[] }).targets ?? []).map((t) => t.device);
-  const approved = revision.state === "approved";
+  const released = revision.state === "released";
 
   return (
     <div className="flex flex-col gap-6">
@@ -42,7 +42,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
         <p className="text-sm text-ink-soft">
           {retrofit.site}
           {retrofit.boardRef ? ` · ${retrofit.boardRef}` : ""} · {devices.join(", ")}
-          {revision.supersededAt ? " · superseded by a newer approved revision" : ""}
+          {revision.supersededAt ? " · superseded by a newer released revision" : ""}
         </p>
         <CopySha sha256={revision.bundleSha256} />
         <div>
@@ -53,14 +53,14 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
         <VerifyBundle sha256={revision.bundleSha256} label={`bundle r${revision.number}`} />
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
-      {FIELD.includes(user.role) && approved && (
+      {FIELD.includes(user.role) && released && (
         <section className="panel">
           <CheckForm revisionId={revision.id} retrofitId={retrofit.id} devices={devices} signer={user.name} />
         </section>
       )}
-      {!approved && (
+      {!released && (
         <p className="panel text-ink-soft">
-          This revision is {revision.state.replace("_", " ")}; field checks are recorded against approved
+          This revision is {revision.state.replace("_", " ")}; field checks are recorded against released
           revisions only.
         </p>
       )}

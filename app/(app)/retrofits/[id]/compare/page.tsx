@@ -5,8 +5,11 @@ import { notFound } from "next/navigation";
 import { db } from "@/db/client";
 import { retrofits } from "@/db/schema";
 import { FileDiff, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
+import { fileAnchor } from "@/lib/diff/anchor";
 import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
+import { BoardTable } from "@/components/diff/board-table";
+import { boardChanges } from "@/lib/diff/board";
 import { RevisionPicker } from "@/components/diff/revision-picker";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -17,7 +20,7 @@ import { compareSnapshots } from "@/lib/diff";
 import { defaultPair, loadPair, revisionsOf } from "@/lib/diff/load";
 import type { DiffRow } from "@/lib/diff/types";
 import { COMMENT_ROLES, listComments } from "@/lib/review/comments";
-import { STATE_LABELS } from "@/lib/review/states";
+import { STATE_WORDS } from "@/lib/review/words";
 
 export const metadata: Metadata = { title: "Compare revisions" };
 
@@ -144,10 +147,17 @@ export default async function ComparePage({ params, searchParams }: Props) {
       <p className="text-sm text-ink-soft">
         {a.number === 0
           ? "Nothing before"
-          : `r${a.number} (${STATE_LABELS[a.state as keyof typeof STATE_LABELS]})`}{" "}
-        → r{b.number} ({STATE_LABELS[b.state as keyof typeof STATE_LABELS]}). Comments go to r{b.number};
-        choose a line number to comment on it.
+          : `r${a.number} (${STATE_WORDS[a.state as keyof typeof STATE_WORDS]})`}{" "}
+        → r{b.number} ({STATE_WORDS[b.state as keyof typeof STATE_WORDS]}). Comments go to r{b.number}; open a
+        file and choose a line number to comment on it.
       </p>
+
+      <section aria-labelledby="board-h">
+        <h2 id="board-h" className="mb-2 text-lg font-semibold">
+          What the board does
+        </h2>
+        <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} />
+      </section>
 
       <section aria-labelledby="numbers-h">
         <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
@@ -161,6 +171,25 @@ export default async function ComparePage({ params, searchParams }: Props) {
           Files ({changed.length} changed, {unchanged.length} unchanged)
         </h2>
         {changed.length === 0 && <p className="panel text-ink-soft">Every file is byte-identical.</p>}
+        {changed.length > 0 && (
+          <nav aria-label="File index" className="panel">
+            <p className="mb-1 text-sm text-ink-soft">
+              Each file opens on its own; a name below jumps to it and opens it.
+            </p>
+            <ul className="num columns-1 text-sm sm:columns-2">
+              {files.map((f) => (
+                <li key={f.path}>
+                  <a className="underline" href={`#${fileAnchor(f.path)}`}>
+                    {f.path}
+                  </a>{" "}
+                  <span className="text-ink-muted">
+                    ({f.added} new, {f.removed} gone{f.notes.length ? `, ${f.notes.length} comment(s)` : ""})
+                  </span>
+                </li>
+              ))}
+            </ul>
+          </nav>
+        )}
         {files.map((f) => (
           <FileDiff
             key={f.path}

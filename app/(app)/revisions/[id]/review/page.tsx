@@ -110,9 +110,10 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
             {maySubmit && <SubmitForReview revisionId={revision.id} number={revision.number} />}
             {mayDecide && <DecisionForm revisionId={revision.id} number={revision.number} />}
             {!maySubmit && !mayDecide && <p className="text-sm text-ink-soft">{decideWhy}</p>}
-            {revision.state === "changes_requested" && (
+            {revision.state === "returned" && (
               <p className="text-sm">
-                Changes were requested: edit the retrofit, generate a new revision and submit that one.
+                Returned for rework: edit the retrofit, generate a new revision and send that one for
+                checking.
               </p>
             )}
           </section>

@@ -3,19 +3,27 @@ import { apiRoute, parseId, readJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { REVIEW } from "@/lib/auth/roles";
 import { decideRevision } from "@/lib/review/decide";
+import { readDecision } from "@/lib/review/words";
 
 const body = z
   .object({
-    decision: z.enum(["approved", "changes_requested"], {
-      message: 'Send "approved" or "changes_requested".',
+    // Old values ("approved", "changes_requested") still accepted: lib/review/words.ts.
+    decision: z.string().transform((v, ctx) => {
+      const d = readDecision(v);
+      if (!d) {
+        ctx.addIssue({ code: "custom", message: 'decision: send "release" or "return".' });
+        return z.NEVER;
+      }
+      return d;
     }),
     note: z.string().trim().max(4000).optional(),
   })
   .strict();
 
-// POST /api/v1/revisions/:id/decision { decision, note? }: in review -> approved |
-// changes requested (reviewers, admins; never the revision's author). 409 when
-// the revision is no longer in review, e.g. another reviewer decided first.
+// POST /api/v1/revisions/:id/decision { decision: "release" | "return", note? }:
+// awaiting_check -> released | returned (reviewers, admins; never the revision's
+// author). 409 when the revision is no longer awaiting check, e.g. another
+// reviewer decided first, or when a newer revision could be released instead.
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Revision");
   const input = body.parse(await readJson(req));

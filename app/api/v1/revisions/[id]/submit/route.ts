@@ -6,7 +6,7 @@ import { submitRevision } from "@/lib/review/submit";
 
 const body = z.object({ note: z.string().trim().max(2000).optional() }).strict();
 
-// POST /api/v1/revisions/:id/submit { note? }: draft -> in review (engineers, admins).
+// POST /api/v1/revisions/:id/submit { note? }: prepared -> awaiting_check (engineers, admins).
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Revision");
   const input = body.parse(await readOptionalJson(req));

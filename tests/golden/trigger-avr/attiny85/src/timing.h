@@ -1,0 +1,24 @@
+/* Timing constants — ATtiny85 TIMER1 isr
+ * Retrofit: Ostberg pump house lead-lag timer, revision r1, engine 1.0.0
+ * Achieved period 500.0000 ms (+0.000 ppm),
+ * high time 110.0800 ms (+727.273 ppm).
+ * period = divider * periodCounts * modeFactor * softwareDivider / F_CPU
+ *        = 4096 * 235 * 1 * 1 / 8000000
+ */
+#ifndef TIMING_H
+#define TIMING_H
+
+#ifndef F_CPU
+#define F_CPU 8000000UL
+#endif
+
+#define TIMING_DIVIDER 4096u
+#define TIMING_PERIOD_COUNTS 235u
+#define TIMING_HIGH_COUNTS 215u
+#define TIMING_MODE_FACTOR 1u
+/* interrupts per output period (1 = hardware only) */
+#define TIMING_SOFT_DIVIDER 1UL
+/* interrupts the output stays high */
+#define TIMING_HIGH_TICKS 215UL
+
+#endif
