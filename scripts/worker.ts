@@ -2,7 +2,7 @@
 // Start as many as you like on any machine that reaches the database
 // (`npm run worker`); the queue hands each job to exactly one of them.
 import { stopBoss, boss } from "@/lib/jobs/boss";
-import { runGenerateJob, type GenerateJob } from "@/lib/jobs/generate-job";
+import { giveUpGeneration, runGenerateJob, type GenerateJob } from "@/lib/jobs/generate-job";
 import { QUEUES } from "@/lib/jobs/queues";
 import { sendOutboxRows, type SendMailJob } from "@/lib/mail/outbox";
 
@@ -11,13 +11,21 @@ async function main(): Promise<void> {
   // One job at a time per worker: a generation runs compilers on all cores it has.
   await b.work<GenerateJob>(
     QUEUES.generateRevision,
-    { batchSize: 1, pollingIntervalSeconds: 0.5 },
+    { batchSize: 1, pollingIntervalSeconds: 0.5, includeMetadata: true },
     async ([job]) => {
-      const outcome = await runGenerateJob(job.data);
-      console.log(
-        `worker ${process.pid}: generation job ${job.id} ${outcome.ok ? `revision ${outcome.revisionId}` : "refused"}`,
-      );
-      return outcome;
+      try {
+        const outcome = await runGenerateJob(job.data);
+        console.log(
+          `worker ${process.pid}: generation job ${job.id} revision ${outcome.revisionId} ${outcome.state}`,
+        );
+        return outcome;
+      } catch (e) {
+        // Last try spent: record the reason on the revision, so it does not stay "building" forever.
+        if (job.retryCount >= job.retryLimit) {
+          await giveUpGeneration(job.data, e instanceof Error ? e.message : String(e)).catch(() => {});
+        }
+        throw e;
+      }
     },
   );
   await b.work<SendMailJob>(

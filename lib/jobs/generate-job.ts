@@ -1,54 +1,73 @@
-// Revision generation as a job. The worker runs generateRevision (one
-// transaction: a worker killed mid-job leaves nothing behind, and the queue
-// runs the job again after its expiry). Refusals from the inputs (a stage that
-// does not oscillate, a target that cannot be planned) are answers, not
-// failures: the job completes with the refusal and is never retried.
-import { ApiError, type ApiErrorCode, type FieldErrors } from "@/lib/api/errors";
-import { generateRevision, type GeneratedRevision } from "@/lib/revisions/generate";
-import { boss, sendJob } from "./boss";
+// Revision generation as a job. The request inserts the revision in state
+// "building" and sends this job in the same transaction (startRevision); a
+// worker then builds it (buildRevision: one transaction stores files, images
+// and bundle, so a worker killed mid-job leaves the revision "building" and
+// the queue runs the job again after its expiry). A build that cannot succeed
+// (compiler error, missing toolchain) ends "failed" with its reason and the
+// job completes: retrying would fail the same way.
+import { eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { revisions } from "@/db/schema";
+import { ApiError } from "@/lib/api/errors";
+import {
+  buildRevision,
+  failRevision,
+  startRevision,
+  type BuildOutcome,
+  type StartedRevision,
+} from "@/lib/revisions/generate";
+import type { BuildState } from "@/lib/revisions/build-state";
+import { sendJob } from "./boss";
 import { QUEUES } from "./queues";
 
-export type GenerateJob = { retrofitId: number; userId: number; note?: string };
+export type GenerateJob = { revisionId: number };
 
-export type GenerateOutcome =
-  | { ok: true; revisionId: number; number: number }
-  | { ok: false; code: ApiErrorCode; message: string; fields?: FieldErrors };
-
-export async function runGenerateJob(data: GenerateJob): Promise<GenerateOutcome> {
-  try {
-    const rev: GeneratedRevision = await generateRevision(data);
-    return { ok: true, revisionId: rev.id, number: rev.number };
-  } catch (e) {
-    if (e instanceof ApiError) return { ok: false, code: e.code, message: e.message, fields: e.fields };
-    throw e;
-  }
+export function runGenerateJob(data: GenerateJob): Promise<BuildOutcome> {
+  return buildRevision(data.revisionId);
 }
-
-export function requestGeneration(data: GenerateJob): Promise<string> {
-  return sendJob(QUEUES.generateRevision, data);
-}
-
-const POLL_MS = 200;
 
 /**
- * Waits for a generation job to finish; resolves with its outcome. A job the
- * queue gave up on (retries spent) rejects with its last error.
+ * The queue gave up on a job (retries spent on errors a retry could cure, such
+ * as a database that stayed away): the revision must not stay "building".
  */
-export async function awaitGeneration(jobId: string, timeoutMs = 180_000): Promise<GenerateOutcome> {
-  const b = await boss();
+export async function giveUpGeneration(data: GenerateJob, message: string): Promise<void> {
+  await failRevision(data.revisionId, `The build was tried several times and did not finish: ${message}`);
+}
+
+/** Starts a revision (state "building", number taken) and queues its build; refusals throw ApiError. */
+export async function requestGeneration(args: {
+  retrofitId: number;
+  userId: number;
+  note?: string;
+}): Promise<StartedRevision & { jobId: string }> {
+  let jobId = "";
+  const started = await startRevision(args, async (tx, revisionId) => {
+    jobId = await sendJob(QUEUES.generateRevision, { revisionId } satisfies GenerateJob, tx);
+  });
+  return { ...started, jobId };
+}
+
+const POLL_MS = 250;
+
+/** Polls a revision until its build is ready or failed (scripts' "wait" mode, tests). */
+export async function awaitBuild(
+  revisionId: number,
+  timeoutMs = 180_000,
+): Promise<{ buildState: Exclude<BuildState, "building">; buildError: string | null }> {
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const job = await b.getJobById<GenerateJob>(QUEUES.generateRevision, jobId, { includeArchive: true });
-    if (!job) throw new Error(`Generation job ${jobId} is not in the queue.`);
-    if (job.state === "completed") return job.output as GenerateOutcome;
-    if (job.state === "failed" || job.state === "cancelled") {
-      const out = job.output as { message?: string } | null;
-      throw new Error(`Generation failed: ${out?.message ?? job.state}`);
+    const [row] = await db
+      .select({ buildState: revisions.buildState, buildError: revisions.buildError })
+      .from(revisions)
+      .where(eq(revisions.id, revisionId));
+    if (!row) throw new ApiError("not_found", "Revision not found.");
+    if (row.buildState !== "building") {
+      return { buildState: row.buildState, buildError: row.buildError };
     }
     if (Date.now() > until) {
       throw new ApiError(
         "unavailable",
-        "The revision is still being built; no worker has finished it yet. Reload the retrofit in a minute.",
+        `Revision ${revisionId} is still building; no worker has finished it yet. Its page shows the progress.`,
       );
     }
     await new Promise((r) => setTimeout(r, POLL_MS));

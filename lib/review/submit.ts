@@ -15,12 +15,15 @@ import { loadRevisionForReview } from "./load";
 import { activeReviewers } from "./recipients";
 import { submitRefusal } from "./states";
 import { REVIEW_ACTIONS, STATE_WORDS } from "./words";
+import { buildRefusal } from "./build-gate";
 
 export async function submitRevision(user: AuthUser, revisionId: number, note = "") {
   const result = await db.transaction(async (tx) => {
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = submitRefusal(user, revision);
     if (refusal) throw refusal;
+    const unbuilt = buildRefusal(revision);
+    if (unbuilt) throw unbuilt;
     const now = new Date();
     const [moved] = await tx
       .update(revisions)
