@@ -100,13 +100,17 @@ beforeAll(async () => {
   engineer = { ...u, role: "engineer", site: null, via: "token" };
 }, 600_000);
 
-/** A PATH holding node and npx only: the worker starts, but no make or compiler can be found. */
+/** A PATH holding node, npx and sh only (npx runs its command through sh): the worker starts, but no make or compiler can be found. */
 async function pathWithoutToolchains(): Promise<string> {
   const dir = await mkdtemp(path.join(tmpdir(), "cg-no-tools-"));
   await symlink(process.execPath, path.join(dir, "node"));
   await symlink("/usr/bin/npx", path.join(dir, "npx"));
+  await symlink("/bin/sh", path.join(dir, "sh"));
   return dir;
 }
+
+/** The revision the first build-state test leaves building for the next one. */
+let waiting = 0;
 
 afterAll(async () => {
   for (const w of workers) await stopWorker(w, "SIGKILL");
@@ -119,6 +123,7 @@ describe("a revision's build state", () => {
     // No worker runs yet: the revision stays building.
     const before = await numbersOf(retrofitId);
     const { id } = await m.requestGeneration({ retrofitId, userId, note: "not built yet" });
+    waiting = id;
     expect(await numbersOf(retrofitId)).toEqual([...before, before.length + 1]);
     expect(await storedOf(id)).toEqual({ buildState: "building", bundleSize: 0, files: 0, images: 0 });
     expect(Object.values(await progressOf(id)).map((p) => p.step)).not.toContain("done");
@@ -134,8 +139,9 @@ describe("a revision's build state", () => {
     workers.push(bare);
     const { id, jobId } = await m.requestGeneration({ retrofitId, userId, note: "no compilers" });
     const outcome = await m.awaitBuild(id, 300_000);
-    // The revision sent in the test above was waiting too: the bare worker fails it the same way.
     expect(outcome.buildState).toBe("failed");
+    // The revision sent in the test above was waiting too: the bare worker fails it the same way.
+    expect((await m.awaitBuild(waiting, 300_000)).buildState).toBe("failed");
     // lib/firmware/build-images.ts names a missing make (ENOENT) this way.
     expect(outcome.buildError).toMatch(/did not build: make is not installed/);
     const failed = Object.values(await progressOf(id)).filter((p) => p.step === "failed");
