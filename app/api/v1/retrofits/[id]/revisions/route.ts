@@ -7,6 +7,7 @@
 // target whose build failed.
 import { apiRoute, parseId, readJson } from "@/lib/api/route";
 import { ApiError, notFound } from "@/lib/api/errors";
+import { wantsWait } from "@/lib/api/prefer-wait";
 import { requireUser } from "@/lib/auth/guard";
 import { EDIT, READ_ALL } from "@/lib/auth/roles";
 import { awaitBuild, requestGeneration } from "@/lib/jobs/generate-job";
@@ -23,14 +24,6 @@ export const GET = apiRoute<P>(async (req, ctx) => {
   if (!(await getRetrofitById({ id }))) throw notFound("Retrofit");
   return Response.json({ revisions: await listRevisionsByRetrofit({ retrofitId: id }) });
 });
-
-/** `?wait=1` or `Prefer: wait` / `Prefer: wait=N` (RFC 7240 section 4.3). */
-function wantsWait(req: Request): boolean {
-  const q = new URL(req.url).searchParams.get("wait");
-  if (q === "1" || q === "true") return true;
-  const prefer = req.headers.get("prefer") ?? "";
-  return prefer.split(/[,;]/).some((p) => /^\s*wait(\s*=|\s*$)/i.test(p));
-}
 
 export const POST = apiRoute<P>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Retrofit");
