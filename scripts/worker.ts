@@ -35,6 +35,16 @@ async function main(): Promise<void> {
       sent: await sendOutboxRows(job.data),
     }),
   );
+  // pg-boss 10 lets a failed bookkeeping write (its "fail" while PostgreSQL restarts)
+  // escape its work loop as an unhandled rejection, which would end the process.
+  // The job it could not record stays active and is retried after its expiry, so
+  // the worker logs it and keeps serving.
+  process.on("unhandledRejection", (err) => {
+    console.error(
+      `worker ${process.pid}: job queue bookkeeping failed:`,
+      err instanceof Error ? err.message : err,
+    );
+  });
   console.log(`worker ${process.pid}: ready`);
   const stop = (signal: string) => {
     console.log(`worker ${process.pid}: ${signal}, finishing the running job`);
