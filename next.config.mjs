@@ -27,7 +27,7 @@ const securityHeaders = [
 const nextConfig = {
   // Separate build folders let several local servers run side by side (scripts/serve-dev.sh).
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
-  serverExternalPackages: ["handlebars", "shiki", "pg", "nodemailer"],
+  serverExternalPackages: ["handlebars", "shiki", "pg", "nodemailer", "pg-boss"],
   poweredByHeader: false,
   // Local servers are reached as 127.0.0.1 as well as localhost.
   allowedDevOrigins: ["127.0.0.1"],

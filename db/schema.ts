@@ -23,6 +23,9 @@ const bytea = customType<{ data: Buffer; driverData: Buffer }>({
 
 export const roleEnum = pgEnum("role", ["admin", "engineer", "reviewer", "technician"]);
 // Values renamed in place by drizzle/*_review-state-words-data.sql; see lib/review/words.ts.
+// A revision exists from the moment "generate" is pressed; a worker builds it (lib/revisions/build-state.ts).
+export const buildStateEnum = pgEnum("build_state", ["building", "ready", "failed"]);
+
 export const revisionStateEnum = pgEnum("revision_state", [
   "prepared",
   "awaiting_check",
@@ -151,6 +154,12 @@ export const revisions = pgTable(
     decidedAt: timestamp("decided_at", { withTimezone: true }),
     // Set when a newer revision of the same retrofit is approved.
     supersededAt: timestamp("superseded_at", { withTimezone: true }),
+    // Rows made before builds ran on workers were built in their request: "ready".
+    // While building, bundle is empty and bundle_sha256 is "" (downloads refuse).
+    buildState: buildStateEnum("build_state").notNull().default("ready"),
+    buildError: text("build_error"),
+    // Per target folder: { index, device, step, reason? } (BuildProgress)
+    buildProgress: jsonb("build_progress").notNull().default({}),
   },
   (t) => [uniqueIndex("revisions_retrofit_number_uq").on(t.retrofitId, t.number)],
 );

@@ -22,7 +22,7 @@ export NODE_ENV=production
 
 ONLY=${BENCH_ONLY:-}
 needs_server=1
-if [[ -n $ONLY && ! $ONLY =~ (api|pages) ]]; then needs_server=0; fi
+if [[ -n $ONLY && ! $ONLY =~ (api|pages|queue) ]]; then needs_server=0; fi
 
 cleanup() {
   stop_bg bench-server

@@ -59,6 +59,18 @@ wait_for_url() {
   return 1
 }
 
+# Waits until a background process's log shows a line (a worker says "ready").
+wait_for_log() {
+  local log=$1 text=$2 tries=${3:-240}
+  for ((i = 0; i < tries; i++)); do
+    grep -q "$text" "$log" 2>/dev/null && return 0
+    sleep 0.5
+  done
+  echo "Timed out waiting for \"$text\" in $log" >&2
+  tail -n 20 "$log" >&2 || true
+  return 1
+}
+
 prepare_database() {
   bash scripts/pg.sh start
   npx tsx scripts/ensure-db.ts "$@"

@@ -13,6 +13,7 @@ NAME=$1 PORT=$2
 if [[ ${3:-} == --stop ]]; then
   stop_bg "dev-$NAME"
   stop_bg "dev-mail-$NAME"
+  stop_bg "dev-worker-$NAME"
   exit 0
 fi
 mkdir -p .data/run
@@ -32,7 +33,10 @@ npx tsx scripts/seed.ts
 stop_bg "dev-$NAME"
 start_bg "dev-mail-$NAME" npx tsx scripts/mail-catcher.ts --smtp "$SMTP_PORT" --http "$((PORT + 2))"
 save_tsconfig
+stop_bg "dev-worker-$NAME"
+start_bg "dev-worker-$NAME" npx tsx scripts/worker.ts # generation and mail run as jobs
 start_bg "dev-$NAME" node node_modules/next/dist/bin/next dev -p "$PORT"
 wait_for_url "$TEST_BASE_URL/api/health" 240
+wait_for_log ".data/run/dev-worker-$NAME.log" "ready"
 restore_tsconfig
 echo "dev server $NAME on $TEST_BASE_URL (log .data/run/dev-$NAME.log)"

@@ -29,11 +29,15 @@ echo "== build and serve on $TEST_BASE_URL"
 npx next build >/tmp/clockgraft-build.log 2>&1 || { cat /tmp/clockgraft-build.log; exit 1; }
 stop_bg test-server
 stop_bg test-mail
+stop_bg test-worker
 start_bg test-mail npx tsx scripts/mail-catcher.ts --smtp 2525 --http 2580
+# Generation and mail run as jobs: without a worker nothing is ever built or sent.
+start_bg test-worker npx tsx scripts/worker.ts
 start_bg test-server node node_modules/next/dist/bin/next start -p "$TEST_PORT"
-trap 'stop_bg test-server; stop_bg test-mail' EXIT
+trap 'stop_bg test-server; stop_bg test-mail; stop_bg test-worker' EXIT
 wait_for_url "$TEST_BASE_URL/api/health"
 wait_for_url "$MAIL_HTTP_URL/messages.json"
+wait_for_log .data/run/test-worker.log "ready"
 
 echo "== unit and integration tests"
 npx vitest run

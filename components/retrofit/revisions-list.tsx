@@ -3,6 +3,7 @@
 // the bundle and the comparison with the previous one.
 import Link from "next/link";
 import type { RevisionState } from "@/db/schema";
+import { BUILD_STATE_WORDS, type BuildState } from "@/lib/revisions/build-state";
 import { StateBadge } from "./state-badge";
 
 export type RevisionListItem = {
@@ -11,6 +12,7 @@ export type RevisionListItem = {
   state: RevisionState;
   engineVersion: string;
   bundleSha256: string;
+  buildState: BuildState;
   note: string;
   createdAt: string;
   supersededAt: string | null;
@@ -62,13 +64,19 @@ export function RevisionsList({
                 <td className="num">
                   {r.createdAt.slice(0, 16).replace("T", " ")} {r.createdByName ?? ""}
                 </td>
-                <td className="num" title={r.bundleSha256}>
-                  {r.bundleSha256.slice(0, 12)}…
-                </td>
+                {r.buildState === "ready" ? (
+                  <td className="num" title={r.bundleSha256}>
+                    {r.bundleSha256.slice(0, 12)}…
+                  </td>
+                ) : (
+                  <td data-testid="revision-build-state">{BUILD_STATE_WORDS[r.buildState]}</td>
+                )}
                 <td className="space-x-3 whitespace-nowrap">
-                  <a className="underline" href={`/api/v1/revisions/${r.id}/bundle`} download>
-                    Download r{r.number}
-                  </a>
+                  {r.buildState === "ready" && (
+                    <a className="underline" href={`/api/v1/revisions/${r.id}/bundle`} download>
+                      Download r{r.number}
+                    </a>
+                  )}
                   {i < revisions.length - 1 && (
                     <Link className="underline" href={`/retrofits/${retrofitId}/compare?b=${r.id}`}>
                       Compare

@@ -8,6 +8,7 @@ import { FormProvider, useForm, useWatch, type Path, type Resolver } from "react
 import type { TargetRow } from "@/db/schema";
 import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { Stage, StageControl } from "@/lib/engine";
+import type { BuildStatus } from "@/lib/revisions/build-state";
 import { AnalysisPanel } from "./analysis-panel";
 import { toForm, workspaceSchema, type WorkspaceForm, type WorkspaceOut } from "./form-values";
 import { useLive } from "./live";
@@ -20,6 +21,7 @@ type Phase =
   | { kind: "saving"; then: "generate" | null }
   | { kind: "generating"; number: number }
   | { kind: "saved" }
+  | { kind: "building"; id: number; number: number; done: number; total: number }
   | { kind: "generated"; id: number; number: number }
   | { kind: "failed"; message: string; fields?: Record<string, string> };
 
@@ -40,7 +42,7 @@ export function WorkspaceEditor(props: {
   const values = useWatch({ control: form.control }) as WorkspaceForm;
   const live = useLive(values);
   const [phase, setPhase] = useState<Phase>({ kind: "idle" });
-  const busy = phase.kind === "saving" || phase.kind === "generating";
+  const busy = phase.kind === "saving" || phase.kind === "generating" || phase.kind === "building";
 
   function showServerError(e: unknown) {
     const fields = e instanceof ClientApiError ? e.fields : undefined;
@@ -69,7 +71,30 @@ export function WorkspaceEditor(props: {
             `/api/v1/retrofits/${props.retrofitId}/revisions`,
             { method: "POST", body: JSON.stringify({}) },
           );
-          setPhase({ kind: "generated", id: res.revision.id, number: res.revision.number });
+          // 202: the revision exists and a worker builds it; follow its progress here.
+          const { id, number } = res.revision;
+          props.onChanged();
+          for (;;) {
+            const st = await fetchJson<BuildStatus>(`/api/v1/revisions/${id}/build`);
+            if (st.buildState === "ready") break;
+            if (st.buildState === "failed") {
+              const fields = Object.fromEntries(
+                st.targets
+                  .filter((t) => t.step === "failed")
+                  .map((t) => [`targets.${t.index}`, t.reason ?? ""]),
+              );
+              throw new ClientApiError(
+                `r${number} did not build: ${st.buildError ?? ""}`,
+                422,
+                "build_failed",
+                fields,
+              );
+            }
+            const done = st.targets.filter((t) => ["compiled", "emulating", "done"].includes(t.step)).length;
+            setPhase({ kind: "building", id, number, done, total: st.targets.length });
+            await new Promise((r) => setTimeout(r, 1000));
+          }
+          setPhase({ kind: "generated", id, number });
           props.onChanged();
         } catch (e) {
           showServerError(e);
@@ -124,6 +149,17 @@ function Progress({ phase }: { phase: Phase }) {
         <span role="status" className="flex items-center gap-2 text-sm">
           <progress aria-label="Generating" className="h-2 w-24" /> Generating r{phase.number}: planning,
           writing files, zipping…
+        </span>
+      );
+    case "building":
+      return (
+        <span role="status" className="flex items-center gap-2 text-sm">
+          <progress aria-label="Building" className="h-2 w-24" max={phase.total} value={phase.done} />{" "}
+          Building{" "}
+          <Link className="underline" href={`/revisions/${phase.id}`}>
+            r{phase.number}
+          </Link>
+          : {phase.done} of {phase.total} targets compiled…
         </span>
       );
     case "saved":

@@ -9,7 +9,7 @@ import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import type { CaptureMeasurement } from "@/lib/capture";
 import { formatEng } from "@/lib/engine";
-import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/mail/outbox";
 import { assertCanReadRevision } from "@/lib/revisions/access";
 import { loadReadableCapture } from "./captures";
 import { judgeCheck, requiredRelativeOf, revisionPlans } from "./judge";
@@ -134,7 +134,6 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
     }
     return row.id;
   });
-  if (author) kickOutbox();
   const [view] = await listFieldChecks({ user, ids: [id] });
   return view;
 }

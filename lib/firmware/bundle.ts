@@ -15,6 +15,8 @@ export interface ImageBuildOptions {
   prebuilt?: PrebuiltImages;
   /** How many targets build at once (default 2: the machines this runs on are small). */
   parallel?: number;
+  /** Told when a target's compile starts and ends (the revision page shows it live). */
+  onTarget?: (folder: string, step: "compiling" | "compiled") => Promise<void> | void;
 }
 
 /** Images keyed by the sha256 of the sources they were built from. */
@@ -63,8 +65,10 @@ export async function buildBundleImages(
   const built = await pool(inputs, opts.parallel ?? 2, async (t) => {
     const reuse = opts.prebuilt?.get(t.key);
     if (reuse) return reuse;
+    await opts.onTarget?.(t.folder, "compiling");
     const images = await buildTargetImages(t.files, t.folder, t.device);
     opts.prebuilt?.set(t.key, images);
+    await opts.onTarget?.(t.folder, "compiled");
     return images;
   });
   const byFolder: Record<string, BundleFile[]> = {};

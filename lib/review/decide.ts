@@ -12,7 +12,7 @@ import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { releasedMail, decisionMail } from "@/lib/mail/messages";
-import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
 import { decideRefusal, type Decision } from "./states";
@@ -79,7 +79,6 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
       superseded,
     };
   });
-  kickOutbox();
   return result;
 }
 

@@ -15,7 +15,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { ROLES } from "@/lib/auth/roles";
 import { hashToken } from "@/lib/auth/tokens";
 import { invitationMail } from "@/lib/mail/messages";
-import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/mail/outbox";
 
 export const INVITATION_DAYS = 7;
 export const MIN_PASSWORD = 10;
@@ -82,7 +82,6 @@ export async function createInvitation(admin: AuthUser, raw: unknown) {
     );
     return inv;
   });
-  kickOutbox();
   return { invitation: publicInvitation(row), token };
 }
 

@@ -21,6 +21,7 @@ export async function loadRevisionForReview(id: number, tx?: Tx) {
         decidedAt: revisions.decidedAt,
         supersededAt: revisions.supersededAt,
         bundleSha256: revisions.bundleSha256,
+        buildState: revisions.buildState,
         engineVersion: revisions.engineVersion,
       },
       retrofit: {

@@ -10,17 +10,20 @@ import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { reviewRequestedMail } from "@/lib/mail/messages";
-import { enqueueMail, kickOutbox } from "@/lib/mail/outbox";
+import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { activeReviewers } from "./recipients";
 import { submitRefusal } from "./states";
 import { REVIEW_ACTIONS, STATE_WORDS } from "./words";
+import { buildRefusal } from "./build-gate";
 
 export async function submitRevision(user: AuthUser, revisionId: number, note = "") {
   const result = await db.transaction(async (tx) => {
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = submitRefusal(user, revision);
     if (refusal) throw refusal;
+    const unbuilt = buildRefusal(revision);
+    if (unbuilt) throw unbuilt;
     const now = new Date();
     const [moved] = await tx
       .update(revisions)
@@ -54,6 +57,5 @@ export async function submitRevision(user: AuthUser, revisionId: number, note = 
     await enqueueMail(reviewRequestedMail({ revision, retrofit, author, reviewers, note }), tx);
     return { id: revisionId, number: revision.number, state: "awaiting_check" as const, submittedAt: now };
   });
-  kickOutbox();
   return result;
 }

@@ -1,10 +1,16 @@
-// Generating a revision: snapshot the stage and targets, run the engine, build
-// the bundle, and store the revision, its files and an audit event in ONE
-// transaction. The retrofit row is locked FOR UPDATE first, so concurrent
-// generations on one retrofit queue up and get gapless numbers max+1.
+// Generating a revision, in two steps.
+// startRevision (in the request): lock the retrofit row FOR UPDATE, snapshot the
+// stage and targets, run the engine, refuse what cannot be planned, and insert
+// the revision in state "building" with the next gapless number, together with
+// its build job (one transaction: the row exists exactly when its job does).
+// buildRevision (on a worker): compile every target from the stored snapshot,
+// then store files, images, bundle and the audit event in ONE transaction and
+// mark it ready; a build that cannot succeed marks it failed with the reason
+// and stores nothing else. A worker killed mid-build commits nothing; the
+// queue runs the job again and the revision is still "building".
 // No "server-only" marker: the seed script runs this outside Next.
-import { asc, eq, sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { and, asc, eq, sql } from "drizzle-orm";
+import { db, type Tx } from "@/db/client";
 import {
   retrofits,
   revisionFiles,
@@ -19,13 +25,13 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import {
   buildBundleFiles,
+  buildBundleSources,
   FirmwareBuildError,
   sha256Hex,
   zipBundle,
   type BundleFile,
   type BundleSpec,
   type BundleTargetRequest,
-  type PrebuiltImages,
   isTextFile,
 } from "@/lib/bundle";
 import { targetFolders } from "@/lib/bundle/folders";
@@ -37,7 +43,9 @@ import {
   type Stage,
   type StageControl,
 } from "@/lib/engine";
+import { reportProgress } from "@/lib/jobs/progress";
 import { storedControl } from "@/lib/validation/control";
+import type { BuildProgress } from "./build-state";
 import { planOne, planRequestOf, snapshotOf } from "./plan-targets";
 import type { StoredPlan } from "./types";
 
@@ -144,66 +152,138 @@ function specOf(inputs: Inputs, number: number): BundleSpec {
   };
 }
 
-/** The full bundle; an image that does not build is a 422 naming the target, and nothing is stored. */
-async function bundleOf(spec: BundleSpec, prebuilt: PrebuiltImages): Promise<BundleFile[]> {
+/** Planning refusals of the bundle (e.g. a start mode without firmware) surface here, before any row is written. */
+function checkSources(spec: BundleSpec): void {
   try {
-    return await buildBundleFiles(spec, { prebuilt });
+    buildBundleSources(spec);
   } catch (e) {
-    if (!(e instanceof FirmwareBuildError)) throw e;
-    const i = Math.max(0, targetFolders(spec.targets.map((t) => t.device)).indexOf(e.folder));
-    throw new ApiError("unprocessable", `Target ${i + 1}: ${e.message}`, { [`targets.${i}`]: e.message });
+    if (e instanceof ApiError) throw e;
+    if (!isEngineError(e)) throw e;
+    const field = e.field ?? "targets";
+    throw new ApiError("unprocessable", e.message, { [field]: e.message });
   }
 }
 
-export async function generateRevision({
-  retrofitId,
-  userId,
-  note = "",
-}: {
-  retrofitId: number;
-  userId: number;
-  note?: string;
-}): Promise<GeneratedRevision> {
-  // Compile the images before taking the row lock: they do not depend on the
-  // revision number, and a compiler run must not hold other generations up.
-  // Inside the lock the inputs are read again; the images are reused only
-  // where the sources are the same (PrebuiltImages is keyed by their sha256).
-  const prebuilt: PrebuiltImages = new Map();
-  await bundleOf(specOf(await loadInputs(db, retrofitId, false), 0), prebuilt);
+export type StartedRevision = { id: number; number: number };
 
+/**
+ * Takes the next number and inserts the revision in state "building";
+ * `queue(tx, revisionId)` sends its build job in the same transaction.
+ * Refusals (no stage, unplannable target, archived) throw and write nothing.
+ */
+export async function startRevision(
+  { retrofitId, userId, note = "" }: { retrofitId: number; userId: number; note?: string },
+  queue?: (tx: Tx, revisionId: number) => Promise<unknown>,
+): Promise<StartedRevision> {
   return db.transaction(async (tx) => {
     const inputs = await loadInputs(tx, retrofitId, true);
-    const { analysis, stored } = inputs;
-
     const [{ max }] = await tx
       .select({ max: sql<number>`coalesce(max(${revisions.number}), 0)`.mapWith(Number) })
       .from(revisions)
       .where(eq(revisions.retrofitId, retrofitId));
     const number = max + 1;
-
     const spec = specOf(inputs, number);
-    const files = await bundleOf(spec, prebuilt);
-    const zip = Buffer.from(await zipBundle(files));
-    const bundleSha256 = sha256Hex(zip);
+    checkSources(spec);
+    const folders = targetFolders(spec.targets.map((t) => t.device));
+    const progress: BuildProgress = Object.fromEntries(
+      folders.map((folder, index) => [folder, { index, device: spec.targets[index].device, step: "queued" }]),
+    );
     const [row] = await tx
       .insert(revisions)
       .values({
         retrofitId,
         number,
         spec,
-        analysis,
-        plans: stored,
+        analysis: inputs.analysis,
+        plans: inputs.stored,
         engineVersion: ENGINE_VERSION,
-        bundle: zip,
-        bundleSha256,
-        bundleSize: zip.length,
+        // No bundle until the build stores one (build_state says so; downloads refuse).
+        bundle: Buffer.alloc(0),
+        bundleSha256: "",
+        bundleSize: 0,
+        buildState: "building",
+        buildProgress: progress,
         note,
         createdBy: userId,
       })
-      .returning();
+      .returning({ id: revisions.id, number: revisions.number });
+    await queue?.(tx, row.id);
+    return row;
+  });
+}
+
+/** Why a build cannot succeed however often it is tried (a retry would fail the same way). */
+function lastingFailure(e: unknown): { message: string; folder?: string } | null {
+  if (e instanceof FirmwareBuildError) return { message: e.message, folder: e.folder };
+  if (e instanceof ApiError) return { message: e.message };
+  if (isEngineError(e)) return { message: e.message };
+  return null;
+}
+
+/** Marks a building revision failed with its reason; nothing else of it is written. */
+export async function failRevision(revisionId: number, message: string, folder?: string): Promise<void> {
+  if (folder) await reportProgress(revisionId, folder, "failed", message);
+  await db
+    .update(revisions)
+    .set({ buildState: "failed", buildError: message })
+    .where(and(eq(revisions.id, revisionId), eq(revisions.buildState, "building")));
+}
+
+export type BuildOutcome = { state: "ready" | "failed"; revisionId: number; number: number; error?: string };
+
+/**
+ * Builds a revision from its stored snapshot. Idempotent: a revision that is
+ * no longer building is left alone (a retried job after a commit). Errors that
+ * a retry could cure (database gone) are thrown for the queue to retry.
+ */
+export async function buildRevision(revisionId: number): Promise<BuildOutcome> {
+  const [rev] = await db
+    .select({
+      number: revisions.number,
+      retrofitId: revisions.retrofitId,
+      spec: revisions.spec,
+      buildState: revisions.buildState,
+      buildError: revisions.buildError,
+      createdBy: revisions.createdBy,
+    })
+    .from(revisions)
+    .where(eq(revisions.id, revisionId));
+  if (!rev) throw notFound("Revision");
+  if (rev.buildState !== "building") {
+    return { state: rev.buildState, revisionId, number: rev.number, error: rev.buildError ?? undefined };
+  }
+  const spec = rev.spec as BundleSpec;
+  let files: BundleFile[];
+  try {
+    files = await buildBundleFiles(spec, {
+      // Progress is for the page; a report lost to a database blip must not fail the build.
+      onTarget: (folder, step) =>
+        reportProgress(revisionId, folder, step).catch((e: Error) =>
+          console.error(`revision ${revisionId}: progress not recorded: ${e.message}`),
+        ),
+    });
+  } catch (e) {
+    const lasting = lastingFailure(e);
+    if (!lasting) throw e;
+    await failRevision(revisionId, lasting.message, lasting.folder);
+    return { state: "failed", revisionId, number: rev.number, error: lasting.message };
+  }
+  const zip = Buffer.from(await zipBundle(files));
+  const bundleSha256 = sha256Hex(zip);
+
+  return db.transaction(async (tx) => {
+    // The row lock makes two runs of one job (a retry racing a slow worker) store once.
+    const [locked] = await tx
+      .select({ buildState: revisions.buildState, progress: revisions.buildProgress })
+      .from(revisions)
+      .where(eq(revisions.id, revisionId))
+      .for("update");
+    if (locked?.buildState !== "building") {
+      return { state: locked?.buildState ?? "failed", revisionId, number: rev.number };
+    }
     await tx.insert(revisionFiles).values(
       files.filter(isTextFile).map((f) => ({
-        revisionId: row.id,
+        revisionId,
         path: f.path,
         content: f.content,
         sha256: sha256Hex(f.content),
@@ -213,7 +293,7 @@ export async function generateRevision({
     if (images.length > 0) {
       await tx.insert(revisionImages).values(
         images.map((f) => ({
-          revisionId: row.id,
+          revisionId,
           path: f.path,
           content: Buffer.from(f.content as Uint8Array),
           size: f.content.length,
@@ -221,18 +301,73 @@ export async function generateRevision({
         })),
       );
     }
+    const done: BuildProgress = Object.fromEntries(
+      Object.entries(locked.progress as BuildProgress).map(([k, p]) => [k, { ...p, step: "done" as const }]),
+    );
+    await tx
+      .update(revisions)
+      .set({
+        bundle: zip,
+        bundleSha256,
+        bundleSize: zip.length,
+        buildState: "ready",
+        buildError: null,
+        buildProgress: done,
+      })
+      .where(eq(revisions.id, revisionId));
     await recordAudit(
       {
-        actorId: userId,
+        actorId: rev.createdBy,
         action: "revision.generate",
         subjectType: "revision",
-        subjectId: row.id,
-        details: { retrofitId, number, bundleSha256, files: files.length, engineVersion: ENGINE_VERSION },
+        subjectId: revisionId,
+        details: {
+          retrofitId: rev.retrofitId,
+          number: rev.number,
+          bundleSha256,
+          files: files.length,
+          engineVersion: ENGINE_VERSION,
+        },
       },
       tx,
     );
-    // eslint-disable-next-line @typescript-eslint/no-unused-vars
-    const { bundle, ...rest } = row;
-    return rest;
+    return { state: "ready" as const, revisionId, number: rev.number };
   });
+}
+
+/**
+ * Start and build in this process (seed script, test fixtures). A failed
+ * build throws its reason as a 422 naming the target, as generation always did.
+ */
+export async function generateRevision(args: {
+  retrofitId: number;
+  userId: number;
+  note?: string;
+}): Promise<GeneratedRevision> {
+  const started = await startRevision(args);
+  const outcome = await buildRevision(started.id);
+  if (outcome.state !== "ready") {
+    throw new ApiError(
+      "unprocessable",
+      outcome.error ?? "The revision did not build.",
+      await failedFields(started.id),
+    );
+  }
+  const [row] = await db.select().from(revisions).where(eq(revisions.id, started.id));
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars
+  const { bundle, ...rest } = row;
+  return rest;
+}
+
+/** The form fields of a failed build: targets.N with the reason, else none. */
+export async function failedFields(revisionId: number): Promise<Record<string, string> | undefined> {
+  const [row] = await db
+    .select({ progress: revisions.buildProgress, error: revisions.buildError })
+    .from(revisions)
+    .where(eq(revisions.id, revisionId));
+  const failed = Object.values((row?.progress ?? {}) as BuildProgress).filter((p) => p.step === "failed");
+  if (failed.length === 0) return undefined;
+  return Object.fromEntries(
+    failed.map((p) => [`targets.${p.index}`, p.reason ?? row?.error ?? "Did not build."]),
+  );
 }

@@ -1,7 +1,7 @@
 // Runs the benchmark parts in turn, prints the table and writes
-// bench-results.json. Parts: solver, adversarial, engine, bundle, capture, pages, api.
+// bench-results.json. Parts: solver, adversarial, engine, bundle, capture, pages, api, queue.
 //   npx tsx scripts/bench/main.ts [--only=solver,engine]
-// The api and pages parts need the production server and build that
+// The api, pages and queue parts need the production server and build that
 // scripts/bench.sh starts (BENCH_BASE_URL, NEXT_DIST_DIR).
 import { writeFileSync } from "node:fs";
 import os from "node:os";
@@ -19,6 +19,7 @@ const PARTS: Record<string, () => Promise<Part>> = {
   capture: async () => (await import("./capture")).capturePart,
   pages: async () => (await import("./pages")).pagesPart,
   api: async () => (await import("./api")).apiPart,
+  queue: async () => (await import("./queue")).queuePart,
 };
 
 const log = (s: string) => process.stderr.write(`  ${s}\n`);

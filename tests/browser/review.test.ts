@@ -25,7 +25,7 @@ const SLOW = { timeout: 120_000 };
 async function generate(page: Page, retrofitId: number): Promise<{ id: number; number: number }> {
   // The request context sends the page's cookie but no Origin; a cookie-authenticated
   // change must name our own origin (same-origin rule, lib/api/same-origin.ts).
-  const res = await page.request.post(`/api/v1/retrofits/${retrofitId}/revisions`, {
+  const res = await page.request.post(`/api/v1/retrofits/${retrofitId}/revisions?wait=1`, {
     data: {},
     headers: { origin: new URL(process.env.TEST_BASE_URL ?? page.url()).origin },
     timeout: 120_000,

@@ -1,8 +1,9 @@
 // Fault test: PostgreSQL restarts (scripts/pg.sh restart) in the middle of a
 // bounded load of revision generation and plan requests. Requests during the
 // outage fail cleanly (503 with the error shape, never a 500), the app serves
-// again without being restarted, and every revision acknowledged with 201 is
-// stored afterwards with a bundle whose sha256 matches. Runs alone, after the
+// again without being restarted, and every revision acknowledged with 202 is
+// built afterwards (the restart lands while its worker builds it: the job
+// completes or is retried) and stored with a bundle whose sha256 matches. Runs alone, after the
 // other tests (scripts/test.sh), because it takes the shared database down.
 import { execFile } from "node:child_process";
 import { createHash } from "node:crypto";
@@ -10,7 +11,7 @@ import { promisify } from "node:util";
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { revisions } from "@/db/schema";
+import { revisionFiles, revisions } from "@/db/schema";
 import { BASE_URL } from "../helpers/server";
 import { isErrorShape } from "../integration/reliability/client";
 import { makeRetrofit, makeWorld } from "../integration/reliability/world";
@@ -32,10 +33,22 @@ async function retrying<T>(fn: () => Promise<T>): Promise<T> {
 
 type Outcome = { status: number; body: unknown; at: number };
 
+const idOf = (body: unknown) => (body as { revision: { id: number } }).revision.id;
+
+/** Polls a revision until its build has ended; the worker may need a retry after the outage. */
+async function untilBuilt(id: number) {
+  const until = Date.now() + 420_000;
+  for (;;) {
+    const [row] = await retrying(() => db.select().from(revisions).where(eq(revisions.id, id)));
+    if (!row || row.buildState !== "building" || Date.now() > until) return row;
+    await sleep(500);
+  }
+}
+
 describe("PostgreSQL restart under load", () => {
   it(
     "fails cleanly, recovers without an app restart, loses no acknowledged revision",
-    { timeout: 240_000 },
+    { timeout: 600_000 },
     async () => {
       const w = await makeWorld();
       const rfs = await Promise.all(Array.from({ length: 6 }, () => makeRetrofit(w, w.author.id)));
@@ -46,6 +59,9 @@ describe("PostgreSQL restart under load", () => {
       });
 
       const outcomes: Outcome[] = [];
+      // Generation answers at once (202) and queues a build: a few are enough to keep the worker busy.
+      const MAX_GENERATIONS = 8;
+      let generations = 0;
       const failures: string[] = [];
       const t0 = Date.now();
       let restartedAt = 0;
@@ -54,7 +70,8 @@ describe("PostgreSQL restart under load", () => {
       const worker = async () => {
         while (outcomes.length + failures.length < 600 && Date.now() - t0 < 25_000) {
           const n = i++;
-          const gen = n % 2 === 0;
+          const gen = n % 2 === 0 && generations < MAX_GENERATIONS;
+          if (gen) generations++;
           const path = gen ? `/api/v1/retrofits/${rfs[n % rfs.length].id}/revisions` : "/api/v1/plan";
           try {
             const res = await fetch(BASE_URL + path, {
@@ -72,8 +89,21 @@ describe("PostgreSQL restart under load", () => {
           if (restartedAt && Date.now() - restartedAt > 8_000) break;
         }
       };
+      let buildingAtRestart = 0;
       const restart = (async () => {
         await sleep(2_000);
+        // Restart while a worker builds: wait (bounded) for an acknowledged revision still building.
+        for (let k = 0; k < 40 && buildingAtRestart === 0; k++) {
+          const ids = outcomes.filter((o) => o.status === 202).map((o) => idOf(o.body));
+          for (const id of ids) {
+            const [row] = await db
+              .select({ s: revisions.buildState })
+              .from(revisions)
+              .where(eq(revisions.id, id));
+            if (row?.s === "building") buildingAtRestart++;
+          }
+          if (buildingAtRestart === 0) await sleep(250);
+        }
         await run("bash", ["scripts/pg.sh", "restart"]);
         restartedAt = Date.now();
       })();
@@ -103,23 +133,27 @@ describe("PostgreSQL restart under load", () => {
         "at least one 503 during the PostgreSQL restart",
       ).toBeGreaterThan(0);
       // Work was done before and after the outage.
-      expect(outcomes.some((o) => o.status === 201 && o.at < restartedAt)).toBe(true);
+      expect(outcomes.some((o) => o.status === 202 && o.at < restartedAt)).toBe(true);
+      expect(buildingAtRestart, "a revision was building when PostgreSQL restarted").toBeGreaterThan(0);
       const after = await fetch(`${BASE_URL}/api/v1/retrofits/${rfs[0].id}/revisions`, {
         method: "POST",
         headers: auth,
         body: "{}",
       });
-      expect(after.status, await after.clone().text()).toBe(201);
+      expect(after.status, await after.clone().text()).toBe(202);
 
-      const acked = outcomes
-        .filter((o) => o.status === 201)
-        .map((o) => (o.body as { revision: { id: number; bundleSha256: string } }).revision);
-      acked.push(((await after.json()) as { revision: { id: number; bundleSha256: string } }).revision);
-      for (const r of acked) {
-        const [row] = await retrying(() => db.select().from(revisions).where(eq(revisions.id, r.id)));
-        expect(row, `revision ${r.id} acknowledged but missing`).toBeDefined();
-        expect(row.bundleSha256).toBe(r.bundleSha256);
-        expect(createHash("sha256").update(row.bundle).digest("hex")).toBe(r.bundleSha256);
+      const acked = outcomes.filter((o) => o.status === 202).map((o) => idOf(o.body));
+      acked.push(idOf(await after.json()));
+      for (const id of acked) {
+        // Built by the worker after the restart (or before it); polled, never a fixed sleep.
+        const row = await untilBuilt(id);
+        expect(row, `revision ${id} acknowledged but missing`).toBeDefined();
+        expect(row.buildState, `revision ${id}: ${row.buildError}`).toBe("ready");
+        expect(createHash("sha256").update(row.bundle).digest("hex")).toBe(row.bundleSha256);
+        const files = await retrying(() =>
+          db.select({ id: revisionFiles.id }).from(revisionFiles).where(eq(revisionFiles.revisionId, id)),
+        );
+        expect(files.length).toBeGreaterThan(0);
       }
       // Numbers per retrofit stay unique and gapless through the outage.
       for (const rf of rfs) {

@@ -155,7 +155,8 @@ export const ROUTES: RouteEntry[] = [
     method: "POST",
     pattern: "/api/v1/retrofits/[id]/revisions",
     allowed: EDIT,
-    ok: [201],
+    // 202: the revision is building; a worker finishes it (`?wait=1` gives 201).
+    ok: [202],
     input: "json",
     build: async (w) => ({
       path: `/api/v1/retrofits/${(await fresh(w)).id}/revisions`,
@@ -167,6 +168,12 @@ export const ROUTES: RouteEntry[] = [
     pattern: "/api/v1/retrofits/[id]/field-checks",
     allowed: ANY,
     build: async (w) => ({ path: `/api/v1/retrofits/${w.retrofitId}/field-checks` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/revisions/[id]/build",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/revisions/${w.revision.released}/build` }),
   },
   {
     method: "GET",

@@ -19,7 +19,7 @@ beforeAll(async () => {
   reviewer = jsonClient(await makeToken((await makeUser("reviewer")).id));
   const res = await eng("/api/v1/retrofits", { method: "POST", body: newRetrofitBody() });
   retrofitId = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
-  const gen = await eng(`/api/v1/retrofits/${retrofitId}/revisions`, { method: "POST" });
+  const gen = await eng(`/api/v1/retrofits/${retrofitId}/revisions?wait=1`, { method: "POST" });
   revisionId = ((await gen.json()) as { revision: { id: number } }).revision.id;
 });
 
@@ -61,7 +61,7 @@ describe("who may read and change what", () => {
   it("archived retrofits stay readable with their revisions and refuse changes", async () => {
     const res = await eng("/api/v1/retrofits", { method: "POST", body: newRetrofitBody() });
     const id = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
-    const gen = await eng(`/api/v1/retrofits/${id}/revisions`, { method: "POST" });
+    const gen = await eng(`/api/v1/retrofits/${id}/revisions?wait=1`, { method: "POST" });
     const rev = ((await gen.json()) as { revision: { id: number } }).revision.id;
     expect((await eng(`/api/v1/retrofits/${id}`, { method: "DELETE" })).status).toBe(200);
     const read = await eng(`/api/v1/retrofits/${id}`);

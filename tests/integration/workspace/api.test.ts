@@ -62,7 +62,7 @@ describe("API with a personal token", () => {
     expect(detail.stage.timingC).toBe(220e-9);
     expect(detail.targets).toHaveLength(2);
 
-    const gen = await api(`/api/v1/retrofits/${retrofit.id}/revisions`, { method: "POST" });
+    const gen = await api(`/api/v1/retrofits/${retrofit.id}/revisions?wait=1`, { method: "POST" });
     expect(gen.status).toBe(201);
     const { revision } = (await gen.json()) as {
       revision: { id: number; number: number; bundleSha256: string };

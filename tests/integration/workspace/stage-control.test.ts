@@ -82,7 +82,7 @@ describe("stage control storage", () => {
     });
     expect(res.status).toBe(201);
     const rid = ((await res.json()) as { retrofit: { id: number } }).retrofit.id;
-    const gen = await eng(`/api/v1/retrofits/${rid}/revisions`, { method: "POST" });
+    const gen = await eng(`/api/v1/retrofits/${rid}/revisions?wait=1`, { method: "POST" });
     expect(gen.status).toBe(201);
     const rev = ((await gen.json()) as { revision: { id: number } }).revision.id;
     const plan = (await (await eng(`/api/v1/revisions/${rev}/files/plan.json`)).json()) as {

@@ -3,6 +3,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { BuildProgress } from "@/components/retrofit/build-progress";
 import { StateBadge } from "@/components/retrofit/state-badge";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -11,6 +12,7 @@ import { ANY, READ_ALL, REVIEW_VIEW } from "@/lib/auth/roles";
 import { getRetrofitById } from "@/lib/retrofits/get";
 import { getRevisionById, listRevisionFiles, listRevisionImages } from "@/lib/retrofits/revisions";
 import { canReadRevision } from "@/lib/revisions/access";
+import { progressList, type BuildProgress as Progress } from "@/lib/revisions/build-state";
 import type { StoredPlan } from "@/lib/revisions/types";
 import { FileView } from "./file-view";
 import { Markdown } from "./markdown";
@@ -61,30 +63,44 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
         </p>
       </header>
 
-      <section aria-labelledby="bundle-title" className="panel flex flex-wrap items-center gap-4">
-        <h2 id="bundle-title" className="sr-only">
-          Bundle
-        </h2>
-        <a className="btn-primary" href={`/api/v1/revisions/${revision.id}/bundle`} download>
-          Download bundle (zip, {Math.ceil(revision.bundleSize / 1024)} KiB)
-        </a>
-        <p className="text-sm">
-          sha256{" "}
-          <code className="num break-all" data-testid="bundle-sha256">
-            {revision.bundleSha256}
-          </code>
-        </p>
-        {readAll && (
-          <Link className="underline" href={`/retrofits/${retrofit.id}/compare?b=${revision.id}`}>
-            Compare with another revision
-          </Link>
-        )}
-        {REVIEW_VIEW.includes(user.role) && (
-          <Link className="underline" href={`/revisions/${revision.id}/review`}>
-            Review
-          </Link>
-        )}
-      </section>
+      {revision.buildState !== "ready" && (
+        <BuildProgress
+          initial={{
+            id: revision.id,
+            number: revision.number,
+            buildState: revision.buildState,
+            buildError: revision.buildError,
+            targets: progressList(revision.buildProgress as Progress),
+          }}
+        />
+      )}
+
+      {revision.buildState === "ready" && (
+        <section aria-labelledby="bundle-title" className="panel flex flex-wrap items-center gap-4">
+          <h2 id="bundle-title" className="sr-only">
+            Bundle
+          </h2>
+          <a className="btn-primary" href={`/api/v1/revisions/${revision.id}/bundle`} download>
+            Download bundle (zip, {Math.ceil(revision.bundleSize / 1024)} KiB)
+          </a>
+          <p className="text-sm">
+            sha256{" "}
+            <code className="num break-all" data-testid="bundle-sha256">
+              {revision.bundleSha256}
+            </code>
+          </p>
+          {readAll && (
+            <Link className="underline" href={`/retrofits/${retrofit.id}/compare?b=${revision.id}`}>
+              Compare with another revision
+            </Link>
+          )}
+          {REVIEW_VIEW.includes(user.role) && (
+            <Link className="underline" href={`/revisions/${revision.id}/review`}>
+              Review
+            </Link>
+          )}
+        </section>
+      )}
 
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
       <PlanSummary plans={plans} />

@@ -1,7 +1,7 @@
 // GET /api/v1/revisions/:id/bundle: the stored zip, byte for byte. ETag is the
 // zip's sha256, so If-None-Match answers 304 without sending it again; each
 // full download is audited.
-import { notFound } from "@/lib/api/errors";
+import { ApiError, notFound } from "@/lib/api/errors";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { recordAudit } from "@/lib/audit";
 import { requireUser } from "@/lib/auth/guard";
@@ -16,6 +16,15 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
   const revision = await getRevisionDownload({ id });
   if (!revision) throw notFound("Revision");
   assertCanReadRevision(user, revision, revision);
+  // A revision still building (or whose build failed) has no bundle yet: never an empty zip.
+  if (revision.buildState !== "ready") {
+    throw new ApiError(
+      "conflict",
+      revision.buildState === "building"
+        ? `r${revision.number} is still being built; its bundle can be downloaded once every target has built.`
+        : `r${revision.number} did not build, so it has no bundle.`,
+    );
+  }
   const etag = `"${revision.bundleSha256}"`;
   const common = { etag, "cache-control": "private, no-cache" };
   if (etagMatches(req.headers.get("if-none-match"), revision.bundleSha256)) {
