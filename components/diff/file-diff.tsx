@@ -5,7 +5,8 @@ import { CommentForm } from "@/components/review/comment-form";
 import { fileAnchor } from "@/lib/diff/anchor";
 import type { DiffRow, FileStatus } from "@/lib/diff/types";
 
-export type HighlightedRow = DiffRow & { html?: string };
+/** A row with its highlighted HTML; a fold carries the HTML of the lines it hides so it can open. */
+export type HighlightedRow = DiffRow & { html?: string; lines?: string[] };
 export type LineComment = {
   id: number;
   body: string;
@@ -44,6 +45,7 @@ export function FileDiff(props: {
   comments: LineComment[];
 }) {
   const [openLine, setOpenLine] = useState<number | null>(null);
+  const [openFolds, setOpenFolds] = useState<ReadonlySet<number>>(new Set());
   const anchor = fileAnchor(props.path);
   const [open, setOpen] = useState(false);
   // A jump from the file index (or a shared link) opens the section it lands on.
@@ -80,74 +82,96 @@ export function FileDiff(props: {
         <div className="overflow-x-auto">
           <table className="w-full border-collapse font-mono text-xs leading-5">
             <tbody>
-              {props.rows.map((row, i) => {
-                if (row.kind === "fold") {
-                  return (
-                    <tr key={i} className="bg-paper-sunk text-ink-muted" data-kind="fold">
-                      <td colSpan={3} className="px-3 py-0.5">
-                        {row.count} {row.count === 1 ? "line" : "lines"} as before ({row.newFrom}–
-                        {row.newFrom + row.count - 1})
-                      </td>
-                    </tr>
-                  );
-                }
-                const newLine = row.kind === "removed" ? null : row.newLine;
-                const oldLine = row.kind === "added" ? null : row.oldLine;
-                const notes = newLine ? (byLine.get(newLine) ?? []) : [];
-                return [
-                  <tr
-                    key={i}
-                    className={ROW_STYLE[row.kind]}
-                    data-kind={row.kind}
-                    data-new-line={newLine ?? undefined}
-                  >
-                    <td className="w-12 select-none px-2 text-right text-ink-muted">
-                      {newLine && props.canComment ? (
-                        <button
-                          type="button"
-                          className="hover:text-accent hover:underline"
-                          aria-label={`Comment on line ${newLine} of ${props.path}`}
-                          onClick={() => setOpenLine(openLine === newLine ? null : newLine)}
-                        >
-                          {newLine}
-                        </button>
-                      ) : (
-                        (newLine ?? <span title="line number in the older revision">{oldLine}</span>)
-                      )}
-                    </td>
-                    <td
-                      className="w-10 select-none px-1 font-sans text-[10px] uppercase text-ink-muted"
-                      aria-hidden
+              {props.rows
+                .flatMap((folded, i): HighlightedRow[] =>
+                  folded.kind === "fold" && openFolds.has(i)
+                    ? Array.from({ length: folded.count }, (_, k) => ({
+                        kind: "context" as const,
+                        text: "",
+                        oldLine: folded.oldFrom + k,
+                        newLine: folded.newFrom + k,
+                        html: folded.lines?.[k] ?? "",
+                      }))
+                    : [folded],
+                )
+                .map((row, i) => {
+                  if (row.kind === "fold") {
+                    const at = props.rows.indexOf(row);
+                    return (
+                      <tr key={`f${at}`} className="bg-paper-sunk text-ink-muted" data-kind="fold">
+                        <td colSpan={3} className="px-3 py-0.5 font-sans">
+                          {row.count} {row.count === 1 ? "line" : "lines"} as before ({row.newFrom}–
+                          {row.newFrom + row.count - 1}){" "}
+                          {row.lines && (
+                            <button
+                              type="button"
+                              className="underline hover:text-accent"
+                              onClick={() => setOpenFolds(new Set([...openFolds, at]))}
+                            >
+                              Show these lines
+                            </button>
+                          )}
+                        </td>
+                      </tr>
+                    );
+                  }
+                  const newLine = row.kind === "removed" ? null : row.newLine;
+                  const oldLine = row.kind === "added" ? null : row.oldLine;
+                  const notes = newLine ? (byLine.get(newLine) ?? []) : [];
+                  return [
+                    <tr
+                      key={i}
+                      className={ROW_STYLE[row.kind]}
+                      data-kind={row.kind}
+                      data-new-line={newLine ?? undefined}
                     >
-                      {TAG[row.kind]}
-                    </td>
-                    <td className="whitespace-pre pr-3">
-                      <span className="sr-only">{row.kind === "context" ? "" : `${row.kind}: `}</span>
-                      <code dangerouslySetInnerHTML={{ __html: row.html ?? "" }} />
-                    </td>
-                  </tr>,
-                  ...notes.map((c) => (
-                    <tr key={`${i}-c${c.id}`}>
-                      <td colSpan={3} className="p-0">
-                        <Comment c={c} />
+                      <td className="w-12 select-none px-2 text-right text-ink-muted">
+                        {newLine && props.canComment ? (
+                          <button
+                            type="button"
+                            className="hover:text-accent hover:underline"
+                            aria-label={`Comment on line ${newLine} of ${props.path}`}
+                            onClick={() => setOpenLine(openLine === newLine ? null : newLine)}
+                          >
+                            {newLine}
+                          </button>
+                        ) : (
+                          (newLine ?? <span title="line number in the older revision">{oldLine}</span>)
+                        )}
                       </td>
-                    </tr>
-                  )),
-                  openLine !== null && openLine === newLine ? (
-                    <tr key={`${i}-form`}>
-                      <td colSpan={3} className="bg-accent-soft px-3 py-2 font-sans">
-                        <CommentForm
-                          revisionId={props.revisionId}
-                          filePath={props.path}
-                          line={newLine}
-                          autoFocus
-                          onDone={() => setOpenLine(null)}
-                        />
+                      <td
+                        className="w-10 select-none px-1 font-sans text-[10px] uppercase text-ink-muted"
+                        aria-hidden
+                      >
+                        {TAG[row.kind]}
                       </td>
-                    </tr>
-                  ) : null,
-                ];
-              })}
+                      <td className="whitespace-pre pr-3">
+                        <span className="sr-only">{row.kind === "context" ? "" : `${row.kind}: `}</span>
+                        <code dangerouslySetInnerHTML={{ __html: row.html ?? "" }} />
+                      </td>
+                    </tr>,
+                    ...notes.map((c) => (
+                      <tr key={`${i}-c${c.id}`}>
+                        <td colSpan={3} className="p-0">
+                          <Comment c={c} />
+                        </td>
+                      </tr>
+                    )),
+                    openLine !== null && openLine === newLine ? (
+                      <tr key={`${i}-form`}>
+                        <td colSpan={3} className="bg-accent-soft px-3 py-2 font-sans">
+                          <CommentForm
+                            revisionId={props.revisionId}
+                            filePath={props.path}
+                            line={newLine}
+                            autoFocus
+                            onDone={() => setOpenLine(null)}
+                          />
+                        </td>
+                      </tr>
+                    ) : null,
+                  ];
+                })}
             </tbody>
           </table>
         </div>

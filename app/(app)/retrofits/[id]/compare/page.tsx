@@ -10,6 +10,8 @@ import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
 import { BoardTable } from "@/components/diff/board-table";
 import { boardChanges } from "@/lib/diff/board";
+import { RegisterTable } from "@/components/diff/register-table";
+import { registerChanges } from "@/lib/diff/registers";
 import { RevisionPicker } from "@/components/diff/revision-picker";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -106,7 +108,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
         r.kind === "removed"
           ? { ...r, html: oldHtml[r.oldLine - 1] }
           : r.kind === "fold"
-            ? r
+            ? { ...r, lines: newHtml.slice(r.newFrom - 1, r.newFrom - 1 + r.count) }
             : { ...r, html: newHtml[r.newLine - 1] },
       );
       const notes: LineComment[] = comments
@@ -157,6 +159,13 @@ export default async function ComparePage({ params, searchParams }: Props) {
           What the board does
         </h2>
         <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} />
+      </section>
+
+      <section aria-labelledby="registers-h">
+        <h2 id="registers-h" className="mb-2 text-lg font-semibold">
+          Registers the firmware writes
+        </h2>
+        <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} />
       </section>
 
       <section aria-labelledby="numbers-h">
