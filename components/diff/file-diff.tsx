@@ -2,18 +2,13 @@
 
 import { useEffect, useState } from "react";
 import { CommentForm } from "@/components/review/comment-form";
+import { CommentThread } from "@/components/review/comment-thread";
+import type { ThreadView } from "@/lib/review/thread-view";
 import { fileAnchor } from "@/lib/diff/anchor";
 import type { DiffRow, FileStatus } from "@/lib/diff/types";
 
 /** A row with its highlighted HTML; a fold carries the HTML of the lines it hides so it can open. */
 export type HighlightedRow = DiffRow & { html?: string; lines?: string[] };
-export type LineComment = {
-  id: number;
-  body: string;
-  line: number | null;
-  author: string;
-  createdAt: string;
-};
 
 const STATUS_TEXT: Record<FileStatus, string> = {
   added: "new file",
@@ -42,7 +37,7 @@ export function FileDiff(props: {
   rows: HighlightedRow[];
   revisionId: number;
   canComment: boolean;
-  comments: LineComment[];
+  comments: ThreadView[];
 }) {
   const [openLine, setOpenLine] = useState<number | null>(null);
   const [openFolds, setOpenFolds] = useState<ReadonlySet<number>>(new Set());
@@ -57,9 +52,20 @@ export function FileDiff(props: {
     window.addEventListener("hashchange", follow);
     return () => window.removeEventListener("hashchange", follow);
   }, [anchor]);
-  const byLine = new Map<number, LineComment[]>();
-  for (const c of props.comments) if (c.line) byLine.set(c.line, [...(byLine.get(c.line) ?? []), c]);
-  const fileComments = props.comments.filter((c) => !c.line);
+  // Threads on a line the view shows sit under it; the rest (file threads, lines inside a fold) on top.
+  const shownLines = new Set<number>();
+  for (const r of props.rows)
+    if (r.kind === "fold") {
+      if (openFolds.has(props.rows.indexOf(r)))
+        for (let k = 0; k < r.count; k++) shownLines.add(r.newFrom + k);
+    } else if (r.kind !== "removed") shownLines.add(r.newLine);
+  const byLine = new Map<number, ThreadView[]>();
+  for (const c of props.comments)
+    if (c.line && shownLines.has(c.line)) byLine.set(c.line, [...(byLine.get(c.line) ?? []), c]);
+  const fileComments = props.comments.filter((c) => !c.line || !shownLines.has(c.line));
+  const thread = (c: ThreadView) => (
+    <CommentThread key={c.id} thread={c} revisionId={props.revisionId} canComment={props.canComment} />
+  );
 
   return (
     <section
@@ -76,9 +82,7 @@ export function FileDiff(props: {
             {props.comments.length > 0 ? ` · ${props.comments.length} comment(s)` : ""}
           </span>
         </summary>
-        {fileComments.map((c) => (
-          <Comment key={c.id} c={c} />
-        ))}
+        {fileComments.map(thread)}
         <div className="overflow-x-auto">
           <table className="w-full border-collapse font-mono text-xs leading-5">
             <tbody>
@@ -153,7 +157,7 @@ export function FileDiff(props: {
                     ...notes.map((c) => (
                       <tr key={`${i}-c${c.id}`}>
                         <td colSpan={3} className="p-0">
-                          <Comment c={c} />
+                          {thread(c)}
                         </td>
                       </tr>
                     )),
@@ -177,20 +181,5 @@ export function FileDiff(props: {
         </div>
       </details>
     </section>
-  );
-}
-
-function Comment({ c }: { c: LineComment }) {
-  return (
-    <div
-      className="border-l-4 border-accent bg-paper-raised px-3 py-2 font-sans text-sm"
-      data-testid="inline-comment"
-    >
-      <p className="text-xs text-ink-muted">
-        {c.author} · {new Date(c.createdAt).toISOString().slice(0, 16).replace("T", " ")} UTC
-        {c.line ? ` · line ${c.line}` : ""}
-      </p>
-      <p className="whitespace-pre-wrap">{c.body}</p>
-    </div>
   );
 }

@@ -10,7 +10,9 @@ import { NotAllowed } from "@/components/ui/not-allowed";
 import { ApiError } from "@/lib/api/errors";
 import { pageUser } from "@/lib/auth/page";
 import { READ_ALL } from "@/lib/auth/roles";
-import { COMMENT_ROLES, listComments } from "@/lib/review/comments";
+import { CommentThread } from "@/components/review/comment-thread";
+import { COMMENT_ROLES, listThreads } from "@/lib/review/comments";
+import { toThreadView } from "@/lib/review/thread-view";
 import { ACTION_LABELS, revisionHistory } from "@/lib/review/history";
 import { loadRevisionForReview } from "@/lib/review/load";
 import { decideRefusal, submitRefusal } from "@/lib/review/states";
@@ -32,7 +34,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
     throw e;
   }
   const { revision, retrofit, author } = loaded;
-  const [comments, history] = await Promise.all([listComments(revision.id), revisionHistory(revision.id)]);
+  const [comments, history] = await Promise.all([listThreads(revision.id), revisionHistory(revision.id)]);
   const mayDecide = decideRefusal(user, revision) === null;
   const decideWhy = decideRefusal(user, revision)?.message;
   const maySubmit = submitRefusal(user, revision) === null;
@@ -75,26 +77,17 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
             </h2>
             {comments.length === 0 && (
               <p className="text-sm text-ink-soft">
-                No comments yet. Comment on a line from the compare page, or on the whole revision below.
+                No comments yet. Comment on a line, a quantity or a register from the compare page, or on the whole revision below.
               </p>
             )}
             <ul className="space-y-2">
               {comments.map((c) => (
-                <li key={c.id} className="panel py-2" data-testid="comment">
-                  <p className="text-xs text-ink-muted">
-                    {c.author} · {when(c.createdAt)}
-                    {c.filePath && (
-                      <>
-                        {" "}
-                        ·{" "}
-                        <span className="num">
-                          {c.filePath}
-                          {c.line ? `:${c.line}` : ""}
-                        </span>
-                      </>
-                    )}
-                  </p>
-                  <p className="whitespace-pre-wrap text-sm">{c.body}</p>
+                <li key={c.id} data-testid="comment">
+                  <CommentThread
+                    thread={toThreadView(c)}
+                    revisionId={revision.id}
+                    canComment={COMMENT_ROLES.includes(user.role)}
+                  />
                 </li>
               ))}
             </ul>
