@@ -3,6 +3,7 @@
 // revision is reproducible and diffable without re-running the engine.
 import { relations } from "drizzle-orm";
 import {
+  type AnyPgColumn,
   boolean,
   customType,
   doublePrecision,
@@ -205,8 +206,22 @@ export const reviews = pgTable("reviews", {
     .references(() => users.id),
   decision: reviewDecisionEnum("decision").notNull(),
   note: text("note").notNull().default(""),
+  /** Release despite a target whose budget misses: the reviewer's reason (null = no override). */
+  overrideReason: text("override_reason"),
+  /** The targets the override covers: [{ position, device, findings }] as judged at release. */
+  overrideTargets: jsonb("override_targets"),
   createdAt: createdAt(),
 });
+
+// What a comment is about: the revision as a whole, a file, a line of a file,
+// a quantity of a target ("target1.periodS") or a register ("target1.register.ICR1").
+export const commentAnchorEnum = pgEnum("comment_anchor_kind", [
+  "revision",
+  "file",
+  "line",
+  "quantity",
+  "register",
+]);
 
 export const comments = pgTable(
   "comments",
@@ -221,9 +236,18 @@ export const comments = pgTable(
     body: text("body").notNull(),
     filePath: text("file_path"),
     line: integer("line"),
+    anchorKind: commentAnchorEnum("anchor_kind").notNull().default("revision"),
+    /** quantity / register anchors: the key of lib/review/anchors.ts */
+    anchorKey: text("anchor_key"),
+    /** the anchored value or line text when the comment was written, to mark a carried comment "changed" */
+    anchorText: text("anchor_text"),
+    /** a reply's thread (the first comment); replies carry no anchor of their own */
+    parentId: integer("parent_id").references((): AnyPgColumn => comments.id),
+    resolvedAt: timestamp("resolved_at", { withTimezone: true }),
+    resolvedBy: integer("resolved_by").references(() => users.id),
     createdAt: createdAt(),
   },
-  (t) => [index("comments_revision_idx").on(t.revisionId)],
+  (t) => [index("comments_revision_idx").on(t.revisionId), index("comments_parent_idx").on(t.parentId)],
 );
 
 export const fieldChecks = pgTable("field_checks", {

@@ -2,17 +2,13 @@
 
 import { useEffect, useState } from "react";
 import { CommentForm } from "@/components/review/comment-form";
+import { CommentThread } from "@/components/review/comment-thread";
+import type { ThreadView } from "@/lib/review/thread-view";
 import { fileAnchor } from "@/lib/diff/anchor";
 import type { DiffRow, FileStatus } from "@/lib/diff/types";
 
-export type HighlightedRow = DiffRow & { html?: string };
-export type LineComment = {
-  id: number;
-  body: string;
-  line: number | null;
-  author: string;
-  createdAt: string;
-};
+/** A row with its highlighted HTML; a fold carries the HTML of the lines it hides so it can open. */
+export type HighlightedRow = DiffRow & { html?: string; lines?: string[] };
 
 const STATUS_TEXT: Record<FileStatus, string> = {
   added: "new file",
@@ -41,9 +37,10 @@ export function FileDiff(props: {
   rows: HighlightedRow[];
   revisionId: number;
   canComment: boolean;
-  comments: LineComment[];
+  comments: ThreadView[];
 }) {
   const [openLine, setOpenLine] = useState<number | null>(null);
+  const [openFolds, setOpenFolds] = useState<ReadonlySet<number>>(new Set());
   const anchor = fileAnchor(props.path);
   const [open, setOpen] = useState(false);
   // A jump from the file index (or a shared link) opens the section it lands on.
@@ -55,9 +52,20 @@ export function FileDiff(props: {
     window.addEventListener("hashchange", follow);
     return () => window.removeEventListener("hashchange", follow);
   }, [anchor]);
-  const byLine = new Map<number, LineComment[]>();
-  for (const c of props.comments) if (c.line) byLine.set(c.line, [...(byLine.get(c.line) ?? []), c]);
-  const fileComments = props.comments.filter((c) => !c.line);
+  // Threads on a line the view shows sit under it; the rest (file threads, lines inside a fold) on top.
+  const shownLines = new Set<number>();
+  for (const r of props.rows)
+    if (r.kind === "fold") {
+      if (openFolds.has(props.rows.indexOf(r)))
+        for (let k = 0; k < r.count; k++) shownLines.add(r.newFrom + k);
+    } else if (r.kind !== "removed") shownLines.add(r.newLine);
+  const byLine = new Map<number, ThreadView[]>();
+  for (const c of props.comments)
+    if (c.line && shownLines.has(c.line)) byLine.set(c.line, [...(byLine.get(c.line) ?? []), c]);
+  const fileComments = props.comments.filter((c) => !c.line || !shownLines.has(c.line));
+  const thread = (c: ThreadView) => (
+    <CommentThread key={c.id} thread={c} revisionId={props.revisionId} canComment={props.canComment} />
+  );
 
   return (
     <section
@@ -74,99 +82,104 @@ export function FileDiff(props: {
             {props.comments.length > 0 ? ` · ${props.comments.length} comment(s)` : ""}
           </span>
         </summary>
-        {fileComments.map((c) => (
-          <Comment key={c.id} c={c} />
-        ))}
+        {fileComments.map(thread)}
         <div className="overflow-x-auto">
           <table className="w-full border-collapse font-mono text-xs leading-5">
             <tbody>
-              {props.rows.map((row, i) => {
-                if (row.kind === "fold") {
-                  return (
-                    <tr key={i} className="bg-paper-sunk text-ink-muted" data-kind="fold">
-                      <td colSpan={3} className="px-3 py-0.5">
-                        {row.count} {row.count === 1 ? "line" : "lines"} as before ({row.newFrom}–
-                        {row.newFrom + row.count - 1})
-                      </td>
-                    </tr>
-                  );
-                }
-                const newLine = row.kind === "removed" ? null : row.newLine;
-                const oldLine = row.kind === "added" ? null : row.oldLine;
-                const notes = newLine ? (byLine.get(newLine) ?? []) : [];
-                return [
-                  <tr
-                    key={i}
-                    className={ROW_STYLE[row.kind]}
-                    data-kind={row.kind}
-                    data-new-line={newLine ?? undefined}
-                  >
-                    <td className="w-12 select-none px-2 text-right text-ink-muted">
-                      {newLine && props.canComment ? (
-                        <button
-                          type="button"
-                          className="hover:text-accent hover:underline"
-                          aria-label={`Comment on line ${newLine} of ${props.path}`}
-                          onClick={() => setOpenLine(openLine === newLine ? null : newLine)}
-                        >
-                          {newLine}
-                        </button>
-                      ) : (
-                        (newLine ?? <span title="line number in the older revision">{oldLine}</span>)
-                      )}
-                    </td>
-                    <td
-                      className="w-10 select-none px-1 font-sans text-[10px] uppercase text-ink-muted"
-                      aria-hidden
+              {props.rows
+                .flatMap((folded, i): HighlightedRow[] =>
+                  folded.kind === "fold" && openFolds.has(i)
+                    ? Array.from({ length: folded.count }, (_, k) => ({
+                        kind: "context" as const,
+                        text: "",
+                        oldLine: folded.oldFrom + k,
+                        newLine: folded.newFrom + k,
+                        html: folded.lines?.[k] ?? "",
+                      }))
+                    : [folded],
+                )
+                .map((row, i) => {
+                  if (row.kind === "fold") {
+                    const at = props.rows.indexOf(row);
+                    return (
+                      <tr key={`f${at}`} className="bg-paper-sunk text-ink-muted" data-kind="fold">
+                        <td colSpan={3} className="px-3 py-0.5 font-sans">
+                          {row.count} {row.count === 1 ? "line" : "lines"} as before ({row.newFrom}–
+                          {row.newFrom + row.count - 1}){" "}
+                          {row.lines && (
+                            <button
+                              type="button"
+                              className="underline hover:text-accent"
+                              onClick={() => setOpenFolds(new Set([...openFolds, at]))}
+                            >
+                              Show these lines
+                            </button>
+                          )}
+                        </td>
+                      </tr>
+                    );
+                  }
+                  const newLine = row.kind === "removed" ? null : row.newLine;
+                  const oldLine = row.kind === "added" ? null : row.oldLine;
+                  const notes = newLine ? (byLine.get(newLine) ?? []) : [];
+                  return [
+                    <tr
+                      key={i}
+                      className={ROW_STYLE[row.kind]}
+                      data-kind={row.kind}
+                      data-new-line={newLine ?? undefined}
                     >
-                      {TAG[row.kind]}
-                    </td>
-                    <td className="whitespace-pre pr-3">
-                      <span className="sr-only">{row.kind === "context" ? "" : `${row.kind}: `}</span>
-                      <code dangerouslySetInnerHTML={{ __html: row.html ?? "" }} />
-                    </td>
-                  </tr>,
-                  ...notes.map((c) => (
-                    <tr key={`${i}-c${c.id}`}>
-                      <td colSpan={3} className="p-0">
-                        <Comment c={c} />
+                      <td className="w-12 select-none px-2 text-right text-ink-muted">
+                        {newLine && props.canComment ? (
+                          <button
+                            type="button"
+                            className="hover:text-accent hover:underline"
+                            aria-label={`Comment on line ${newLine} of ${props.path}`}
+                            onClick={() => setOpenLine(openLine === newLine ? null : newLine)}
+                          >
+                            {newLine}
+                          </button>
+                        ) : (
+                          (newLine ?? <span title="line number in the older revision">{oldLine}</span>)
+                        )}
                       </td>
-                    </tr>
-                  )),
-                  openLine !== null && openLine === newLine ? (
-                    <tr key={`${i}-form`}>
-                      <td colSpan={3} className="bg-accent-soft px-3 py-2 font-sans">
-                        <CommentForm
-                          revisionId={props.revisionId}
-                          filePath={props.path}
-                          line={newLine}
-                          autoFocus
-                          onDone={() => setOpenLine(null)}
-                        />
+                      <td
+                        className="w-10 select-none px-1 font-sans text-[10px] uppercase text-ink-muted"
+                        aria-hidden
+                      >
+                        {TAG[row.kind]}
                       </td>
-                    </tr>
-                  ) : null,
-                ];
-              })}
+                      <td className="whitespace-pre pr-3">
+                        <span className="sr-only">{row.kind === "context" ? "" : `${row.kind}: `}</span>
+                        <code dangerouslySetInnerHTML={{ __html: row.html ?? "" }} />
+                      </td>
+                    </tr>,
+                    ...notes.map((c) => (
+                      <tr key={`${i}-c${c.id}`}>
+                        <td colSpan={3} className="p-0">
+                          {thread(c)}
+                        </td>
+                      </tr>
+                    )),
+                    openLine !== null && openLine === newLine ? (
+                      <tr key={`${i}-form`}>
+                        <td colSpan={3} className="bg-accent-soft px-3 py-2 font-sans">
+                          <CommentForm
+                            revisionId={props.revisionId}
+                            filePath={props.path}
+                            line={newLine}
+                            autoFocus
+                            onDone={() => setOpenLine(null)}
+                          />
+                        </td>
+                      </tr>
+                    ) : null,
+                  ];
+                })}
             </tbody>
           </table>
         </div>
       </details>
     </section>
-  );
-}
-
-function Comment({ c }: { c: LineComment }) {
-  return (
-    <div
-      className="border-l-4 border-accent bg-paper-raised px-3 py-2 font-sans text-sm"
-      data-testid="inline-comment"
-    >
-      <p className="text-xs text-ink-muted">
-        {c.author} · {new Date(c.createdAt).toISOString().slice(0, 16).replace("T", " ")} UTC
-        {c.line ? ` · line ${c.line}` : ""}
-      </p>
-      <p className="whitespace-pre-wrap">{c.body}</p>
-    </div>
   );
 }

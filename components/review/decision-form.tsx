@@ -6,9 +6,19 @@ import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
 import type { DecisionWord } from "@/lib/review/words";
 
 /** Release for the field or return for rework, with a note. A 409 (someone decided first) is shown as is. */
-export function DecisionForm({ revisionId, number }: { revisionId: number; number: number }) {
+export function DecisionForm({
+  revisionId,
+  number,
+  missed = "",
+}: {
+  revisionId: number;
+  number: number;
+  /** what misses its budget (lib/review/budget-miss.ts); a release then needs a reason */
+  missed?: string;
+}) {
   const router = useRouter();
   const [note, setNote] = useState("");
+  const [override, setOverride] = useState("");
   const [busy, setBusy] = useState<null | DecisionWord>(null);
   const [error, setError] = useState<string | null>(null);
 
@@ -17,12 +27,18 @@ export function DecisionForm({ revisionId, number }: { revisionId: number; numbe
       setError("Note: say what has to change, so the engineer knows what to rework.");
       return;
     }
+    if (decision === "release" && missed && !override.trim()) {
+      setError("Reason for releasing despite the miss: say why the board may go to the field as it is.");
+      return;
+    }
     setBusy(decision);
     setError(null);
     try {
       await fetchJson(`/api/v1/revisions/${revisionId}/decision`, {
         method: "POST",
-        body: JSON.stringify({ decision, note }),
+        body: JSON.stringify(
+          decision === "release" && missed ? { decision, note, override } : { decision, note },
+        ),
       });
       router.refresh();
     } catch (err) {
@@ -50,6 +66,21 @@ export function DecisionForm({ revisionId, number }: { revisionId: number; numbe
           onChange={(e) => setNote(e.target.value)}
         />
       </div>
+      {missed && (
+        <div className="rounded border-2 border-hazard p-2" data-testid="budget-miss">
+          <p className="text-sm font-semibold text-hazard">Budget missed: {missed}.</p>
+          <label htmlFor="decision-override" className="field-label">
+            Reason for releasing despite the miss (recorded, and sent to the engineer and the technicians)
+          </label>
+          <textarea
+            id="decision-override"
+            className="input min-h-16"
+            value={override}
+            maxLength={2000}
+            onChange={(e) => setOverride(e.target.value)}
+          />
+        </div>
+      )}
       {error && (
         <p role="alert" className="field-error">
           {error}
@@ -62,7 +93,11 @@ export function DecisionForm({ revisionId, number }: { revisionId: number; numbe
           disabled={busy !== null}
           onClick={() => decide("release")}
         >
-          {busy === "release" ? "Releasing…" : `Release r${number} for the field`}
+          {busy === "release"
+            ? "Releasing…"
+            : missed
+              ? `Release r${number} despite the miss`
+              : `Release r${number} for the field`}
         </button>
         <button type="button" className="btn" disabled={busy !== null} onClick={() => decide("return")}>
           {busy === "return" ? "Saving…" : `Return r${number} for rework`}

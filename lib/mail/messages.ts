@@ -7,6 +7,11 @@ import { DECISION_WORDS, type DecisionWord } from "@/lib/review/words";
 type RevisionInfo = { id: number; number: number };
 type RetrofitInfo = { id: number; name: string; site: string; assetTag: string };
 type Person = { name: string; email: string };
+/** A release despite a missed budget: the checker's reason and what misses. */
+type Override = { reason: string; missed: string } | null | undefined;
+
+const overrideLines = (o: Override) =>
+  o ? `\nReleased despite a missed budget: ${o.missed}.\nReason given by the checker: ${o.reason}\n` : "";
 
 const base = () => env().NEXTAUTH_URL.replace(/\/$/, "");
 const label = (rf: RetrofitInfo, rev: RevisionInfo) => `${rf.name} (${rf.assetTag}) r${rev.number}`;
@@ -35,6 +40,7 @@ export function decisionMail(o: {
   reviewer: Person;
   decision: DecisionWord;
   note: string;
+  override?: Override;
 }): OutgoingMail {
   const verdict = DECISION_WORDS[o.decision];
   const next =
@@ -48,6 +54,7 @@ export function decisionMail(o: {
     body: [
       `${o.reviewer.name} checked ${label(o.retrofit, o.revision)}: ${verdict}.`,
       o.note ? `\nNote: ${o.note}\n` : "",
+      overrideLines(o.override),
       next,
       `Check page: ${base()}/revisions/${o.revision.id}/review`,
     ].join("\n"),
@@ -62,6 +69,7 @@ export function releasedMail(o: {
   technicians: Person[];
   replaces: number[];
   note: string;
+  override?: Override;
 }): OutgoingMail[] {
   const subject = `Field revision now r${o.revision.number}: ${o.retrofit.name} (${o.retrofit.assetTag})`;
   const replaced =
@@ -72,6 +80,7 @@ export function releasedMail(o: {
     `${label(o.retrofit, o.revision)} at ${o.retrofit.site} is released for the field and is now the current field revision.`,
     replaced,
     o.note ? `\nNote from the checker: ${o.note}\n` : "",
+    overrideLines(o.override),
     `Bundle sha256: ${o.revision.bundleSha256}`,
     `Download and checklist: ${base()}/field/revisions/${o.revision.id}`,
   ].join("\n");

@@ -15,19 +15,41 @@ import { releasedMail, decisionMail } from "@/lib/mail/messages";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
+import { missedTargets, missedText } from "./budget-miss";
 import { decideRefusal, type Decision } from "./states";
 import { DECISION_STATE, REVIEW_ACTIONS, STATE_WORDS } from "./words";
 
-export async function decideRevision(user: AuthUser, revisionId: number, decision: Decision, note = "") {
+export async function decideRevision(
+  user: AuthUser,
+  revisionId: number,
+  decision: Decision,
+  note = "",
+  /** the reason for releasing despite a missed budget; refused without one when a target misses */
+  overrideReason = "",
+) {
   const result = await db.transaction(async (tx) => {
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = decideRefusal(user, revision);
     if (refusal) throw refusal;
     // Decisions on one retrofit queue up here, so superseding sees every release.
     await tx.select({ id: retrofits.id }).from(retrofits).where(eq(retrofits.id, retrofit.id)).for("update");
+    let override: { reason: string; text: string; targets: ReturnType<typeof missedTargets> } | null = null;
     if (decision === "release") {
       const stale = await newerCandidate(tx, retrofit.id, revision.number);
       if (stale) throw stale;
+      const [stored] = await tx
+        .select({ plans: revisions.plans })
+        .from(revisions)
+        .where(eq(revisions.id, revisionId));
+      const missed = missedTargets(stored?.plans);
+      if (missed.length && !overrideReason.trim())
+        throw new ApiError(
+          "unprocessable",
+          `r${revision.number} cannot be released as it is: ${missedText(missed)}. Return it, or release it with an override and the reason.`,
+          { override: "Give the reason for releasing despite the missed budget." },
+        );
+      if (missed.length)
+        override = { reason: overrideReason.trim(), text: missedText(missed), targets: missed };
     }
     const now = new Date();
     const [moved] = await tx
@@ -43,7 +65,14 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
       .returning({ id: revisions.id });
     if (!moved) throw await lostRace(revisionId, revision.number);
 
-    await tx.insert(reviews).values({ revisionId, reviewerId: user.id, decision, note });
+    await tx.insert(reviews).values({
+      revisionId,
+      reviewerId: user.id,
+      decision,
+      note,
+      overrideReason: override?.reason ?? null,
+      overrideTargets: override?.targets ?? null,
+    });
     let superseded: number[] = [];
     if (decision === "release")
       superseded = await supersede(tx, retrofit.id, revision.number, revisionId, now);
@@ -61,15 +90,23 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
           to: DECISION_STATE[decision],
           note,
           superseded,
+          ...(override ? { override: { reason: override.reason, targets: override.targets } } : {}),
         },
       },
       tx,
     );
     const reviewer = { name: user.name, email: user.email };
-    await enqueueMail([decisionMail({ revision, retrofit, author, reviewer, decision, note })], tx);
+    const overrideMail = override ? { reason: override.reason, missed: override.text } : null;
+    await enqueueMail(
+      [decisionMail({ revision, retrofit, author, reviewer, decision, note, override: overrideMail })],
+      tx,
+    );
     if (decision === "release") {
       const technicians = await techniciansOfSite(tx, retrofit.site);
-      await enqueueMail(releasedMail({ revision, retrofit, technicians, replaces: superseded, note }), tx);
+      await enqueueMail(
+        releasedMail({ revision, retrofit, technicians, replaces: superseded, note, override: overrideMail }),
+        tx,
+      );
     }
     return {
       id: revisionId,
@@ -77,6 +114,7 @@ export async function decideRevision(user: AuthUser, revisionId: number, decisio
       state: DECISION_STATE[decision],
       decidedAt: now,
       superseded,
+      override: override ? { reason: override.reason, targets: override.targets } : null,
     };
   });
   return result;

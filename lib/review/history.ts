@@ -27,6 +27,7 @@ export async function revisionReviews(revisionId: number) {
       id: reviews.id,
       decision: reviews.decision,
       note: reviews.note,
+      overrideReason: reviews.overrideReason,
       createdAt: reviews.createdAt,
       reviewer: users.name,
     })
@@ -43,4 +44,7 @@ export const ACTION_LABELS: Record<string, string> = {
   [REVIEW_ACTIONS.return]: "returned for rework",
   "revision.download": "downloaded the bundle",
   "comment.add": "commented",
+  "comment.reply": "answered a comment",
+  "comment.resolve": "marked a comment settled",
+  "comment.reopen": "opened a comment again",
 };

@@ -3,7 +3,8 @@
 // line and returns it for rework; the engineer changes one stage value,
 // generates r2 and sends it; the checker sees only the changed numbers and
 // lines and releases it for the field; the local mail catcher holds the
-// messages (please check, returned, released, field revision now r2). Timing values: NE555 datasheet (TI SLFS022) astable,
+// messages (please check, returned, released, field revision now r2). The
+// line comment left open on r1 is carried to r2 (marked, "from r1"). Timing values: NE555 datasheet (TI SLFS022) astable,
 // t_H = 0.693 (RA + RB) C, t_L = 0.693 RB C.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -84,7 +85,7 @@ describe("review loop in the browser", () => {
       .getByLabel(`Comment on ${path} line 5`, { exact: true })
       .fill("Say which datasheet table the prescaler comes from.");
     await rev.page.getByRole("button", { name: "Add comment" }).click();
-    const inline = mainC.getByTestId("inline-comment").filter({ hasText: "Say which datasheet table" });
+    const inline = mainC.getByTestId("comment-thread").filter({ hasText: "Say which datasheet table" });
     await inline.waitFor(SLOW);
     expect(await inline.isVisible()).toBe(true);
     await decide(
@@ -96,7 +97,7 @@ describe("review loop in the browser", () => {
     );
     await rev.page
       .getByTestId("comment")
-      .filter({ hasText: `${path}:5` })
+      .filter({ hasText: `${path} line 5` })
       .waitFor();
     expect((await stateOf(r1.id)).state).toBe("returned");
 
@@ -132,8 +133,11 @@ describe("review loop in the browser", () => {
     expect(await rev.page.locator("tr[data-kind='added']").count()).toBe(added);
     expect(await rev.page.locator("tr[data-kind='removed']").count()).toBe(removed);
     expect(await rev.page.locator("tr[data-kind='fold']").count()).toBeGreaterThan(0);
-    // The r1 comment belongs to r1 and does not show on r2's diff.
-    expect(await rev.page.getByTestId("inline-comment").count()).toBe(0);
+    // The r1 comment is still open, so r2 carries it, marked and named "from r1".
+    const carried = rev.page.getByTestId("comment-thread").filter({ hasText: "Say which datasheet table" });
+    expect(await carried.count()).toBe(1);
+    expect(await carried.getAttribute("data-mark")).toMatch(/^(same|changed)$/);
+    expect(await carried.textContent()).toContain("from r1");
 
     await decide(
       rev.page,

@@ -4,7 +4,15 @@
 // the completeness test fails when app/ has a handler or page not listed here.
 import type { Role } from "@/db/schema";
 import { makeToken } from "../../helpers/users";
-import { makeCapture, makeRetrofit, makeRevision, squareCsv, type Principal, type World } from "./world";
+import {
+  makeCapture,
+  makeComment,
+  makeRetrofit,
+  makeRevision,
+  squareCsv,
+  type Principal,
+  type World,
+} from "./world";
 
 export type Method = "GET" | "POST" | "PATCH" | "PUT" | "DELETE";
 
@@ -215,6 +223,16 @@ export const ROUTES: RouteEntry[] = [
       path: `/api/v1/revisions/${w.revision.awaiting_check}/comments`,
       json: { body: "Check the prescaler.", filePath: "README.md", line: 1 },
     }),
+  },
+  {
+    method: "PATCH",
+    pattern: "/api/v1/comments/[id]",
+    allowed: READ_ALL,
+    input: "json",
+    build: async (w) => {
+      const c = await makeComment(w.revision.awaiting_check, w.author.id);
+      return { path: `/api/v1/comments/${c.id}`, json: { resolved: true } };
+    },
   },
   {
     method: "POST",

@@ -94,6 +94,15 @@ export async function makeRevision(retrofitId: number, userId: number, state: Re
   return rev;
 }
 
+/** A thread on a revision, for the resolve route. */
+export async function makeComment(revisionId: number, authorId: number) {
+  const [c] = await db
+    .insert(comments)
+    .values({ revisionId, authorId, body: "Check the prescaler." })
+    .returning();
+  return c;
+}
+
 /** A 100 Hz square wave export, 20 % high, 10 periods at 10 µs per sample. */
 export function squareCsv(): string {
   const rows = ["Time (s),CH1 (V)"];

@@ -8,6 +8,7 @@ import { CheckForm } from "@/components/field/check-form";
 import { CopySha } from "@/components/field/copy-sha";
 import { VerifyBundle } from "@/components/field/verify-bundle";
 import { FieldHistory } from "@/components/field/field-history";
+import { ReleaseNote } from "@/components/field/release-note";
 import { capturesKey } from "@/components/field/keys";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -53,6 +54,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
         <VerifyBundle sha256={revision.bundleSha256} label={`bundle r${revision.number}`} />
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
+      <ReleaseNote revisionId={revision.id} />
       {FIELD.includes(user.role) && released && (
         <section className="panel">
           <CheckForm revisionId={revision.id} retrofitId={retrofit.id} devices={devices} signer={user.name} />

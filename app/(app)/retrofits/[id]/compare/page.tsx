@@ -4,12 +4,18 @@ import { eq } from "drizzle-orm";
 import { notFound } from "next/navigation";
 import { db } from "@/db/client";
 import { retrofits } from "@/db/schema";
-import { FileDiff, type HighlightedRow, type LineComment } from "@/components/diff/file-diff";
+import { FileDiff, type HighlightedRow } from "@/components/diff/file-diff";
+import { AnchorCommentForm } from "@/components/review/anchor-comment-form";
+import { CommentThread } from "@/components/review/comment-thread";
+import { revisionAnchors } from "@/lib/review/anchors";
+import { toThreadView } from "@/lib/review/thread-view";
 import { fileAnchor } from "@/lib/diff/anchor";
 import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
 import { BoardTable } from "@/components/diff/board-table";
 import { boardChanges } from "@/lib/diff/board";
+import { RegisterTable } from "@/components/diff/register-table";
+import { registerChanges } from "@/lib/diff/registers";
 import { RevisionPicker } from "@/components/diff/revision-picker";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -19,7 +25,7 @@ import { READ_ALL } from "@/lib/auth/roles";
 import { compareSnapshots } from "@/lib/diff";
 import { defaultPair, loadPair, revisionsOf } from "@/lib/diff/load";
 import type { DiffRow } from "@/lib/diff/types";
-import { COMMENT_ROLES, listComments } from "@/lib/review/comments";
+import { COMMENT_ROLES, listThreads } from "@/lib/review/comments";
 import { STATE_WORDS } from "@/lib/review/words";
 
 export const metadata: Metadata = { title: "Compare revisions" };
@@ -89,7 +95,8 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const { a, b } = pair;
   if (a.retrofitId !== retrofitId) notFound();
   const cmp = compareSnapshots(retrofitId, a, b);
-  const comments = await listComments(b.id);
+  const comments = (await listThreads(b.id)).map(toThreadView);
+  const boardThreads = comments.filter((c) => !c.filePath);
   const canComment = COMMENT_ROLES.includes(user.role);
 
   const changed = cmp.files.filter((f) => f.status !== "unchanged");
@@ -106,18 +113,10 @@ export default async function ComparePage({ params, searchParams }: Props) {
         r.kind === "removed"
           ? { ...r, html: oldHtml[r.oldLine - 1] }
           : r.kind === "fold"
-            ? r
+            ? { ...r, lines: newHtml.slice(r.newFrom - 1, r.newFrom - 1 + r.count) }
             : { ...r, html: newHtml[r.newLine - 1] },
       );
-      const notes: LineComment[] = comments
-        .filter((c) => c.filePath === f.path)
-        .map((c) => ({
-          id: c.id,
-          body: c.body,
-          line: c.line,
-          author: c.author,
-          createdAt: c.createdAt.toISOString(),
-        }));
+      const notes = comments.filter((c) => c.filePath === f.path);
       return { ...f, rows, notes };
     }),
   );
@@ -157,6 +156,28 @@ export default async function ComparePage({ params, searchParams }: Props) {
           What the board does
         </h2>
         <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} />
+      </section>
+
+      <section aria-labelledby="registers-h">
+        <h2 id="registers-h" className="mb-2 text-lg font-semibold">
+          Registers the firmware writes
+        </h2>
+        <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} />
+      </section>
+
+      <section aria-labelledby="board-comments-h" className="space-y-2">
+        <h2 id="board-comments-h" className="text-lg font-semibold">
+          Comments on timing and registers ({boardThreads.length})
+        </h2>
+        {boardThreads.length === 0 && (
+          <p className="text-sm text-ink-soft">
+            None yet. Pick a quantity or register below to comment on it.
+          </p>
+        )}
+        {boardThreads.map((t) => (
+          <CommentThread key={t.id} thread={t} revisionId={b.id} canComment={canComment} />
+        ))}
+        {canComment && <AnchorCommentForm revisionId={b.id} anchors={revisionAnchors(b)} />}
       </section>
 
       <section aria-labelledby="numbers-h">

@@ -10,8 +10,14 @@ import { NotAllowed } from "@/components/ui/not-allowed";
 import { ApiError } from "@/lib/api/errors";
 import { pageUser } from "@/lib/auth/page";
 import { READ_ALL } from "@/lib/auth/roles";
-import { COMMENT_ROLES, listComments } from "@/lib/review/comments";
+import { CommentThread } from "@/components/review/comment-thread";
+import { COMMENT_ROLES, listThreads } from "@/lib/review/comments";
+import { toThreadView } from "@/lib/review/thread-view";
 import { ACTION_LABELS, revisionHistory } from "@/lib/review/history";
+import { missedTargets, missedText } from "@/lib/review/budget-miss";
+import { eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { revisions } from "@/db/schema";
 import { loadRevisionForReview } from "@/lib/review/load";
 import { decideRefusal, submitRefusal } from "@/lib/review/states";
 
@@ -32,7 +38,12 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
     throw e;
   }
   const { revision, retrofit, author } = loaded;
-  const [comments, history] = await Promise.all([listComments(revision.id), revisionHistory(revision.id)]);
+  const [comments, history, [stored]] = await Promise.all([
+    listThreads(revision.id),
+    revisionHistory(revision.id),
+    db.select({ plans: revisions.plans }).from(revisions).where(eq(revisions.id, revision.id)),
+  ]);
+  const missed = missedText(missedTargets(stored?.plans));
   const mayDecide = decideRefusal(user, revision) === null;
   const decideWhy = decideRefusal(user, revision)?.message;
   const maySubmit = submitRefusal(user, revision) === null;
@@ -75,26 +86,18 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
             </h2>
             {comments.length === 0 && (
               <p className="text-sm text-ink-soft">
-                No comments yet. Comment on a line from the compare page, or on the whole revision below.
+                No comments yet. Comment on a line, a quantity or a register from the compare page, or on the
+                whole revision below.
               </p>
             )}
             <ul className="space-y-2">
               {comments.map((c) => (
-                <li key={c.id} className="panel py-2" data-testid="comment">
-                  <p className="text-xs text-ink-muted">
-                    {c.author} · {when(c.createdAt)}
-                    {c.filePath && (
-                      <>
-                        {" "}
-                        ·{" "}
-                        <span className="num">
-                          {c.filePath}
-                          {c.line ? `:${c.line}` : ""}
-                        </span>
-                      </>
-                    )}
-                  </p>
-                  <p className="whitespace-pre-wrap text-sm">{c.body}</p>
+                <li key={c.id} data-testid="comment">
+                  <CommentThread
+                    thread={toThreadView(c)}
+                    revisionId={revision.id}
+                    canComment={COMMENT_ROLES.includes(user.role)}
+                  />
                 </li>
               ))}
             </ul>
@@ -108,7 +111,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
               Decision
             </h2>
             {maySubmit && <SubmitForReview revisionId={revision.id} number={revision.number} />}
-            {mayDecide && <DecisionForm revisionId={revision.id} number={revision.number} />}
+            {mayDecide && <DecisionForm revisionId={revision.id} number={revision.number} missed={missed} />}
             {!maySubmit && !mayDecide && <p className="text-sm text-ink-soft">{decideWhy}</p>}
             {revision.state === "returned" && (
               <p className="text-sm">
@@ -123,13 +126,14 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
             </h2>
             <ol className="space-y-1 text-sm">
               {history.map((h) => {
-                const note = (h.details as { note?: string }).note;
+                const { note, override } = h.details as { note?: string; override?: { reason?: string } };
                 return (
                   <li key={h.id}>
                     <span className="num text-xs text-ink-muted">{when(h.createdAt)}</span>{" "}
                     <span className="font-medium">{h.actor ?? "system"}</span>{" "}
                     {ACTION_LABELS[h.action] ?? h.action}
                     {note ? `: “${note}”` : ""}
+                    {override?.reason ? ` · released despite a missed budget: “${override.reason}”` : ""}
                   </li>
                 );
               })}

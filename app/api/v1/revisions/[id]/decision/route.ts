@@ -17,10 +17,13 @@ const body = z
       return d;
     }),
     note: z.string().trim().max(4000).optional(),
+    /** reason for releasing despite a target whose budget misses (required then) */
+    override: z.string().trim().max(2000, "override: keep the reason under 2000 characters.").optional(),
   })
   .strict();
 
-// POST /api/v1/revisions/:id/decision { decision: "release" | "return", note? }:
+// POST /api/v1/revisions/:id/decision { decision: "release" | "return", note?, override? }:
+// a release of a revision with a target whose budget misses needs `override` (the reason), else 422.
 // awaiting_check -> released | returned (reviewers, admins; never the revision's
 // author). 409 when the revision is no longer awaiting check, e.g. another
 // reviewer decided first, or when a newer revision could be released instead.
@@ -28,5 +31,7 @@ export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Revision");
   const input = body.parse(await readJson(req));
   const user = await requireUser({ roles: REVIEW, req });
-  return Response.json({ revision: await decideRevision(user, id, input.decision, input.note ?? "") });
+  return Response.json({
+    revision: await decideRevision(user, id, input.decision, input.note ?? "", input.override ?? ""),
+  });
 });
