@@ -77,6 +77,11 @@ describe("histogramStateLevels (IEEE 181-2011 5.2.1.1)", () => {
     expect(low.low).toBe(2.5);
   });
 
+  it("a trace that ends in its low state still finds its maximum and high level", () => {
+    const s = histogramStateLevels(trace([0, 50], [5, 300], [-2, 1], [0, 300]));
+    expect([s.min, s.max, s.low, s.high]).toEqual([-2, 5, 0, 5]);
+  });
+
   it("a flat trace has no two states: both levels are its one value", () => {
     const s = histogramStateLevels(trace([3.3, 100]));
     expect(s).toEqual({ low: 3.3, high: 3.3, min: 3.3, max: 3.3, bins: 16 });
