@@ -29,6 +29,9 @@ const config = {
   // shared machine: 2 cores for eight engineers
   concurrency: Number(process.env.MUTATE_CONCURRENCY ?? 2),
   timeoutMS: 20_000,
+  // the first full run of the judging tests on a busy shared machine takes
+  // longer than Stryker's default 5 minutes
+  dryRunTimeoutMinutes: 30,
   incremental: true,
   incrementalFile: `reports/mutation/${name}.incremental.json`,
   reporters: ["clear-text", "json", "progress"],

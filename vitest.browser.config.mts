@@ -15,5 +15,9 @@ export default defineConfig({
     testTimeout: 180_000,
     hookTimeout: 180_000,
     fileParallelism: false,
+    // expect.poll re-reads the page until the assertion holds (no fixed
+    // sleeps, no read straight after an action); pages on a shared 2-core
+    // machine can take seconds, so wait up to 30 s.
+    expect: { poll: { timeout: 30_000, interval: 100 } },
   },
 });

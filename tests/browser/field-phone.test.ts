@@ -47,16 +47,16 @@ describe("field work at phone width", () => {
     const result = verify.getByTestId("verify-result");
     await result.getByText(/Matches/).waitFor({ timeout: 30_000 });
     // The digest shown is the one OpenSSL (node:crypto) computes for the same bytes.
-    expect(await result.textContent()).toContain(sha);
+    await expect.poll(() => result.textContent()).toContain(sha);
 
     // Planted fault: one byte of the zip changed in transit must not pass.
     const tampered = Buffer.from(zip);
     tampered[tampered.length - 1] ^= 0x01;
     await input.setInputFiles({ name: "bundle.zip", mimeType: "application/zip", buffer: tampered });
     await result.getByText(/Does not match/).waitFor({ timeout: 30_000 });
-    expect(await result.textContent()).toContain("Do not flash it");
+    await expect.poll(() => result.textContent()).toContain("Do not flash it");
 
-    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await expect.poll(() => sidewaysOverflow(page)).toBeLessThanOrEqual(0);
 
     // A failing check (10.4 ms against the nominal 10 ms): every line's verdict
     // is on screen at 390 px, not behind a sideways scroll.
@@ -66,17 +66,17 @@ describe("field work at phone width", () => {
     const verdict = page.getByTestId("check-result");
     await verdict.getByText("Check failed").waitFor({ timeout: 30_000 });
     const cells = verdict.getByTestId("line-result");
-    expect(await cells.count()).toBeGreaterThan(0);
-    expect(await cells.allTextContents()).toContain("Fail");
+    await expect.poll(() => cells.count()).toBeGreaterThan(0);
+    await expect.poll(() => cells.allTextContents()).toContain("Fail");
     for (const cell of await cells.all()) {
       const b = await cell.boundingBox();
       expect(b!.x + b!.width).toBeLessThanOrEqual(390);
     }
-    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await expect.poll(() => sidewaysOverflow(page)).toBeLessThanOrEqual(0);
 
     await page.goto("/field");
     await page.getByTestId(`asset-${retrofit.assetTag}`).waitFor({ timeout: 60_000 });
-    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await expect.poll(() => sidewaysOverflow(page)).toBeLessThanOrEqual(0);
     await context.close();
   });
 
@@ -101,6 +101,7 @@ describe("field work at phone width", () => {
     const cards = page.getByTestId("capture-cards");
     await cards.waitFor({ timeout: 60_000 });
     const card = cards.locator("li").filter({ hasText: `#${id} ` });
+    await card.waitFor();
     const text = (await card.textContent()) ?? "";
     expect(text).toContain(retrofit.assetTag);
     expect(text).toContain("10 ms");
@@ -108,11 +109,11 @@ describe("field work at phone width", () => {
     expect(text).toMatch(/\d{4}-\d\d-\d\d \d\d:\d\d UTC/);
     const box = await card.boundingBox();
     expect(box!.x + box!.width).toBeLessThanOrEqual(390);
-    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await expect.poll(() => sidewaysOverflow(page)).toBeLessThanOrEqual(0);
 
     await page.goto(`/captures/${id}`);
     await page.getByText(/sha256 [0-9a-f]{64}/).waitFor({ timeout: 60_000 });
-    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await expect.poll(() => sidewaysOverflow(page)).toBeLessThanOrEqual(0);
     await context.close();
   });
 });

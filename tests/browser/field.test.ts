@@ -39,7 +39,7 @@ describe("field work in the browser", () => {
     // The card fits the 390 px wide screen.
     const box = await card.boundingBox();
     expect(box!.x + box!.width).toBeLessThanOrEqual(390);
-    expect(await card.getByTestId("bundle-sha").textContent()).toContain(stored.sha.slice(0, 12));
+    await expect.poll(() => card.getByTestId("bundle-sha").textContent()).toContain(stored.sha.slice(0, 12));
 
     const [download] = await Promise.all([
       page.waitForEvent("download", { timeout: 60_000 }),
@@ -61,8 +61,10 @@ describe("field work in the browser", () => {
     await page.getByRole("button", { name: "Upload and measure" }).click();
     const result = page.getByTestId("capture-result");
     await result.waitFor({ timeout: 60_000 });
-    expect(await result.getByText("tp3.csv").isVisible()).toBe(true);
-    expect(await result.getByTestId("measurement").getByText("10 ms").first().isVisible()).toBe(true);
+    await expect.poll(() => result.getByText("tp3.csv").isVisible()).toBe(true);
+    await expect
+      .poll(() => result.getByTestId("measurement").getByText("10 ms").first().isVisible())
+      .toBe(true);
     await result.locator("canvas").first().waitFor({ timeout: 30_000 });
 
     await page.getByLabel("Measured period").fill("10 ms");
@@ -86,10 +88,14 @@ describe("field work in the browser", () => {
     await eng.page.goto(`/field/retrofits/${retrofit.id}`);
     const checks = eng.page.getByTestId("field-check");
     await checks.nth(1).waitFor({ timeout: 60_000 });
-    expect(await checks.count()).toBe(2);
-    expect(await eng.page.locator('[data-testid="field-check"][data-passed="true"]').count()).toBe(1);
-    expect(await eng.page.locator('[data-testid="field-check"][data-passed="false"]').count()).toBe(1);
-    expect(await checks.first().getByText("Slow after warm-up").isVisible()).toBe(true);
+    await expect.poll(() => checks.count()).toBe(2);
+    await expect
+      .poll(() => eng.page.locator('[data-testid="field-check"][data-passed="true"]').count())
+      .toBe(1);
+    await expect
+      .poll(() => eng.page.locator('[data-testid="field-check"][data-passed="false"]').count())
+      .toBe(1);
+    await expect.poll(() => checks.first().getByText("Slow after warm-up").isVisible()).toBe(true);
     await eng.context.close();
   });
 });

@@ -26,7 +26,7 @@ describe("print stylesheet and favicon", () => {
     const nav = page.getByRole("navigation", { name: "Main" });
     await nav.waitFor({ timeout: 60_000 });
     const button = page.getByRole("button", { name: "Record check" });
-    expect(await button.isVisible()).toBe(true);
+    await expect.poll(() => button.isVisible()).toBe(true);
 
     // Code views show |=, != and -> as typed: ligatures off (CSS Fonts Level 4, font-variant-ligatures).
     const lig = await page
@@ -36,12 +36,14 @@ describe("print stylesheet and favicon", () => {
     expect(lig).toBe("none");
 
     await page.emulateMedia({ media: "print" });
-    expect(await nav.isVisible()).toBe(false);
-    expect(await button.isVisible()).toBe(false);
-    expect(await page.getByRole("heading", { level: 1 }).textContent()).toContain(retrofit.assetTag);
-    expect(await page.getByRole("heading", { level: 1 }).isVisible()).toBe(true);
+    await expect.poll(() => nav.isVisible()).toBe(false);
+    await expect.poll(() => button.isVisible()).toBe(false);
+    await expect
+      .poll(() => page.getByRole("heading", { level: 1 }).textContent())
+      .toContain(retrofit.assetTag);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).isVisible()).toBe(true);
     await page.emulateMedia({ media: "screen" });
-    expect(await nav.isVisible()).toBe(true);
+    await expect.poll(() => nav.isVisible()).toBe(true);
 
     const href = await page.locator('head link[rel="icon"]').first().getAttribute("href");
     expect(href).toMatch(/icon/);

@@ -76,9 +76,9 @@ describe("review loop in the browser", () => {
     await mainC.waitFor(SLOW);
     const path = (await mainC.getAttribute("data-file"))!;
     // Files start closed (a six-device revision stays short); the index opens the one it jumps to.
-    expect(await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).isVisible()).toBe(
-      false,
-    );
+    await expect
+      .poll(() => rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).isVisible())
+      .toBe(false);
     await rev.page.getByRole("navigation", { name: "File index" }).getByRole("link", { name: path }).click();
     await rev.page.getByRole("button", { name: `Comment on line 5 of ${path}` }).click();
     await rev.page
@@ -87,7 +87,7 @@ describe("review loop in the browser", () => {
     await rev.page.getByRole("button", { name: "Add comment" }).click();
     const inline = mainC.getByTestId("comment-thread").filter({ hasText: "Say which datasheet table" });
     await inline.waitFor(SLOW);
-    expect(await inline.isVisible()).toBe(true);
+    await expect.poll(() => inline.isVisible()).toBe(true);
     await decide(
       rev.page,
       r1.id,
@@ -112,14 +112,14 @@ describe("review loop in the browser", () => {
     const numbers = rev.page.getByRole("table", { name: "Numbers that changed" });
     await numbers.waitFor(SLOW);
     const rb = numbers.locator("tr[data-key='stage.rb']");
-    expect(await rb.textContent()).toContain("10 kΩ");
-    expect(await rb.textContent()).toContain("4.7 kΩ");
+    await expect.poll(() => rb.textContent()).toContain("10 kΩ");
+    await expect.poll(() => rb.textContent()).toContain("4.7 kΩ");
     // NE555: t_H = 0.693 (1 kΩ + 4.7 kΩ) 1 µF = 3.950 ms after the change (0.693 ≈ ln 2; 0.1 % allowed).
     const highText = (await numbers.locator("tr[data-key='analysis.highS'] td").nth(2).textContent()) ?? "";
     const highMs = Number(/([\d.]+) ms/.exec(highText)?.[1]);
     expect(Math.abs(highMs - 0.693 * 5.7e3 * 1e-6 * 1e3) / 3.95).toBeLessThan(1e-3);
     for (const same of ["stage.ra", "stage.c", "stage.supplyV", "target1.device", "target1.clockHz"]) {
-      expect(await numbers.locator(`tr[data-key='${same}']`).count()).toBe(0);
+      await expect.poll(() => numbers.locator(`tr[data-key='${same}']`).count()).toBe(0);
     }
     // Every shown code line is a change or within 3 lines of one; the rest is folded.
     const api = await rev.page.request.get(`/api/v1/diff?a=${r1.id}&b=${r2.id}`);
@@ -127,15 +127,15 @@ describe("review loop in the browser", () => {
       files: { path: string; status: string; added: number; removed: number }[];
     };
     const changedFiles = cmp.files.filter((f) => f.status !== "unchanged");
-    expect(await rev.page.locator("section[data-file]").count()).toBe(changedFiles.length);
+    await expect.poll(() => rev.page.locator("section[data-file]").count()).toBe(changedFiles.length);
     const added = changedFiles.reduce((n, f) => n + f.added, 0);
     const removed = changedFiles.reduce((n, f) => n + f.removed, 0);
-    expect(await rev.page.locator("tr[data-kind='added']").count()).toBe(added);
-    expect(await rev.page.locator("tr[data-kind='removed']").count()).toBe(removed);
-    expect(await rev.page.locator("tr[data-kind='fold']").count()).toBeGreaterThan(0);
+    await expect.poll(() => rev.page.locator("tr[data-kind='added']").count()).toBe(added);
+    await expect.poll(() => rev.page.locator("tr[data-kind='removed']").count()).toBe(removed);
+    await expect.poll(() => rev.page.locator("tr[data-kind='fold']").count()).toBeGreaterThan(0);
     // The r1 comment is still open, so r2 carries it, marked and named "from r1".
     const carried = rev.page.getByTestId("comment-thread").filter({ hasText: "Say which datasheet table" });
-    expect(await carried.count()).toBe(1);
+    await expect.poll(() => carried.count()).toBe(1);
     expect(await carried.getAttribute("data-mark")).toMatch(/^(same|changed)$/);
     expect(await carried.textContent()).toContain("from r1");
 

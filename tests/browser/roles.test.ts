@@ -32,18 +32,20 @@ describe("roles in the browser", () => {
       const { email, password } = DEMO[c.role];
       const { context, page } = await signInAs(browser, email, password);
       const nav = page.getByRole("navigation", { name: "Main" });
-      for (const label of c.nav) expect(await nav.getByRole("link", { name: label }).isVisible()).toBe(true);
-      for (const label of c.notNav) expect(await nav.getByRole("link", { name: label }).count()).toBe(0);
+      for (const label of c.nav)
+        await expect.poll(() => nav.getByRole("link", { name: label }).isVisible()).toBe(true);
+      for (const label of c.notNav)
+        await expect.poll(() => nav.getByRole("link", { name: label }).count()).toBe(0);
 
       await page.goto(c.may);
-      expect(await page.getByText("Not allowed").count()).toBe(0);
+      await expect.poll(() => page.getByText("Not allowed").count()).toBe(0);
 
       if (c.mayNot) {
         const res = await page.goto(c.mayNot);
         expect(res?.status()).toBe(200); // a page, not a crash
         const panel = page.getByRole("alert").getByText("Not allowed");
         await panel.waitFor({ timeout: 10_000 });
-        expect(await panel.isVisible()).toBe(true);
+        await expect.poll(() => panel.isVisible()).toBe(true);
       }
 
       await page.getByRole("button", { name: "Sign out" }).click();

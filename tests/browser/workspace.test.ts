@@ -52,7 +52,7 @@ describe("retrofit workspace in the browser", () => {
     await page.goto("/retrofits/new");
     await page.getByRole("button", { name: "Create retrofit" }).click();
     await page.getByText("Name is required.").waitFor();
-    expect(await page.getByText("Asset tag is required.").isVisible()).toBe(true);
+    await expect.poll(() => page.getByText("Asset tag is required.").isVisible()).toBe(true);
     expect(await db.select().from(retrofits).where(eq(retrofits.createdBy, eng.id))).toHaveLength(0);
 
     await page.getByLabel("Name").fill("Kiln igniter firing stage");
@@ -70,7 +70,7 @@ describe("retrofit workspace in the browser", () => {
     await ws.field("Intrinsic standoff ratio η (ratio)").fill("0.65");
     const first = expectedPeriod({ supplyV: 20, timingR: 4700, timingC: 100e-9, eta: 0.65 });
     await ws.waitForPeriod(first);
-    expect(await page.getByTestId("analysis-oscillates").textContent()).toBe("yes");
+    await expect.poll(() => page.getByTestId("analysis-oscillates").textContent()).toBe("yes");
 
     // Ten times the resistor: the live analysis follows without a save.
     await ws.field("Timing resistor (Ω)").fill("47k");
@@ -90,7 +90,7 @@ describe("retrofit workspace in the browser", () => {
     await ws.target(2).getByLabel("Clock source").selectOption("hsi16");
     const plans = page.getByTestId("plans-table");
     await plans.getByText("STM32G031").waitFor();
-    expect(await plans.getByText("ATmega328P").isVisible()).toBe(true);
+    await expect.poll(() => plans.getByText("ATmega328P").isVisible()).toBe(true);
 
     await page.getByRole("button", { name: "Generate revision r1" }).click();
     const done = page.getByRole("status").getByRole("link", { name: "r1" });
@@ -115,6 +115,7 @@ describe("retrofit workspace in the browser", () => {
 
     // The revision page shows the same sha256 as the stored bundle.
     await page.goto(href);
+    await page.getByTestId("bundle-sha256").waitFor();
     const sha = (await page.getByTestId("bundle-sha256").textContent())?.trim();
     expect(sha).toMatch(/^[0-9a-f]{64}$/);
     await context.close();
@@ -125,8 +126,8 @@ describe("retrofit workspace in the browser", () => {
     expect(res?.status()).toBe(200);
     const panel = t.page.getByRole("alert").getByText("Not allowed");
     await panel.waitFor({ timeout: 60_000 });
-    expect(await panel.isVisible()).toBe(true);
-    expect(await t.page.getByTestId("bundle-sha256").count()).toBe(0);
+    await expect.poll(() => panel.isVisible()).toBe(true);
+    await expect.poll(() => t.page.getByTestId("bundle-sha256").count()).toBe(0);
     await t.context.close();
   });
 
@@ -141,6 +142,7 @@ describe("retrofit workspace in the browser", () => {
 
     await page.getByLabel("Token name").fill("bundle fetch");
     await page.getByRole("button", { name: "Make token" }).click();
+    await page.getByTestId("new-token").waitFor();
     const secret = ((await page.getByTestId("new-token").textContent()) ?? "").trim();
     expect(secret).toMatch(/^cgt_/);
     const res = await fetch(`${BASE_URL}/api/v1/tokens`, { headers: { authorization: `Bearer ${secret}` } });
@@ -154,7 +156,7 @@ describe("retrofit workspace in the browser", () => {
     });
     expect(after.status).toBe(401);
     await page.reload();
-    expect(await page.getByTestId("new-token").count()).toBe(0); // shown once only
+    await expect.poll(() => page.getByTestId("new-token").count()).toBe(0); // shown once only
     await context.close();
   });
 });

@@ -1,5 +1,7 @@
 // Reads what the local mail catcher that scripts/test.sh runs has received.
-export const MAIL_URL = process.env.MAIL_HTTP_URL ?? "http://127.0.0.1:2580";
+import { mailHttpUrl } from "./ports";
+
+export const MAIL_URL = mailHttpUrl();
 
 export type CaughtMail = { id: string; from: string; to: string[]; subject: string; text: string };
 

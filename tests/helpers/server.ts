@@ -1,7 +1,9 @@
 // Talks to the production server that scripts/test.sh started (TEST_BASE_URL).
 // Sign-in goes through next-auth's own endpoints, exactly as a browser does.
 
-export const BASE_URL = process.env.TEST_BASE_URL ?? "http://127.0.0.1:3100";
+import { testBaseUrl } from "./ports";
+
+export const BASE_URL = testBaseUrl();
 
 export class Session {
   private cookies = new Map<string, string>();

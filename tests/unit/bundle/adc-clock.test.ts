@@ -2,9 +2,9 @@ import { describe, expect, it } from "vitest";
 import { adcClock } from "@/lib/bundle/adc-clock";
 
 describe("ADC clock dividers stay inside each document's range", () => {
-  it("AVR: 16 MHz /128 = 125 kHz, 1 MHz /8 = 125 kHz (ATmega328P DS40002061 ADC prescaling, 50..200 kHz)", () => {
+  it("AVR: ATmega328P 16 MHz /128 = 125 kHz, ATtiny85 1 MHz /8 = 125 kHz (both datasheets' ADC prescaling, 50..200 kHz)", () => {
     expect(adcClock("atmega328p", 16e6)).toMatchObject({ divider: 128, bits: 7, adcClockHz: 125e3 });
-    expect(adcClock("attiny85", 1e6)).toMatchObject({ divider: 8, bits: 3 });
+    expect(adcClock("attiny85", 1e6)).toMatchObject({ divider: 8, bits: 3, adcClockHz: 125e3 });
     expect(() => adcClock("atmega328p", 32768)).toThrow(/clockHz/);
   });
   it("PIC12F1840: 32 MHz -> Fosc/32 (ADCS 010), TAD 1.0 us; 4 MHz -> Fosc/4 (100), TAD 1.0 us (TAD table, DS41419D Table 16-1)", () => {

@@ -128,6 +128,16 @@ describe("register values from the datasheet bit positions", () => {
     expect(isr.registers.TIMSK).toBe(0x40); // OCIE1A bit 6
     expect(isr.registers.TCCR1 & 0x80).toBe(0x80);
     expect(plan("attiny85", "TIMER0", "isr").registers.TIMSK).toBe(0x10); // OCIE0A bit 4
+    // compare toggle: CTC1 (clear at OCR1C) and COM1A1:0 = 01 (toggle OC1A), the bit 4 the title names
+    const toggle = planTarget({
+      device: "attiny85",
+      timer: "TIMER1",
+      mode: "toggle",
+      clockHz: 8e6,
+      periodS: 2e-3,
+      highS: 1e-3,
+    });
+    expect(toggle.registers.TCCR1).toBe(0x80 | 0x10 | 6);
   });
 
   it("STM32 toggle: OC1M = 011, period 2(PSC+1)(ARR+1)/f (RM0444 output compare toggle)", () => {

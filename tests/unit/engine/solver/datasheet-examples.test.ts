@@ -5,9 +5,10 @@ const near = (a: number, b: number, rel = 1e-12) =>
   expect(Math.abs(a - b)).toBeLessThanOrEqual(rel * Math.abs(b));
 
 describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
-  it("prescaler 64, OCR1A = 249 at 16 MHz is a 1 kHz compare rate", () => {
-    // 16 MHz / (64 * (1 + 249)) = 1000 Hz: each compare match (CTC mode 4) is 1 ms apart, so the
-    // OC1A toggle output has f = f_clk / (2 N (1 + OCR1A)) = 500 Hz (datasheet CTC frequency formula).
+  it("a 1 kHz compare rate at 16 MHz: prescaler 1, OCR1A = 15999 (not 64 x 250: most counts wins)", () => {
+    // CTC (mode 4) toggle output: f_OC1A = f_clk / (2 N (1 + OCR1A)) (datasheet CTC frequency
+    // formula) = 500 Hz for a compare every 1 ms. Both N = 1, OCR1A = 15999 and N = 64,
+    // OCR1A = 249 make it exactly; engine.md section 3 breaks the tie by most counts per period.
     const p = planTarget({
       device: "atmega328p",
       clockHz: 16e6,
@@ -41,12 +42,13 @@ describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
   });
 
   it("isr plan at 1 kHz interrupt rate uses the CTC compare with OCIE1A", () => {
-    // 1 s period, 0.5 s high: 1000 interrupts of 1 ms; datasheet example 16 MHz / 64 / 250 = 1 kHz.
+    // 2 ms period, 1 ms high: one compare interrupt every 1 ms (1 kHz), two per period;
+    // interval = N (1 + OCR1A) / f_clk (datasheet CTC mode: the counter clears at OCR1A).
     const p = planTarget({
       device: "atmega328p",
       clockHz: 16e6,
-      periodS: 1,
-      highS: 0.5,
+      periodS: 2e-3,
+      highS: 1e-3,
       mode: "isr",
       timer: "TIMER1",
     });
@@ -56,6 +58,8 @@ describe("ATmega328P Timer1 (ATmega328P datasheet DS40002061)", () => {
     expect(p.registers.TIMSK1).toBe(0x02); // OCIE1A is bit 1 of TIMSK1
     expect(p.registers.TCCR1B & 0x18).toBe(0x08); // WGM12 only: CTC mode 4
     near(p.interruptIntervalS!, (p.divider * (1 + p.registers.OCR1A)) / 16e6);
+    expect(p.interruptIntervalS).toBe(1e-3);
+    expect(p.softwareDivider).toBe(2);
     expect(p.interruptIntervalCycles! >= 500).toBe(true);
   });
 

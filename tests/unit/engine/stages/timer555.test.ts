@@ -26,7 +26,7 @@ describe("555 astable (TI SLFS022)", () => {
     }
   });
 
-  it("worked example: RA = 1 kΩ, RB = 10 kΩ, C = 10 nF -> 6.87 kHz, 52.4 % duty", () => {
+  it("RA = 1 kΩ, RB = 10 kΩ, C = 10 nF -> 6.87 kHz, 52.4 % duty (worked here from ln 2)", () => {
     // 1.44 / (21 kΩ * 10 nF) = 6857 Hz by the datasheet constant; exact ln 2 gives 6870 Hz.
     const a = analyzeStage({ kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 10e-9 });
     expect(a.frequencyHz).toBeCloseTo(1 / (Math.LN2 * 21e3 * 10e-9), 6);
