@@ -2,6 +2,7 @@
 // Nothing here reads the clock, a random source or object key order.
 import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } from "@/lib/engine";
 import { controlOnTarget } from "./adc-control";
+import { buildRefusal, TRIGGER_DEVICES } from "./buildable";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { avrTriggerView } from "./trigger-avr";
@@ -14,9 +15,6 @@ import { render } from "./render";
 import { cautionLines } from "./safety";
 import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
-
-/** Devices whose templates make triggered and zero-cross firmware. */
-const TRIGGER_DEVICES = new Set(["atmega328p", "attiny85"]);
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;
 
@@ -46,13 +44,11 @@ function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
         `targets.${index}`,
       );
     }
-    // Triggered and zero-cross firmware exists for the AVRs only (trigger-avr.ts);
-    // elsewhere such a plan must never be shipped as a free-running image.
-    const start = plan.start;
-    if (start !== undefined && start !== "free" && !TRIGGER_DEVICES.has(plan.device))
+    const refusal = buildRefusal(plan);
+    if (refusal)
       throw new EngineError(
         "invalid-request",
-        `target ${index + 1} (${request.device}): no firmware for triggered starts on ${DEVICES[plan.device]?.name ?? plan.device} yet (start "${start}"); plan it free-running or use an ATmega328P or ATtiny85.`,
+        `target ${index + 1} (${request.device}): ${refusal.message}`,
         `targets.${index}`,
       );
     return plan;
