@@ -5,6 +5,7 @@ import Link from "next/link";
 import type { FieldAsset, FieldBundle } from "@/lib/field/shapes";
 import { CopySha } from "./copy-sha";
 import { VerifyBundle } from "./verify-bundle";
+import { deviceName } from "@/components/retrofit/format";
 
 function bySite(assets: FieldAsset[]): [string, FieldAsset[]][] {
   const m = new Map<string, FieldAsset[]>();
@@ -32,7 +33,7 @@ function BundleRow({ b, asset }: { b: FieldBundle; asset: FieldAsset }) {
             superseded {b.supersededAt?.slice(0, 10)}
           </span>
         )}
-        <span className="text-sm text-ink-soft">{b.devices.join(", ")}</span>
+        <span className="text-sm text-ink-soft">{b.devices.map(deviceName).join(", ")}</span>
       </div>
       <CopySha sha256={b.sha256} />
       <VerifyBundle sha256={b.sha256} label={`bundle r${b.number}`} />

@@ -9,18 +9,36 @@ import { formatEng, parseEng } from "@/lib/engine";
 import type { CaptureView, FieldCheckView } from "@/lib/field/shapes";
 import { CheckLines } from "./check-lines";
 import { capturesKey, historyKey } from "./keys";
+import { defaultResolutionS } from "./reading-step";
+import { deviceName } from "@/components/retrofit/format";
 
 type Props = { revisionId: number; retrofitId: number; devices: string[]; signer: string };
-type Errors = Partial<Record<"measuredPeriodS" | "measuredHighS" | "signedOffBy" | "form", string>>;
+type Errors = Partial<
+  Record<"measuredPeriodS" | "measuredHighS" | "resolutionS" | "signedOffBy" | "form", string>
+>;
 
-function readTime(text: string): number | string | undefined {
+function readTime(text: string, allowZero = false): number | string | undefined {
   if (!text.trim()) return undefined;
   try {
     const v = parseEng(text, "s");
-    return v > 0 ? v : "Enter a time greater than zero.";
+    return v > 0 || (allowZero && v === 0) ? v : "Enter a time greater than zero.";
   } catch (e) {
     return (e as Error).message;
   }
+}
+
+/** What a field read, shown under it so a slip ("6m16" for 6.16 ms) is visible. */
+function Echo({ id, value }: { id: string; value: number | string | undefined }) {
+  if (typeof value !== "number") return null;
+  return (
+    <p id={id} className="mt-1 text-xs text-ink-muted" data-testid={id}>
+      read as {formatEng(value, "s", 6)}
+    </p>
+  );
+}
+
+function defaultFor(period: number | string | undefined): number | undefined {
+  return typeof period === "number" ? defaultResolutionS(period) : undefined;
 }
 
 export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
@@ -29,6 +47,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
   const [target, setTarget] = useState(0);
   const [period, setPeriod] = useState("");
   const [high, setHigh] = useState("");
+  const [resolution, setResolution] = useState("");
   const [captureId, setCaptureId] = useState("");
   const [notes, setNotes] = useState("");
   const [signedOffBy, setSignedOffBy] = useState(signer);
@@ -40,7 +59,9 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
     e.preventDefault();
     const p = readTime(period);
     const h = readTime(high);
+    const r = resolution.trim() ? readTime(resolution, true) : defaultFor(p);
     const next: Errors = {};
+    if (typeof r === "string") next.resolutionS = r;
     if (typeof p === "string") next.measuredPeriodS = p;
     if (typeof h === "string") next.measuredHighS = h;
     if (!captureId && p === undefined) next.measuredPeriodS = "Enter the measured period, or pick a capture.";
@@ -57,6 +78,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
         target,
         ...(typeof p === "number" ? { measuredPeriodS: p } : {}),
         ...(typeof h === "number" ? { measuredHighS: h } : {}),
+        ...(typeof r === "number" ? { resolutionS: r } : {}),
         ...(captureId ? { captureId: Number(captureId) } : {}),
         notes,
         signedOffBy: signedOffBy.trim(),
@@ -68,6 +90,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
       setResult(res.check);
       setPeriod("");
       setHigh("");
+      setResolution("");
       setCaptureId("");
       setNotes("");
       await mutate(historyKey(retrofitId));
@@ -80,6 +103,10 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
   }
 
   const captures = captureList?.captures ?? [];
+  const parsedPeriod = readTime(period);
+  const parsedHigh = readTime(high);
+  const parsedResolution = resolution.trim() ? readTime(resolution, true) : undefined;
+  const fallback = defaultFor(parsedPeriod);
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-3" aria-labelledby="check-title">
       <h2 id="check-title" className="text-lg font-semibold">
@@ -98,7 +125,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
           >
             {devices.map((d, i) => (
               <option key={i} value={i}>
-                {i + 1}: {d}
+                {i + 1}: {deviceName(d)}
               </option>
             ))}
           </select>
@@ -119,6 +146,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
             aria-invalid={!!errors.measuredPeriodS}
             aria-describedby={errors.measuredPeriodS ? "check-period-error" : undefined}
           />
+          <Echo id="check-period-echo" value={parsedPeriod} />
           {errors.measuredPeriodS && (
             <p id="check-period-error" className="field-error">
               {errors.measuredPeriodS}
@@ -139,12 +167,40 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
             aria-invalid={!!errors.measuredHighS}
             aria-describedby={errors.measuredHighS ? "check-high-error" : undefined}
           />
+          <Echo id="check-high-echo" value={parsedHigh} />
           {errors.measuredHighS && (
             <p id="check-high-error" className="field-error">
               {errors.measuredHighS}
             </p>
           )}
         </div>
+      </div>
+      <div>
+        <label className="field-label" htmlFor="check-resolution">
+          Instrument resolution
+        </label>
+        <input
+          id="check-resolution"
+          className="input num"
+          inputMode="decimal"
+          placeholder={typeof fallback === "number" ? `default ${formatEng(fallback, "s", 3)}` : "e.g. 10 us"}
+          value={resolution}
+          onChange={(e) => setResolution(e.target.value)}
+          aria-invalid={!!errors.resolutionS}
+          aria-describedby="check-resolution-help"
+        />
+        <p
+          id="check-resolution-help"
+          className="mt-1 text-xs text-ink-muted"
+          data-testid="check-resolution-echo"
+        >
+          {typeof parsedResolution === "number"
+            ? `read as ${formatEng(parsedResolution, "s", 3)}; added to each limit.`
+            : typeof fallback === "number"
+              ? `Blank: ${formatEng(fallback, "s", 3)}, one step in the third digit of the period; added to each limit.`
+              : "The smallest step you can read (scope cursor step, counter's last digit); added to each limit."}
+        </p>
+        {errors.resolutionS && <p className="field-error">{errors.resolutionS}</p>}
       </div>
       <div>
         <label className="field-label" htmlFor="check-capture">

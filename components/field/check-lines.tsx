@@ -1,4 +1,5 @@
-// The checklist lines of one field check: expected, limits, measured, verdict.
+// The checklist lines of one field check: expected, limits and where they come
+// from, measured, verdict (derived lines are information only).
 // Pass/fail is spelled out, not shown by colour alone, and comes right after
 // the line's name so it stays on screen at phone width; limits wrap instead.
 import { formatEng } from "@/lib/engine";
@@ -19,7 +20,6 @@ export function CheckLines({ lines }: { lines: CheckLine[] }) {
             <th scope="col">Result</th>
             <th scope="col">Measured</th>
             <th scope="col">Limits</th>
-            <th scope="col">Result</th>
           </tr>
         </thead>
         <tbody>
@@ -28,13 +28,28 @@ export function CheckLines({ lines }: { lines: CheckLine[] }) {
               <th scope="row" className="font-normal">
                 {l.label}
               </th>
-              <td className={`font-semibold ${l.pass ? "text-ok" : "text-hazard"}`} data-testid="line-result">
-                {l.pass ? "Pass" : "Fail"}
-              </td>
+              {l.derived ? (
+                // Derived from the two measured times: shown for reading, never a second failure.
+                <td className="text-ink-soft" data-testid="line-result">
+                  Information
+                </td>
+              ) : (
+                <td
+                  className={`font-semibold ${l.pass ? "text-ok" : "text-hazard"}`}
+                  data-testid="line-result"
+                >
+                  {l.pass ? "Pass" : "Fail"}
+                </td>
+              )}
               <td className="num">{fmt(l, l.measured)}</td>
               <td className="num text-ink-soft">
                 <span className="whitespace-nowrap">{fmt(l, l.min)} …</span>{" "}
                 <span className="whitespace-nowrap">{fmt(l, l.max)}</span>
+                {l.source && (
+                  <span className="block text-xs" data-testid="line-source">
+                    {l.derived ? l.source : `limit from ${l.source}`}
+                  </span>
+                )}
               </td>
             </tr>
           ))}

@@ -7,6 +7,7 @@ import { planTargets, snapshotOf, type TargetPlanRow } from "@/lib/revisions/pla
 import { stageSchema } from "@/lib/validation/stage";
 import { targetSchema } from "@/lib/validation/target";
 import type { WorkspaceForm } from "./form-values";
+import { plainMessage } from "@/lib/validation/plain-message";
 
 export type Live = {
   stage: Stage | null;
@@ -34,7 +35,7 @@ export function useLive(values: WorkspaceForm): Live {
       analysis = analyzeStage(parsed.data);
     } catch (e) {
       if (!isEngineError(e)) throw e;
-      return { stage: null, analysis: null, error: e.message, plans: [] };
+      return { stage: null, analysis: null, error: plainMessage(e.message, parsed.data.kind), plans: [] };
     }
     const plans: TargetPlanRow[] = planTargets(
       analysis,

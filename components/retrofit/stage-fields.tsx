@@ -2,7 +2,8 @@
 // Inputs of the stage for its kind: value in engineering notation and its
 // tolerance in percent, each with its own error line.
 import { useFormContext } from "react-hook-form";
-import { STAGE_FIELDS, STAGE_KINDS, type StageKind } from "@/lib/engine";
+import { STAGE_FIELDS, STAGE_KINDS, type EngUnit, type StageKind } from "@/lib/engine";
+import { defaultText, echoText } from "@/lib/validation/form-text";
 import { stageToForm } from "@/lib/validation/stage";
 import type { WorkspaceForm } from "./form-values";
 import { StageSyncFields } from "./stage-sync-fields";
@@ -17,6 +18,7 @@ export function StageFields() {
   const errors = (formState.errors.stage ?? {}) as Errors;
   const tolErrors = (errors.tolerances ?? {}) as Record<string, { message?: string }>;
   const fields = STAGE_FIELDS[kind] ?? [];
+  const values = watch("stage") as Record<string, unknown> | undefined;
 
   return (
     <fieldset className="space-y-3">
@@ -55,8 +57,10 @@ export function StageFields() {
               </label>
             );
           }
+          const unit = f.unit as EngUnit;
           const placeholder =
-            f.default !== undefined ? `default ${String(f.default)}` : f.defaultText ? f.defaultText : "";
+            typeof f.default === "number" ? defaultText(f.default, unit) : f.defaultText ? f.defaultText : "";
+          const echo = echoText(values?.[f.name], unit);
           return (
             <div key={f.name} className="grid grid-cols-[1fr_6rem] gap-2">
               <div>
@@ -70,9 +74,14 @@ export function StageFields() {
                   autoComplete="off"
                   placeholder={placeholder}
                   aria-invalid={Boolean(err)}
-                  aria-describedby={err ? `${id}-error` : undefined}
+                  aria-describedby={err ? `${id}-error` : echo ? `${id}-echo` : undefined}
                   {...register(`stage.${f.name}` as "stage.kind")}
                 />
+                {echo && !err && (
+                  <p id={`${id}-echo`} className="text-xs text-ink-muted" data-testid={`${id}-echo`}>
+                    read as {echo}
+                  </p>
+                )}
                 {err && (
                   <p id={`${id}-error`} className="field-error">
                     {err}

@@ -2,7 +2,8 @@
 // Target rows: device, clock source and frequency, mode, timer, required
 // tolerance, output polarity. Device choices come from the engine's catalogue.
 import { useFieldArray, useFormContext } from "react-hook-form";
-import { listDevices } from "@/lib/engine";
+import { formatEng, listDevices } from "@/lib/engine";
+import { echoText, formText } from "@/lib/validation/form-text";
 import { defaultTarget, deviceById } from "@/lib/validation/target";
 import type { WorkspaceForm } from "./form-values";
 import { TargetStartFields } from "./target-start-fields";
@@ -92,7 +93,7 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                   {...register(`targets.${i}.clockSource`, {
                     onChange: (e) => {
                       const c = device?.clocks.find((x) => x.id === e.target.value);
-                      if (c?.hz) setValue(`targets.${i}.clockHz`, String(c.hz), { shouldValidate: true });
+                      if (c?.hz) setValue(`targets.${i}.clockHz`, formText(c.hz), { shouldValidate: true });
                     },
                   })}
                 >
@@ -119,11 +120,18 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                   <>
                     <datalist id={`target-${i}-clockHz-steps`}>
                       {steps.map((hz) => (
-                        <option key={hz} value={String(hz)} />
+                        <option key={hz} value={formText(hz)} />
                       ))}
                     </datalist>
-                    <p className="text-xs text-ink-soft">This source makes only: {steps.join(", ")} Hz.</p>
+                    <p className="text-xs text-ink-soft">
+                      This source makes only: {steps.map((hz) => formatEng(hz, "Hz", 6)).join(", ")}.
+                    </p>
                   </>
+                )}
+                {!err.clockHz && echoText(watch(`targets.${i}.clockHz`), "Hz") && (
+                  <p className="text-xs text-ink-muted" data-testid={`target-${i}-clockHz-echo`}>
+                    read as {echoText(watch(`targets.${i}.clockHz`), "Hz")}
+                  </p>
                 )}
                 {msg("clockHz")}
               </div>

@@ -2,6 +2,7 @@
 // Nothing here reads the clock, a random source or object key order.
 import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } from "@/lib/engine";
 import { controlOnTarget } from "./adc-control";
+import { buildRefusal } from "./buildable";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
 import { avrTriggerView } from "./trigger-avr";
@@ -17,14 +18,13 @@ import { cautionLines } from "./safety";
 import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
 
-/** Devices whose templates make triggered and zero-cross firmware, with the view their template reads as `trigger`. */
+/** Devices whose templates make triggered and zero-cross firmware, with the view their template reads as `trigger` (the set itself is TRIGGER_DEVICES in buildable.ts, shared with the live plans). */
 const TRIGGER_VIEWS: Record<string, (plan: BundlePlan) => unknown> = {
   atmega328p: avrTriggerView,
   attiny85: avrTriggerView,
   rp2040: rp2040TriggerView,
   stm32g031: stm32g031TriggerView,
 };
-const TRIGGER_DEVICES = new Set(Object.keys(TRIGGER_VIEWS));
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;
 
@@ -54,13 +54,11 @@ function planAll(spec: BundleSpec, planner: Planner): BundlePlan[] {
         `targets.${index}`,
       );
     }
-    // Triggered and zero-cross firmware exists only where TRIGGER_VIEWS has a view;
-    // elsewhere such a plan must never be shipped as a free-running image.
-    const start = plan.start;
-    if (start !== undefined && start !== "free" && !TRIGGER_DEVICES.has(plan.device))
+    const refusal = buildRefusal(plan);
+    if (refusal)
       throw new EngineError(
         "invalid-request",
-        `target ${index + 1} (${request.device}): no firmware for triggered starts on ${DEVICES[plan.device]?.name ?? plan.device} yet (start "${start}"); plan it free-running or use one of: ${[...TRIGGER_DEVICES].map((d) => DEVICES[d]?.name ?? d).join(", ")}.`,
+        `target ${index + 1} (${request.device}): ${refusal.message}`,
         `targets.${index}`,
       );
     return plan;

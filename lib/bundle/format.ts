@@ -26,9 +26,12 @@ export function engAscii(value: number, unit: string, digits = 7): string {
   return eng(value, unit, digits).replace("µ", "u");
 }
 
+/** ppm to ±10 000 ppm, then percent, then a ratio to the target (as the pages print it). */
 export function ppm(value: number): string {
   if (!Number.isFinite(value)) return "— ppm";
   const rounded = Math.abs(value) < 0.0005 ? 0 : value;
+  if (Math.abs(rounded) >= 1e6) return `${Number((1 + rounded / 1e6).toPrecision(4))} × the target`;
+  if (Math.abs(rounded) >= 1e4) return `${rounded >= 0 ? "+" : ""}${(rounded / 1e4).toFixed(3)} %`;
   return `${rounded >= 0 ? "+" : ""}${rounded.toFixed(3)} ppm`;
 }
 

@@ -5,6 +5,7 @@
 // One timer count is the output's quantisation step (a frequency counter or
 // scope sees edges only on timer counts); jitter is what the plan reports
 // (interrupt latency, fractional-divider dither).
+import { eng } from "./format";
 import type { BundlePlan, StageAnalysis } from "./types";
 
 /** Crystal ±50 ppm when the plan does not state its clock accuracy (common practice, no source). */
@@ -64,20 +65,22 @@ export function checklistLimits(
   // good boards). The reading's resolution widens the band: a cursor reading
   // cannot be judged finer than it was read.
   const band = (value: number) => Math.max(required * value, boardBand(value)) + resolution;
+  // Each line names where its limit comes from: the engineer's required
+  // tolerance, the plan (the board's own spread) and the stated instrument.
   const why = (value: number) => {
     const parts = [
       required * value >= boardBand(value)
-        ? `required ±${trimPct(required)} % of the achieved value`
-        : "board spread: clock accuracy × value + jitter + one timer count",
+        ? `required tolerance ±${trimPct(required)} %`
+        : `plan: clock ±${trimNum(b.clockAccuracyPpm)} ppm + jitter + one timer count`,
     ];
-    if (resolution > 0) parts.push("instrument resolution");
+    if (resolution > 0) parts.push(`instrument resolution ${eng(resolution, "s", 3)}`);
     return parts.join(" + ");
   };
   const pMin = plan.periodS - band(plan.periodS);
   const pMax = plan.periodS + band(plan.periodS);
   const hMin = Math.max(0, plan.highS - band(plan.highS));
   const hMax = Math.min(pMax, plan.highS + band(plan.highS));
-  const fromTimes = "follows from the period and high-time limits";
+  const fromTimes = "derived from the measured period and high time (information, not judged on its own)";
   return [
     {
       id: "period",
@@ -124,6 +127,10 @@ export function checklistLimits(
 
 function trimPct(fraction: number): string {
   return String(Number((fraction * 100).toPrecision(6)));
+}
+
+function trimNum(x: number): string {
+  return String(Number(x.toPrecision(6)));
 }
 
 /** True when a measured value lies inside a limit (inclusive). */

@@ -5,5 +5,6 @@ export { CaptureError, isCaptureError, type CaptureErrorCode } from "./errors";
 export { MAX_CAPTURE_BYTES } from "./text-source";
 export { parseCapture } from "./parse-lines";
 export { measureCsv, measureTrace, MAX_EDGES } from "./measure";
+export { measureRamp, standoffRatio, type RampMeasurement } from "./ramp";
 export { decimateEnvelope, PLOT_POINTS } from "./decimate";
 export type * from "./types";

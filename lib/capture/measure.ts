@@ -8,6 +8,7 @@ import { parseCapture } from "./parse-lines";
 import { histogramStateLevels } from "./state-levels";
 import { summarize } from "./stats";
 import { findTransitions } from "./transitions";
+import { measureRamp, type RampMeasurement } from "./ramp";
 import type { CaptureMeasurement, CaptureOptions, CaptureTrace, CaptureWarning } from "./types";
 
 /** Edges returned for display; the stats use all of them. */
@@ -23,6 +24,9 @@ export function measureTrace(trace: CaptureTrace): CaptureMeasurement {
   if (n < 2) {
     throw new CaptureError("no-period", trace.firstDataLine, `only ${n} sample; a period needs many`);
   }
+  // A capacitor ramp (UJT emitter) has no two states: measure its cycles instead.
+  const ramp = measureRamp(t, v);
+  if (ramp) return rampResult(trace, ramp);
   const levels = histogramStateLevels(v);
   const amplitude = levels.high - levels.low;
   if (!(amplitude > 0)) {
@@ -90,6 +94,7 @@ export function measureTrace(trace: CaptureTrace): CaptureMeasurement {
   }
 
   return {
+    waveform: "pulse",
     samples: n,
     sampleIntervalS,
     startS: t[0],
@@ -124,4 +129,54 @@ export async function measureCsv(
   options: CaptureOptions = {},
 ): Promise<CaptureMeasurement> {
   return measureTrace(await parseCapture(source, options));
+}
+
+/**
+ * A ramp as a measurement (capture.md "Ramps"): levels are the mean release
+ * (valley) and trip (peak) voltages, periodS runs between successive trips,
+ * riseS is the charge time and fallS the discharge time. The stage's output
+ * pulse flows while the capacitor discharges, so highS is the discharge time.
+ */
+function rampResult(trace: CaptureTrace, r: RampMeasurement): CaptureMeasurement {
+  const { t, v } = trace;
+  const n = v.length;
+  const low = r.valleyV.mean;
+  const high = r.peakV.mean;
+  const amplitude = high - low;
+  const sampleIntervalS = (t[n - 1] - t[0]) / (n - 1);
+  const warnings: CaptureWarning[] = [...trace.warnings];
+  if (r.periodS.count < 2)
+    warnings.push({
+      code: "few-periods",
+      message: `only ${r.periodS.count} full period in the capture; spread needs at least 2`,
+    });
+  return {
+    waveform: "ramp",
+    peakV: r.peakV,
+    valleyV: r.valleyV,
+    samples: n,
+    sampleIntervalS,
+    startS: t[0],
+    durationS: t[n - 1] - t[0],
+    columns: trace.columns,
+    measuredColumn: trace.measuredColumn,
+    header: trace.header,
+    lowLevelV: low,
+    highLevelV: high,
+    amplitudeV: amplitude,
+    referenceV: { p10: low + 0.1 * amplitude, p50: low + 0.5 * amplitude, p90: low + 0.9 * amplitude },
+    periodS: r.periodS,
+    highS: r.dischargeS,
+    lowS: r.chargeS,
+    frequencyHz: 1 / r.periodS.mean,
+    duty: r.dischargeS.mean / r.periodS.mean,
+    riseS: r.chargeS.mean,
+    fallS: r.dischargeS.mean,
+    riseTimes: r.chargeS,
+    fallTimes: r.dischargeS,
+    edges: r.peakTimesS.slice(0, MAX_EDGES).map((tS) => ({ tS, kind: "fall" as const })),
+    edgesTotal: r.peakTimesS.length,
+    plot: decimateEnvelope(t, v),
+    warnings,
+  };
 }

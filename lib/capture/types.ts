@@ -70,6 +70,11 @@ export interface CaptureTrace {
 }
 
 export interface CaptureMeasurement {
+  /** "ramp" for a slow charge with a fast discharge (a UJT emitter), measured cycle by cycle; else "pulse" (IEEE 181 state levels). Absent on older stored measurements (pulse). */
+  waveform?: "pulse" | "ramp";
+  /** Ramp only: trip (peak) and release (valley) voltages over the cycles. */
+  peakV?: CaptureStats;
+  valleyV?: CaptureStats;
   samples: number;
   sampleIntervalS: number;
   startS: number;

@@ -2,7 +2,7 @@
 // tolerances, the old stage's period and high time, and per target the clock,
 // timer, divider, counts, achieved timing, errors, registers and pin. Each side
 // is flattened to key -> value first, so the comparison itself is one loop.
-import { formatEng, STAGE_FIELDS, type EngUnit } from "@/lib/engine";
+import { formatEng, formatPpm, formatRatio, STAGE_FIELDS, type EngUnit } from "@/lib/engine";
 import type { NumberChange, RevisionSnapshot } from "./types";
 
 type Value = number | string | boolean;
@@ -25,20 +25,33 @@ function stageUnit(kind: string, field: string): EngUnit {
   return unit && unit !== "bool" ? (unit as EngUnit) : "";
 }
 
+/** The label the form shows for a stage field ("Timing resistor"), not its key. */
+function stageLabel(kind: string, field: string): string {
+  const fields = (STAGE_FIELDS as Record<string, readonly { name: string; label: string }[]>)[kind] ?? [];
+  return fields.find((f) => f.name === field)?.label ?? field;
+}
+
 function flattenStage(flat: Flat, stage: Record<string, unknown>) {
   const kind = typeof stage.kind === "string" ? stage.kind : "";
   put(flat, "stage.kind", "Stage kind", kind, "", "plain");
   for (const [name, value] of Object.entries(stage)) {
     if (name === "kind" || name === "tolerances") continue;
-    put(flat, `stage.${name}`, `Stage ${name}`, value, stageUnit(kind, name));
+    put(flat, `stage.${name}`, `Old stage: ${stageLabel(kind, name)}`, value, stageUnit(kind, name));
   }
   for (const [name, tol] of Object.entries(obj(stage.tolerances))) {
     const text = Array.isArray(tol)
       ? tol.map((t) => `${Number((Number(t) * 100).toPrecision(4))}`).join(" / ")
       : tol;
     if (Array.isArray(tol))
-      put(flat, `stage.tolerance.${name}`, `Tolerance of ${name} (−/+ %)`, text, "", "plain");
-    else put(flat, `stage.tolerance.${name}`, `Tolerance of ${name}`, text, "%", "percent");
+      put(
+        flat,
+        `stage.tolerance.${name}`,
+        `Tolerance of ${stageLabel(kind, name)} (−/+ %)`,
+        text,
+        "",
+        "plain",
+      );
+    else put(flat, `stage.tolerance.${name}`, `Tolerance of ${stageLabel(kind, name)}`, text, "%", "percent");
   }
 }
 
@@ -109,7 +122,7 @@ export function formatValue(e: Pick<Entry, "value" | "unit" | "fmt"> | undefined
   if (typeof v !== "number") return String(v);
   switch (e.fmt) {
     case "ppm":
-      return `${Number(v.toPrecision(4))} ppm`;
+      return formatPpm(v, 4);
     case "percent":
       return `${Number((v * 100).toPrecision(4))} %`;
     case "hex":
@@ -117,7 +130,8 @@ export function formatValue(e: Pick<Entry, "value" | "unit" | "fmt"> | undefined
     case "plain":
       return String(v);
     default:
-      return formatEng(v, e.unit, 4);
+      // A dimensionless ratio (standoff ratio) reads 0.65, never "650m".
+      return e.unit === "" ? formatRatio(v, 4) : formatEng(v, e.unit, 4);
   }
 }
 

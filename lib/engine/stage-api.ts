@@ -56,7 +56,7 @@ export {
   DEFAULT_SEED,
 } from "./tolerance";
 export type { MonteCarloOptions, CornerResult, MonteCarloResult, TimingFn } from "./tolerance";
-export { parseEng, formatEng } from "./units";
+export { parseEng, formatEng, formatPpm, formatRatio } from "./units";
 export type { EngUnit } from "./units";
 export { E_SERIES, E_SERIES_TOLERANCE, nearestStandardValue, standardValuesBetween } from "./eseries";
 export type { ESeriesName, StandardValue } from "./eseries";

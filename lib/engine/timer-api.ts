@@ -1,5 +1,7 @@
 // Public surface of the devices and the timer solver (engine.md sections 2-4).
-import { DEVICES, deviceInfo } from "./devices";
+import { DEVICES, deviceInfo, findDevice } from "./devices";
+import { isEngineError } from "./errors";
+import { checkClockChoice } from "./solver/validate";
 import type { DeviceInfo } from "./plan-types";
 
 export type {
@@ -21,6 +23,28 @@ export { LONGEST_PERIOD_S, clockMakes, longestPeriodS } from "./solver/validate"
 
 export function listDevices(): DeviceInfo[] {
   return DEVICES.map(deviceInfo);
+}
+
+/**
+ * Why this device cannot run at this clock source and frequency (package
+ * optional), or null when it can: the same rule planTarget applies, for the
+ * form and API schemas, so live plans and generation never disagree.
+ */
+export function clockChoiceProblem(choice: {
+  device: string;
+  clockSource?: string;
+  clockHz: number;
+  package?: string;
+}): { field: string; message: string } | null {
+  const device = findDevice(choice.device);
+  if (!device) return { field: "device", message: `Unknown device "${choice.device}".` };
+  try {
+    checkClockChoice(device, choice.clockSource, choice.clockHz, choice.package);
+    return null;
+  } catch (e) {
+    if (!isEngineError(e)) throw e;
+    return { field: e.field ?? "clockHz", message: e.message };
+  }
 }
 export {
   accuracyBudget,

@@ -66,8 +66,20 @@ function fail(text: string, why: string): never {
  * With `expect`, a unit written in the text must be that unit.
  */
 export function parseEng(text: string, expect?: EngUnit): number {
-  const raw = String(text).trim();
+  let raw = String(text).trim();
   if (raw === "") fail(text, "it is empty");
+  // Thousands separators are read where they cannot be a decimal comma: two
+  // or more groups ("16,000,000") or a decimal point after them ("1,500.5").
+  const grouped = /^([+-]?\d{1,3}(?:,\d{3})+)(\.\d*)?(.*)$/.exec(raw);
+  if (grouped) {
+    const groups = grouped[1].split(",").length - 1;
+    if (groups < 2 && grouped[2] === undefined)
+      fail(
+        text,
+        `"${grouped[1]}" could be a thousands separator or a decimal comma; write it without the comma`,
+      );
+    raw = grouped[1].replace(/,/g, "") + (grouped[2] ?? "") + grouped[3];
+  }
   if (/,/.test(raw)) fail(text, "use a point as the decimal separator");
 
   let value: number;
@@ -143,4 +155,24 @@ export function formatEng(value: number, unit: EngUnit | "ohm" = "", digits = 3)
     mantissa = Number((value / factor).toPrecision(digits));
   }
   return `${trimDigits(mantissa, digits)}${sep}${prefix}${u}`;
+}
+
+/**
+ * A relative value given in ppm, printed where people read it easily: ppm up
+ * to ±10 000 ppm, percent up to ±100 %, beyond that as a ratio to the target
+ * ("+14319198.8 ppm" reads "15.3 × the target"). `signed` adds "+" to positive values.
+ */
+export function formatPpm(ppm: number, digits = 3, signed = false): string {
+  if (!Number.isFinite(ppm)) return "—";
+  const sign = signed && ppm > 0 ? "+" : "";
+  const mag = Math.abs(ppm);
+  if (mag < 1e4) return `${sign}${trimDigits(ppm, digits)} ppm`;
+  if (mag < 1e6) return `${sign}${trimDigits(ppm / 1e4, digits)} %`;
+  return `${trimDigits(1 + ppm / 1e6, digits)} × the target`;
+}
+
+/** A dimensionless ratio as a plain decimal, never with an SI prefix: 0.65, not "650m". */
+export function formatRatio(value: number, digits = 3): string {
+  if (!Number.isFinite(value)) return "—";
+  return trimDigits(value, digits);
 }

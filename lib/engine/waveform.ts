@@ -1,5 +1,6 @@
-// Sample points of the capacitor voltage and the output over two periods, for
-// a sketch in the UI. Exact exponential segments of the stage model; the
+// Points of the capacitor voltage and the output over two periods, for a
+// sketch in the UI. Exact exponential segments of the stage model, sampled at
+// their edges (event-based) so narrow pulses are never stepped over; the
 // sketch starts at the beginning of the charge phase.
 import type { Stage, StageAnalysis } from "./stage-types";
 import { modelOf } from "./stages";
@@ -27,26 +28,59 @@ export function stageWaveform(stage: Stage, analysis: StageAnalysis, points = 40
   const shape = model.segments(full, result);
   const total = shape ? shape.segments.reduce((a, s) => a + s.durationS, 0) : analysis.periodS;
   // A one-shot makes one pulse per trigger: one pulse and the idle after it, no invented repeat.
-  const span = model.outputSignal === "one-shot" ? total : 2 * total;
-  const out: WaveformPoint[] = [];
-  for (let i = 0; i < n; i++) {
-    const tS = (span * i) / (n - 1);
-    let t = tS % total;
-    if (i === n - 1) t = total; // end exactly on the period boundary
+  const repeats = model.outputSignal === "one-shot" ? 1 : 2;
+  const durations = shape ? shape.segments.map((s) => s.durationS) : [analysis.highS, total - analysis.highS];
+  return eventTimes(total, repeats, durations, n).map(({ tS, t }) => {
     if (!shape) {
       // Measured: no capacitor, output high for the first highS of each period.
-      out.push({ tS, capV: NaN, out: t < analysis.highS ? 1 : 0 });
-      continue;
+      return { tS, capV: NaN, out: t < analysis.highS ? 1 : 0 };
     }
     let seg = shape.segments[0];
+    let u = t;
     for (const s of shape.segments) {
       seg = s;
-      if (t < s.durationS) break;
-      t -= s.durationS;
+      if (u < s.durationS) break;
+      u -= s.durationS;
     }
-    const capV = seg.tauS > 0 ? seg.toward + (seg.from - seg.toward) * Math.exp(-t / seg.tauS) : seg.toward;
-    out.push({ tS, capV, out: seg.out });
+    if (u > seg.durationS) u = seg.durationS; // the period's last instant
+    const capV = seg.tauS > 0 ? seg.toward + (seg.from - seg.toward) * Math.exp(-u / seg.tauS) : seg.toward;
+    return { tS, capV, out: seg.out };
+  });
+}
+
+/** Points inside each segment besides its ends, so a narrow pulse keeps its shape. */
+const POINTS_PER_SEGMENT = 16;
+
+/**
+ * Sample instants built from the edges, not an even grid: every segment
+ * boundary (and the instant just before it, so a step draws upright), a few
+ * points inside every segment however short, plus `n` even points for the
+ * smooth parts. A 16.7 us pulse in a 50 ms period is drawn, where 800 even
+ * points (one per 125 us) would step over it. Returns global time and the
+ * time inside the period.
+ */
+function eventTimes(
+  period: number,
+  repeats: number,
+  durations: number[],
+  n: number,
+): { tS: number; t: number }[] {
+  const local: number[] = [];
+  let at = 0;
+  for (const d of durations) {
+    if (!(d > 0)) continue;
+    for (let j = 0; j < POINTS_PER_SEGMENT; j++) local.push(at + (d * j) / POINTS_PER_SEGMENT);
+    at += d;
+    // Just before the edge: the old level's last instant.
+    local.push(Math.max(0, at - Math.min(d, period) * 1e-6));
   }
+  const even = Math.max(2, Math.floor(n / repeats));
+  for (let i = 0; i < even; i++) local.push((period * i) / even);
+  const uniq = [...new Set(local.filter((t) => t >= 0 && t < period))].sort((a, b) => a - b);
+  const out: { tS: number; t: number }[] = [];
+  for (let k = 0; k < repeats; k++) for (const t of uniq) out.push({ tS: k * period + t, t });
+  // End exactly on the period boundary, at the level the period ends with.
+  out.push({ tS: repeats * period, t: period });
   return out;
 }
 
@@ -67,9 +101,8 @@ function syncWaveform(
   const discharge = shape?.segments[1];
   const circuit = syncCircuitOf(stage);
   const out: WaveformPoint[] = [];
-  for (let i = 0; i < n; i++) {
-    const tS = (2 * half * i) / (n - 1);
-    const t = i === n - 1 ? half : tS % half;
+  const durations = [delay, analysis.highS, half - delay - analysis.highS];
+  for (const { tS, t } of eventTimes(half, 2, durations, n)) {
     if (t < delay) out.push({ tS, capV: syncCapacitorV(circuit, t), out: 0 });
     else if (t < delay + analysis.highS && discharge) {
       const u = t - delay;

@@ -24,6 +24,13 @@ export const fieldCheckSchema = z
     target: z.number().int().min(0).default(0),
     measuredPeriodS: seconds.optional(),
     measuredHighS: seconds.optional(),
+    /** Reading resolution of the instrument (scope cursor step, counter's last digit); widens each limit. */
+    resolutionS: z
+      .number()
+      .finite()
+      .min(0, "Resolution must not be negative.")
+      .max(1, "Resolution is at most 1 s.")
+      .optional(),
     captureId: dbId.optional(),
     notes: z.string().max(4000).default(""),
     signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
@@ -34,7 +41,8 @@ export type FieldCheckInput = z.infer<typeof fieldCheckSchema>;
 
 function lineText(l: CheckLine): string {
   const f = (x: number) => (l.unit === "" ? formatEng(x, "%", 4) : formatEng(x, l.unit, 6));
-  return `${l.pass ? "pass" : "FAIL"}  ${l.label}: measured ${f(l.measured)}, limits ${f(l.min)} .. ${f(l.max)}`;
+  const verdict = l.derived ? "info" : l.pass ? "pass" : "FAIL";
+  return `${verdict}  ${l.label}: measured ${f(l.measured)}, limits ${f(l.min)} .. ${f(l.max)}${l.source ? ` (${l.source})` : ""}`;
 }
 
 export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): Promise<FieldCheckView> {
@@ -78,7 +86,7 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
   const verdict = judgeCheck(
     plan,
     revision.analysis,
-    { periodS, highS },
+    { periodS, highS, resolutionS: input.resolutionS },
     input.target,
     requiredRelativeOf(revision.plans, input.target),
   );
@@ -105,7 +113,14 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
         action: verdict.passed ? "field-check.passed" : "field-check.failed",
         subjectType: "revision",
         subjectId: revision.id,
-        details: { fieldCheckId: row.id, retrofitId: retrofit.id, target: input.target, periodS, highS },
+        details: {
+          fieldCheckId: row.id,
+          retrofitId: retrofit.id,
+          target: input.target,
+          periodS,
+          highS,
+          resolutionS: input.resolutionS ?? null,
+        },
       },
       tx,
     );

@@ -46,6 +46,7 @@ import {
 import { reportProgress } from "@/lib/jobs/progress";
 import { storedControl } from "@/lib/validation/control";
 import type { BuildProgress } from "./build-state";
+import { TARGET_FIELDS } from "@/lib/validation/target";
 import { planOne, planRequestOf, snapshotOf } from "./plan-targets";
 import type { StoredPlan } from "./types";
 
@@ -119,9 +120,11 @@ async function loadInputs(tx: Reader, retrofitId: number, lock: boolean): Promis
     const r = planOne(analysis, target, i);
     if (!r.ok) {
       const name = `target ${i + 1} (${row.device}, ${row.clockSource} at ${row.clockHz} Hz)`;
-      throw new ApiError("unprocessable", `${name} cannot be planned: ${r.message}`, {
-        [`targets.${i}`]: r.message,
-      });
+      // The row and, where the engine names one, the field itself, so the form
+      // marks the field as the live plan did (not only a message under the button).
+      const fields: Record<string, string> = { [`targets.${i}`]: r.message };
+      if (r.field && TARGET_FIELDS.has(r.field)) fields[`targets.${i}.${r.field}`] = r.message;
+      throw new ApiError("unprocessable", `${name} cannot be planned: ${r.message}`, fields);
     }
     stored.push({ target, plan: r.plan, budget: r.budget });
     // The bundle planner passes the whole request to planTarget, so the clock

@@ -10,7 +10,9 @@ import {
   type StageAnalysis,
   type TimerPlan,
 } from "@/lib/engine";
+import { buildRefusal } from "@/lib/bundle/buildable";
 import type { GateDrive, TargetSnapshot, TargetTrigger } from "./types";
+import { plainMessage } from "@/lib/validation/plain-message";
 
 export type TargetPlanRow =
   | { ok: true; index: number; plan: TimerPlan; budget: AccuracyBudget | null }
@@ -76,6 +78,9 @@ export function planOne(analysis: StageAnalysis, t: TargetSnapshot, index: numbe
           "A zero-cross start needs the half cycle: synchronise the stage to the mains, or give the shortest time between input edges.",
       };
     const plan = planTarget(request);
+    // Generation refuses what no firmware exists for; live plans say so too.
+    const refusal = buildRefusal(plan);
+    if (refusal) return { ok: false, index, ...refusal };
     const spread = stageSpreadRelative(analysis);
     const gate = t.gateDrive ?? undefined;
     const budget =
@@ -92,7 +97,7 @@ export function planOne(analysis: StageAnalysis, t: TargetSnapshot, index: numbe
     return { ok: true, index, plan, budget };
   } catch (e) {
     if (!isEngineError(e)) throw e;
-    return { ok: false, index, message: e.message, field: e.field };
+    return { ok: false, index, message: plainMessage(e.message), field: e.field };
   }
 }
 

@@ -19,6 +19,7 @@ import {
 import { readEng } from "./eng";
 import { formText } from "./form-text";
 import { formatTolerance, readTolerance } from "./tolerance";
+import { plainMessage } from "./plain-message";
 
 export const STAGE_KIND_IDS = STAGE_KINDS.map((k) => k.kind) as [StageKind, ...StageKind[]];
 
@@ -100,7 +101,11 @@ export const stageSchema = z
       return validateStage(out);
     } catch (e) {
       if (!isEngineError(e)) throw e;
-      ctx.addIssue({ code: "custom", message: e.message, path: (e.field ?? "kind").split(".") });
+      ctx.addIssue({
+        code: "custom",
+        message: plainMessage(e.message, input.kind),
+        path: (e.field ?? "kind").split("."),
+      });
       return z.NEVER;
     }
   });

@@ -2,8 +2,10 @@
 // tolerance the new board must hold. Checked against the engine's device
 // catalogue so a wrong clock option or timer is a field error, not a 500.
 import { z } from "zod";
-import { clockMakes, listDevices, type DeviceInfo } from "@/lib/engine";
+import { clockChoiceProblem, listDevices, type DeviceInfo } from "@/lib/engine";
 import { engNumber, optionalEngNumber } from "./eng";
+import { formText } from "./form-text";
+import { plainMessage } from "./plain-message";
 
 const DEVICES = listDevices();
 export const DEVICE_IDS = DEVICES.map((d) => d.id) as [string, ...string[]];
@@ -109,36 +111,10 @@ export const targetSchema = z
       });
     const device = deviceById(t.device);
     if (!device) return;
-    const clock = device.clocks.find((c) => c.id === t.clockSource);
-    if (!clock) {
-      ctx.addIssue({
-        code: "custom",
-        path: ["clockSource"],
-        message: `${device.name} has no clock "${t.clockSource}"; one of ${device.clocks.map((c) => c.id).join(", ")}.`,
-      });
-    } else {
-      const lo = clock.hz ?? clock.minHz ?? device.minClockHz;
-      const hi = clock.hz ?? clock.maxHz ?? device.maxClockHz;
-      if (t.clockHz < lo * (1 - 1e-9) || t.clockHz > hi * (1 + 1e-9)) {
-        ctx.addIssue({
-          code: "custom",
-          path: ["clockHz"],
-          message:
-            lo === hi ? `${clock.label} runs at ${lo} Hz.` : `${clock.label} runs from ${lo} Hz to ${hi} Hz.`,
-        });
-      } else if (clock.frequenciesHz && !clockMakes(clock, t.clockHz)) {
-        // Discrete sources (dividers, PLL steps): name the nearest frequencies it can make.
-        const near = [...clock.frequenciesHz]
-          .sort((a, b) => Math.abs(a - t.clockHz) - Math.abs(b - t.clockHz))
-          .slice(0, 2)
-          .sort((a, b) => a - b);
-        ctx.addIssue({
-          code: "custom",
-          path: ["clockHz"],
-          message: `${clock.label} cannot make ${t.clockHz} Hz; nearest: ${near.join(" Hz or ")} Hz.`,
-        });
-      }
-    }
+    // The engine's own rule (planTarget applies the same), so the form, the
+    // API and generation refuse the same clock choices with the same words.
+    const clock = clockChoiceProblem({ device: t.device, clockSource: t.clockSource, clockHz: t.clockHz });
+    if (clock) ctx.addIssue({ code: "custom", path: [clock.field], message: plainMessage(clock.message) });
     if (t.timer && !device.timers.some((x) => x.name === t.timer!.toUpperCase())) {
       ctx.addIssue({
         code: "custom",
@@ -166,10 +142,14 @@ export function defaultTarget(deviceId = "atmega328p"): TargetInput {
   return {
     device: device.id,
     clockSource: clock.id,
-    clockHz: String(clock.hz ?? Math.min(clock.maxHz ?? device.maxClockHz, 16e6)),
+    // Written as the form writes numbers ("16M"), never rewritten to digits.
+    clockHz: formText(clock.hz ?? Math.min(clock.maxHz ?? device.maxClockHz, 16e6)),
     mode: "pwm",
     timer: "",
     requiredTolerancePct: "1",
     activeLow: false,
   };
 }
+
+/** Names of a target's form fields: an engine refusal naming one of them marks that field. */
+export const TARGET_FIELDS: ReadonlySet<string> = new Set(Object.keys(targetSchema.shape));

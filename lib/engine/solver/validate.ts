@@ -98,12 +98,7 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
       `mode must be one of ${MODES.join(", ")}, got ${String(mode)}.`,
       "mode",
     );
-  if (clockHz < device.minClockHz || clockHz > device.maxClockHz)
-    throw new EngineError(
-      "clock-out-of-range",
-      `${device.name} runs from ${device.minClockHz} Hz to ${device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
-      "clockHz",
-    );
+  const { clock, packageName } = checkClockChoice(device, request.clockSource, clockHz, request.package);
   // Bounds the solver's work too: every search below counts at most this many cycles.
   const most = longestPeriodCycles(device);
   if (periodS * clockHz > most)
@@ -124,50 +119,6 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
         "timer",
       );
   }
-  const clockId = request.clockSource ?? device.defaultClock;
-  const clock = device.clocks.find((c) => c.id === clockId);
-  if (!clock)
-    throw new EngineError(
-      "invalid-request",
-      `${device.name} has no clock option "${clockId}". Options: ${device.clocks.map((c) => c.id).join(", ")}.`,
-      "clockSource",
-    );
-  const packageName = checkPackage(device, request.package);
-  if (packageName !== undefined && clock.packages && !clock.packages.includes(packageName))
-    throw new EngineError(
-      "invalid-request",
-      `${device.name}: ${clock.label} cannot run on the ${packageName} package; it needs ${clock.packages.join(" or ")}.`,
-      "clockSource",
-    );
-  // A source with discrete frequencies (a PLL from a fixed crystal, IRCF steps)
-  // runs only at those: refuse any other before a plan or a bundle is made.
-  if (clock.frequenciesHz && !clockMakes(clock, clockHz)) {
-    const others = device.clocks.filter(
-      (c) => c.id !== clock.id && (c.frequenciesHz ? clockMakes(c, clockHz) : c.hz === clockHz),
-    );
-    const near = [...clock.frequenciesHz]
-      .sort((a, b) => Math.abs(a - clockHz) - Math.abs(b - clockHz) || a - b)
-      .slice(0, 2)
-      .sort((a, b) => a - b);
-    throw new EngineError(
-      "clock-out-of-range",
-      `clockHz ${clockHz} Hz: ${device.name} ${clock.label} cannot make ${clockHz} Hz; nearest it makes: ${near.join(" Hz, ")} Hz` +
-        (others.length ? `; ${clockHz} Hz is clock source ${others.map((c) => c.id).join(", ")}.` : "."),
-      "clockHz",
-    );
-  }
-  // Opt-in per device until every device's options state ranges that the solver tests respect.
-  if (
-    device.strictClockRange === true &&
-    ((clock.minHz !== undefined && clockHz < clock.minHz * (1 - 1e-9)) ||
-      (clock.maxHz !== undefined && clockHz > clock.maxHz * (1 + 1e-9)))
-  )
-    throw new EngineError(
-      "clock-out-of-range",
-      `${device.name} clock option ${clock.id} runs from ${clock.minHz ?? device.minClockHz} Hz to ${clock.maxHz ?? device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
-      "clockHz",
-    );
-  device.checkClock?.(clock, clockHz, packageName ?? "");
   let clockAccuracyPpm = clock.accuracyPpm;
   if (request.clockAccuracyPpm !== undefined) {
     const a = request.clockAccuracyPpm;
@@ -199,6 +150,71 @@ export function checkRequest(request: PlanRequest): CheckedRequest {
     ...(packageName !== undefined ? { packageName } : {}),
     trigger: checkStart(request, periodS, highS),
   };
+}
+
+/**
+ * The one rule for whether a device can run at this clock source and
+ * frequency on this package. planTarget calls it, and so does the form's and
+ * the API's target schema (lib/validation/target.ts), so the browser's live
+ * plans and generation refuse the same combinations with the same words.
+ */
+export function checkClockChoice(
+  device: DeviceSpec,
+  clockSource: string | undefined,
+  clockHz: number,
+  pkg?: unknown,
+): { clock: ClockOption; packageName?: string } {
+  if (clockHz < device.minClockHz || clockHz > device.maxClockHz)
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name} runs from ${device.minClockHz} Hz to ${device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
+      "clockHz",
+    );
+  const clockId = clockSource ?? device.defaultClock;
+  const clock = device.clocks.find((c) => c.id === clockId);
+  if (!clock)
+    throw new EngineError(
+      "invalid-request",
+      `${device.name} has no clock option "${clockId}". Options: ${device.clocks.map((c) => c.id).join(", ")}.`,
+      "clockSource",
+    );
+  const packageName = checkPackage(device, pkg);
+  if (packageName !== undefined && clock.packages && !clock.packages.includes(packageName))
+    throw new EngineError(
+      "invalid-request",
+      `${device.name}: ${clock.label} cannot run on the ${packageName} package; it needs ${clock.packages.join(" or ")}.`,
+      "clockSource",
+    );
+  // A source with discrete frequencies (a PLL from a fixed crystal, IRCF steps)
+  // runs only at those: refuse any other before a plan or a bundle is made.
+  if (clock.frequenciesHz && !clockMakes(clock, clockHz)) {
+    const others = device.clocks.filter(
+      (c) => c.id !== clock.id && (c.frequenciesHz ? clockMakes(c, clockHz) : c.hz === clockHz),
+    );
+    const near = [...clock.frequenciesHz]
+      .sort((a, b) => Math.abs(a - clockHz) - Math.abs(b - clockHz) || a - b)
+      .slice(0, 2)
+      .sort((a, b) => a - b);
+    throw new EngineError(
+      "clock-out-of-range",
+      `Clock frequency ${clockHz} Hz: ${device.name} ${clock.label} cannot make ${clockHz} Hz; nearest it makes: ${near.join(" Hz, ")} Hz` +
+        (others.length ? `; ${clockHz} Hz is clock source ${others.map((c) => c.id).join(", ")}.` : "."),
+      "clockHz",
+    );
+  }
+  // Opt-in per device until every device's options state ranges that the solver tests respect.
+  if (
+    device.strictClockRange === true &&
+    ((clock.minHz !== undefined && clockHz < clock.minHz * (1 - 1e-9)) ||
+      (clock.maxHz !== undefined && clockHz > clock.maxHz * (1 + 1e-9)))
+  )
+    throw new EngineError(
+      "clock-out-of-range",
+      `${device.name} clock option ${clock.id} runs from ${clock.minHz ?? device.minClockHz} Hz to ${clock.maxHz ?? device.maxClockHz} Hz; ${clockHz} Hz is outside.`,
+      "clockHz",
+    );
+  device.checkClock?.(clock, clockHz, packageName ?? "");
+  return { clock, ...(packageName !== undefined ? { packageName } : {}) };
 }
 
 /** The requested package, checked against the device's list; the first listed when omitted. */

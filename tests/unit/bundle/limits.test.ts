@@ -56,13 +56,13 @@ describe("limits from the required tolerance and the instrument", () => {
   it("a 2 % requirement gives ±2 % of the achieved 20 ms period (±400 us)", () => {
     const p = checklistLimits(plan, null, { requiredRelative: 0.02 }).find((l) => l.id === "period")!;
     expect(p.max - p.expected).toBeCloseTo(400e-6, 12);
-    expect(p.source).toContain("required ±2 %");
+    expect(p.source).toContain("required tolerance ±2 %");
   });
 
   it("the board's own spread is the floor when the requirement is tighter", () => {
     const p = checklistLimits(plan, null, { requiredRelative: 1e-6 }).find((l) => l.id === "period")!;
     expect(p.max - p.expected).toBeCloseTo(1.5e-6, 15);
-    expect(p.source).toContain("board spread");
+    expect(p.source).toContain("plan: clock ±50 ppm");
   });
 
   it("instrument resolution widens the band by exactly its value", () => {
@@ -70,11 +70,44 @@ describe("limits from the required tolerance and the instrument", () => {
       (l) => l.id === "period",
     )!;
     expect(p.max - p.expected).toBeCloseTo(410e-6, 12);
-    expect(p.source).toContain("instrument resolution");
+    expect(p.source).toContain("instrument resolution 10.0 µs");
   });
 
   it("frequency and duty are marked derived", () => {
     const ls = checklistLimits(plan, null);
     expect(ls.filter((l) => l.derived).map((l) => l.id)).toEqual(["frequency", "duty"]);
+  });
+});
+
+// Issue 18 point 1: the printed checklist names each limit's source and marks
+// the derived lines as information (rule: common practice, no source).
+describe("CHECKLIST.md says where each limit comes from", () => {
+  const withTolerance = { ...TARGETS[0], requiredTolerancePct: 2 };
+  const list = buildBundleSources(spec([withTolerance])).find((f) => f.path === "atmega328p/CHECKLIST.md")!
+    .content as string;
+  const rows = list
+    .split("\n")
+    .filter((l: string) => /^\| [BS]\d+ \| (Period|High time|Frequency|Duty cycle) /.test(l));
+
+  it("prints the required tolerance as the period and high-time source", () => {
+    const period = rows.filter((r) => r.includes("| Period at") || r.includes("| Period "));
+    expect(period.length).toBe(2);
+    for (const r of period) expect(r).toContain("limit from: required tolerance ±2 %");
+  });
+
+  it("marks frequency and duty as information, without a tick box", () => {
+    const derived = rows.filter((r) => / \| (Frequency|Duty cycle) at/.test(r));
+    expect(derived.length).toBe(4);
+    for (const r of derived) {
+      expect(r).toContain("derived from the measured period and high time");
+      expect(r.trim().endsWith("| information |")).toBe(true);
+    }
+  });
+
+  it("without a requirement the plan is named as the source", () => {
+    const plain = buildBundleSources(spec([TARGETS[0]])).find(
+      (f) => f.path === "atmega328p/CHECKLIST.md",
+    )!.content;
+    expect(plain).toContain("limit from: plan: clock ±50 ppm + jitter + one timer count");
   });
 });

@@ -1,9 +1,10 @@
 // The plans a revision froze, one row per target.
 import { BudgetVerdict } from "@/components/retrofit/budget-verdict";
-import { formatEng } from "@/lib/engine";
+import { formatEng, formatPpm } from "@/lib/engine";
 import type { StoredPlan } from "@/lib/revisions/types";
+import { deviceName } from "@/components/retrofit/format";
 
-const ppm = (v: number) => `${Number(v.toPrecision(3))} ppm`;
+const ppm = (v: number) => formatPpm(v, 3);
 
 export function PlanSummary({ plans }: { plans: StoredPlan[] }) {
   return (
@@ -29,7 +30,7 @@ export function PlanSummary({ plans }: { plans: StoredPlan[] }) {
           {plans.map(({ plan, budget }, i) => (
             <tr key={i}>
               <td className="num">{i + 1}</td>
-              <td>{plan.device}</td>
+              <td>{deviceName(plan.device)}</td>
               <td className="num">
                 {formatEng(plan.clockHz, "Hz", 6)} {plan.clockSource}
               </td>

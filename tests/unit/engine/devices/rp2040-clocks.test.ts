@@ -88,7 +88,7 @@ describe("RP2040 PLL_SYS from the 12 MHz crystal", () => {
     const e = refusal(() => buildBundleSources(spec([req])));
     expect(e.code).toBe("clock-out-of-range");
     expect(e.field).toBe("targets.0"); // the bundle names the target; the engine's message names the field
-    expect(e.message).toMatch(/clockHz 16000000 Hz/);
+    expect(e.message).toMatch(/Clock frequency 16000000 Hz/);
   });
 });
 

@@ -16,6 +16,7 @@ import { pageUser } from "@/lib/auth/page";
 import { CAPTURE, FIELD, FIELD_VIEW } from "@/lib/auth/roles";
 import { getRevisionWithRetrofit } from "@/lib/field/queries";
 import { canReadRevision } from "@/lib/revisions/access";
+import { deviceName } from "@/components/retrofit/format";
 
 export const metadata: Metadata = { title: "Field check" };
 
@@ -42,7 +43,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
         </h1>
         <p className="text-sm text-ink-soft">
           {retrofit.site}
-          {retrofit.boardRef ? ` · ${retrofit.boardRef}` : ""} · {devices.join(", ")}
+          {retrofit.boardRef ? ` · ${retrofit.boardRef}` : ""} · {devices.map(deviceName).join(", ")}
           {revision.supersededAt ? " · superseded by a newer released revision" : ""}
         </p>
         <CopySha sha256={revision.bundleSha256} />

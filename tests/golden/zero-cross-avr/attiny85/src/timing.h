@@ -1,7 +1,7 @@
 /* Timing constants — ATtiny85 TIMER0 isr
  * Retrofit: Ostberg pump house lead-lag timer, revision r1, engine 1.0.0
  * Achieved period 10.00000 ms (+0.000 ppm),
- * high time 96.00000 us (-40000.000 ppm).
+ * high time 96.00000 us (-4.000 %).
  * period = divider * periodCounts * modeFactor * softwareDivider / F_CPU
  *        = 256 * 128 * 1 * 1 / 8000000
  */
