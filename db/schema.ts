@@ -325,12 +325,15 @@ export const mailOutbox = pgTable("mail_outbox", {
   createdAt: createdAt(),
 });
 
-// Failed sign-ins per e-mail address, for throttling.
-export const signInFailures = pgTable("sign_in_failures", {
-  email: text("email").primaryKey(),
-  count: integer("count").notNull().default(0),
-  firstAt: timestamp("first_at", { withTimezone: true }).notNull().defaultNow(),
-  lockedUntil: timestamp("locked_until", { withTimezone: true }),
+// Sign-in throttling counters (lib/auth/throttle.ts), one row per key:
+// "pair:<email> <address>", "account:<email>", "address:<address>". Each
+// attempt changes a row in one INSERT ... ON CONFLICT DO UPDATE ... RETURNING.
+export const signInCounters = pgTable("sign_in_counters", {
+  key: text("key").primaryKey(),
+  attempts: integer("attempts").notNull().default(0),
+  lastAt: timestamp("last_at", { withTimezone: true }).notNull().defaultNow(),
+  nextAt: timestamp("next_at", { withTimezone: true }).notNull().defaultNow(),
+  lastAllowed: boolean("last_allowed").notNull().default(true),
 });
 
 export const retrofitsRelations = relations(retrofits, ({ one, many }) => ({

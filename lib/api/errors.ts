@@ -9,6 +9,7 @@ export type ApiErrorCode =
   | "unauthenticated"
   | "forbidden"
   | "not_found"
+  | "method_not_allowed"
   | "conflict"
   | "payload_too_large"
   | "unprocessable"
@@ -21,6 +22,7 @@ const STATUS: Record<ApiErrorCode, number> = {
   unauthenticated: 401,
   forbidden: 403,
   not_found: 404,
+  method_not_allowed: 405,
   conflict: 409,
   payload_too_large: 413,
   unprocessable: 422,
@@ -77,6 +79,13 @@ export function toApiError(err: unknown): ApiError {
     // PostgreSQL text cannot hold a NUL character (SQLSTATE 22021, 22P05).
     return new ApiError("bad_request", "Text may not contain NUL (zero) characters.");
   }
+  if (isUniqueViolation(err)) {
+    // Two requests raced to create the same row (SQLSTATE 23505); the loser is told so.
+    return new ApiError(
+      "conflict",
+      "That already exists (another request just created it). Reload and check.",
+    );
+  }
   if (isConnectionError(err)) {
     console.error("database unavailable:", (err as Error).message);
     return new ApiError("unavailable", "The database is not reachable right now. Try again in a moment.");
@@ -120,6 +129,12 @@ function isConnectionError(err: unknown): boolean {
     e = e.cause as typeof e;
   }
   return false;
+}
+
+/** A unique constraint refused a row (SQLSTATE 23505), directly or as the cause of a failed query. */
+export function isUniqueViolation(err: unknown): boolean {
+  const e = err as { code?: string; cause?: { code?: string } } | null;
+  return (e?.code ?? e?.cause?.code) === "23505";
 }
 
 function isUnstorableText(err: unknown): boolean {

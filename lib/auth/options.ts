@@ -8,7 +8,7 @@ import { db } from "@/db/client";
 import { users, type Role } from "@/db/schema";
 import { recordAudit } from "@/lib/audit";
 import { verifyPassword } from "./password";
-import { clearFailures, lockedUntil, recordFailure } from "./throttle";
+import { claimSignInAttempt, clientAddress, recordSignInSuccess } from "./throttle";
 import { endSessions } from "./sessions";
 
 const credentials = z.object({
@@ -17,10 +17,13 @@ const credentials = z.object({
 });
 
 // Messages shown on the sign-in page (next-auth passes the thrown message as ?error=).
+// A disabled account gets the same answer as a wrong password, whether or not
+// the password was right, so the answer tells a stranger nothing about the
+// account; the wording names both causes for the person it concerns.
 export const SIGN_IN_ERRORS = {
-  invalid: "Wrong e-mail or password.",
-  locked: "Too many failed attempts. Wait 15 minutes, or ask an admin.",
-  disabled: "This account is disabled. Ask an admin.",
+  invalid: "Wrong e-mail or password, or the account is disabled (ask an admin).",
+  wait: (seconds: number) =>
+    `Too many failed attempts. Wait ${seconds} second${seconds === 1 ? "" : "s"}, then try again, or ask an admin.`,
 } as const;
 
 export const SESSION_MAX_AGE_S = 8 * 60 * 60;
@@ -37,20 +40,24 @@ export const authOptions: NextAuthOptions = {
         email: { label: "E-mail", type: "email" },
         password: { label: "Password", type: "password" },
       },
-      async authorize(raw) {
+      async authorize(raw, req) {
         const parsed = credentials.safeParse(raw);
         if (!parsed.success) throw new Error(SIGN_IN_ERRORS.invalid);
         const { email, password } = parsed.data;
-        if (await lockedUntil(email)) throw new Error(SIGN_IN_ERRORS.locked);
+        const address = clientAddress(req?.headers);
+        const wait = await claimSignInAttempt(email, address);
+        if (wait > 0) throw new Error(SIGN_IN_ERRORS.wait(wait));
         const [user] = await db.select().from(users).where(eq(users.email, email));
         const ok = await verifyPassword(password, user?.passwordHash);
-        if (!user || !ok) {
-          await recordFailure(email);
-          await recordAudit({ actorId: user?.id ?? null, action: "sign-in-failed", details: { email } });
+        if (!user || !ok || user.disabled) {
+          await recordAudit({
+            actorId: user?.id ?? null,
+            action: "sign-in-failed",
+            details: { email, address, ...(ok && user?.disabled ? { disabled: true } : {}) },
+          });
           throw new Error(SIGN_IN_ERRORS.invalid);
         }
-        if (user.disabled) throw new Error(SIGN_IN_ERRORS.disabled);
-        await clearFailures(email);
+        await recordSignInSuccess(email, address);
         await recordAudit({ actorId: user.id, action: "sign-in", subjectType: "user", subjectId: user.id });
         return {
           id: String(user.id),

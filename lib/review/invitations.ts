@@ -8,7 +8,7 @@ import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
 import { invitations, users } from "@/db/schema";
-import { ApiError } from "@/lib/api/errors";
+import { ApiError, isUniqueViolation } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { hashPassword } from "@/lib/auth/password";
@@ -112,6 +112,18 @@ export async function openInvitation(token: string) {
 export async function acceptInvitation(raw: unknown) {
   const { token, password } = acceptInput.parse(raw);
   const passwordHash = await hashPassword(password);
+  // Two invitations for one e-mail accepted at the same moment both pass the
+  // "taken" check; the users.email unique index stops the second insert.
+  return acceptOnce(token, passwordHash).catch((err: unknown) => {
+    if (isUniqueViolation(err))
+      throw new ApiError("conflict", "This e-mail address already has an account; sign in instead.", {
+        token: "The account for this invitation's e-mail already exists.",
+      });
+    throw err;
+  });
+}
+
+async function acceptOnce(token: string, passwordHash: string) {
   return db.transaction(async (tx) => {
     const [inv] = await tx
       .update(invitations)

@@ -3,6 +3,8 @@
 import { describe, expect, it } from "vitest";
 import { Session, signedIn } from "../helpers/server";
 import { makeToken, makeUser, TEST_PASSWORD } from "../helpers/users";
+import { SIGN_IN_ERRORS } from "@/lib/auth/options";
+import { THROTTLE_RULES } from "@/lib/auth/throttle";
 
 describe("sign-in and roles", () => {
   it("answers an unauthenticated API call with 401 JSON in the error shape", async () => {
@@ -33,13 +35,13 @@ describe("sign-in and roles", () => {
     const eng = await makeUser("engineer");
     const s = new Session();
     const error = await s.signIn(eng.email, "not-the-password");
-    expect(error).toBe("Wrong e-mail or password.");
+    expect(error).toBe(SIGN_IN_ERRORS.invalid);
     expect(await s.user()).toBeNull();
   });
 
   it("gives an unknown e-mail the same message as a wrong password", async () => {
     const error = await new Session().signIn("nobody-here@test.invalid", "whatever-1");
-    expect(error).toBe("Wrong e-mail or password.");
+    expect(error).toBe(SIGN_IN_ERRORS.invalid);
   });
 
   it("carries the role in the session", async () => {
@@ -48,14 +50,15 @@ describe("sign-in and roles", () => {
     expect(await s.user()).toMatchObject({ email: rev.email, role: "reviewer" });
   });
 
-  it("refuses a disabled account", async () => {
+  it("refuses a disabled account with the wrong-password answer, which names both causes", async () => {
     const u = await makeUser("engineer", { disabled: true });
-    expect(await new Session().signIn(u.email, TEST_PASSWORD)).toMatch(/disabled/);
+    expect(await new Session().signIn(u.email, TEST_PASSWORD)).toBe(SIGN_IN_ERRORS.invalid);
+    expect(SIGN_IN_ERRORS.invalid).toMatch(/disabled/);
   });
 
-  it("locks an address after repeated failures, even with the right password", async () => {
+  it("slows an e-mail and address after repeated failures, even with the right password", async () => {
     const u = await makeUser("engineer");
-    for (let i = 0; i < 5; i++) await new Session().signIn(u.email, "wrong-" + i);
+    for (let i = 0; i < THROTTLE_RULES.pair.free; i++) await new Session().signIn(u.email, "wrong-" + i);
     expect(await new Session().signIn(u.email, TEST_PASSWORD)).toMatch(/Too many failed attempts/);
   });
 

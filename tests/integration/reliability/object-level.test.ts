@@ -107,9 +107,85 @@ describe("technicians reach approved revisions of their own site only", () => {
   it("the revision page of a draft shows nothing of it to a technician", async () => {
     const res = await w.actors.technician.session.fetch(`/revisions/${w.revision.prepared}`);
     const html = await res.text();
-    expect(res.status).toBeLessThan(500);
-    expect(html).toContain("Not allowed");
+    expect(res.status).toBe(404);
+    expect(html).not.toContain("Not allowed");
     expect(html).not.toContain(w.site);
+  });
+});
+
+// Existence oracle (issue 15 point 7): what a technician may not see answers
+// exactly as what does not exist: same status, same body. MISSING is below
+// the id bound (MAX_DB_ID) and far above any row a test run creates.
+describe("another site's objects answer exactly like missing ones", () => {
+  const MISSING = 2_000_000_000;
+  const pairs = (o: typeof other | { approved: number; captureId: number; retrofitId: number }) => [
+    `/api/v1/revisions/${o.approved}`,
+    `/api/v1/revisions/${o.approved}/bundle`,
+    `/api/v1/revisions/${o.approved}/files`,
+    `/api/v1/revisions/${o.approved}/files/README.md`,
+    `/api/v1/revisions/${o.approved}/comments`,
+    `/api/v1/diff?a=${w.revision.released}&b=${o.approved}`,
+    `/api/v1/diff?a=${o.approved}&b=${w.revision.released}&format=patch`,
+    `/api/v1/diff?a=0&b=${o.approved}`,
+    `/api/v1/retrofits/${o.retrofitId}/field-checks`,
+    `/api/v1/captures/${o.captureId}`,
+    `/api/v1/captures/${o.captureId}/plot`,
+  ];
+  const missing = () => ({ approved: MISSING, captureId: MISSING, retrofitId: MISSING });
+
+  it("API reads", { timeout: 300_000 }, async () => {
+    const seen = pairs(other);
+    const gone = pairs(missing());
+    for (let i = 0; i < seen.length; i++) {
+      const a = await send(w, "technician", "GET", { path: seen[i] });
+      const b = await send(w, "technician", "GET", { path: gone[i] });
+      expect(a.status, `${seen[i]} vs ${gone[i]}`).toBe(b.status);
+      expect(a.text, `${seen[i]} vs ${gone[i]}`).toBe(b.text);
+      expect(a.status, seen[i]).toBeGreaterThanOrEqual(400);
+    }
+  });
+
+  it("a field check citing it", async () => {
+    const check = { measuredPeriodS: 0.01, measuredHighS: 0.002, signedOffBy: "A. Tester" };
+    for (const [seen, gone] of [
+      [
+        { ...check, revisionId: other.approved },
+        { ...check, revisionId: MISSING },
+      ],
+      [
+        { revisionId: w.revision.released, captureId: other.captureId, signedOffBy: "A. Tester" },
+        { revisionId: w.revision.released, captureId: MISSING, signedOffBy: "A. Tester" },
+      ],
+    ]) {
+      const a = await refused("technician", "POST", "/api/v1/field-checks", seen, [404]);
+      const b = await refused("technician", "POST", "/api/v1/field-checks", gone, [404]);
+      expect(a.text).toBe(b.text);
+    }
+  });
+
+  it("pages", { timeout: 300_000 }, async () => {
+    const s = w.actors.technician.session;
+    // Nonces differ per response; everything else must be the same page.
+    const page = async (path: string) => {
+      const res = await s.fetch(path);
+      return {
+        status: res.status,
+        html: (await res.text()).replace(/nonce="[^"]*"|nonce-[A-Za-z0-9+/=]+/g, ""),
+      };
+    };
+    for (const [seen, gone] of [
+      [`/revisions/${other.approved}`, `/revisions/${MISSING}`],
+      [`/field/revisions/${other.approved}`, `/field/revisions/${MISSING}`],
+      [`/captures/${other.captureId}`, `/captures/${MISSING}`],
+      [`/field/retrofits/${other.retrofitId}`, `/field/retrofits/${MISSING}`],
+    ]) {
+      const a = await page(seen);
+      const b = await page(gone);
+      expect(a.status, `${seen} vs ${gone}`).toBe(b.status);
+      expect(a.status, seen).toBe(404);
+      expect(a.html).not.toContain(`Other site ${w.tag}`);
+      expect(a.html.includes("Not allowed"), seen).toBe(b.html.includes("Not allowed"));
+    }
   });
 });
 

@@ -6,7 +6,6 @@ import { notFound } from "next/navigation";
 import { BuildProgress } from "@/components/retrofit/build-progress";
 import { StateBadge } from "@/components/retrofit/state-badge";
 import { HazardCaution } from "@/components/ui/hazard-caution";
-import { NotAllowed } from "@/components/ui/not-allowed";
 import { pageUser } from "@/lib/auth/page";
 import { ANY, READ_ALL, REVIEW_VIEW } from "@/lib/auth/roles";
 import { getRetrofitById } from "@/lib/retrofits/get";
@@ -27,11 +26,9 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
   const revision = await getRevisionById({ id: Number(raw) });
   const retrofit = revision ? await getRetrofitById({ id: revision.retrofitId }) : null;
   if (!revision || !retrofit) notFound();
-  if (!canReadRevision(user, revision, retrofit)) {
-    return (
-      <NotAllowed role={user.role} what="this revision (technicians see released revisions of their site)" />
-    );
-  }
+  // Outside the read rule answers exactly like a missing revision: a
+  // technician must not learn that another site's revision or a draft exists.
+  if (!canReadRevision(user, revision, retrofit)) notFound();
   const files = await listRevisionFiles({ revisionId: revision.id });
   const images = await listRevisionImages({ revisionId: revision.id });
   const plans = revision.plans as StoredPlan[];

@@ -10,7 +10,9 @@ import { loadReadableRevision } from "@/lib/revisions/load";
 export const GET = apiRoute<{ id: string; path: string[] }>(async (req, ctx) => {
   const params = await ctx.params;
   const id = parseId(params.id, "Revision");
-  const path = params.path.map(decodeURIComponent).join("/");
+  // The router has decoded each segment once already; decoding again turned
+  // "%25E0" into a URIError (a 500) and "%252F" into a slash.
+  const path = params.path.join("/");
   const user = await requireUser({ roles: ANY, req });
   await loadReadableRevision({ id, user });
   const file = await getRevisionFile({ revisionId: id, path });
