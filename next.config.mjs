@@ -7,12 +7,18 @@ const securityHeaders = [
   { key: "Permissions-Policy", value: "camera=(), microphone=(), geolocation=()" },
 ];
 
+// proxy.ts runs on every path, uploads included, and the framework buffers a
+// request body for it up to proxyClientMaxBodySize (10 MB by default), cutting
+// the rest. Above the capture limit the upload route answers 413 itself.
+const CAPTURE_MAX_BYTES = Number(process.env.CAPTURE_MAX_BYTES ?? 64 * 1024 * 1024);
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Separate build folders let several local servers run side by side (scripts/serve-dev.sh).
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   serverExternalPackages: ["handlebars", "shiki", "pg", "nodemailer", "pg-boss"],
   poweredByHeader: false,
+  experimental: { proxyClientMaxBodySize: CAPTURE_MAX_BYTES + 1024 * 1024 },
   // Local servers are reached as 127.0.0.1 as well as localhost.
   allowedDevOrigins: ["127.0.0.1"],
   // `npm test` type-checks the whole tree (tsc --noEmit) before it builds.

@@ -3,7 +3,7 @@
 // parallel), a signed-in session and an API token for each, a revoked token,
 // and retrofits with revisions in every state made by the real generator.
 import { createHash, randomBytes } from "node:crypto";
-import { eq, inArray, or, sql } from "drizzle-orm";
+import { and, eq, inArray, or, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import {
   apiTokens,
@@ -165,6 +165,25 @@ export async function makeCapture(retrofitId: number | null, uploadedBy: number,
 
 /** Everything a request could have changed in this world's objects and by its
  *  users. Token last-use times are left out: reading them is not a change. */
+/**
+ * Waits until no revision of these retrofits is still building: an accepted
+ * generation answers 202 and its job finishes later on the worker, which
+ * would otherwise change rows between two fingerprints.
+ */
+async function buildsSettled(retrofitIds: number[], timeoutMs = 180_000): Promise<void> {
+  if (retrofitIds.length === 0) return;
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const [{ n }] = await db
+      .select({ n: sql<number>`count(*)`.mapWith(Number) })
+      .from(revisions)
+      .where(and(inArray(revisions.retrofitId, retrofitIds), eq(revisions.buildState, "building")));
+    if (n === 0) return;
+    if (Date.now() > until) throw new Error(`${n} revision(s) still building after ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
 export async function fingerprint(world: World): Promise<string> {
   const rfIds = world.retrofitIds;
   const uIds = world.userIds;
@@ -179,6 +198,7 @@ export async function fingerprint(world: World): Promise<string> {
     .where(or(inArray(retrofits.id, rfIds), inArray(retrofits.createdBy, uIds)))
     .orderBy(retrofits.id);
   const ids = rfs.map((r) => r.id);
+  await buildsSettled(ids);
   const stg = await db.select().from(stages).where(inArray(stages.retrofitId, ids)).orderBy(stages.id);
   const tgt = await db.select().from(targets).where(inArray(targets.retrofitId, ids)).orderBy(targets.id);
   const revs = await db

@@ -62,9 +62,9 @@ describe("one clock rule for the form and generation", () => {
     const row = planOne(
       analysis,
       {
-        device: "stm32g031",
-        clockSource: "hsi16",
-        clockHz: 16e6,
+        device: "msp430g2553",
+        clockSource: "dco-cal",
+        clockHz: 8e6,
         mode: null,
         timer: null,
         clockAccuracyPpm: null,
@@ -78,6 +78,8 @@ describe("one clock rule for the form and generation", () => {
     expect(row.ok).toBe(false);
     expect(row.ok ? null : row.field).toBe("start");
     expect(buildRefusal({ device: "atmega328p", start: "trigger" })).toBeNull();
-    expect(buildRefusal({ device: "stm32g031", start: "free" })).toBeNull();
+    expect(buildRefusal({ device: "stm32g031", start: "trigger" })).toBeNull();
+    expect(buildRefusal({ device: "msp430g2553", start: "free" })).toBeNull();
+    expect(buildRefusal({ device: "pic12f1840", start: "zero-cross" })?.field).toBe("start");
   });
 });
