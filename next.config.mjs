@@ -7,9 +7,9 @@ const securityHeaders = [
   { key: "Permissions-Policy", value: "camera=(), microphone=(), geolocation=()" },
 ];
 
-// proxy.ts runs on every path, uploads included, and the framework buffers a
-// request body for it up to proxyClientMaxBodySize (10 MB by default), cutting
-// the rest. Above the capture limit the upload route answers 413 itself.
+// The framework buffers a request body for proxy.ts up to proxyClientMaxBodySize
+// (10 MB by default) and cuts the rest. The capture upload is outside the
+// proxy's matcher; this bound keeps any other large body whole up to the limit.
 const CAPTURE_MAX_BYTES = Number(process.env.CAPTURE_MAX_BYTES ?? 64 * 1024 * 1024);
 
 /** @type {import('next').NextConfig} */
