@@ -46,7 +46,13 @@ export function FileDiff(props: {
   // A jump from the file index (or a shared link) opens the section it lands on.
   useEffect(() => {
     const follow = () => {
-      if (window.location.hash === `#${anchor}`) setOpen(true);
+      if (window.location.hash !== `#${anchor}`) return;
+      setOpen(true);
+      // The browser scrolled while the section was still closed: near the end of
+      // the page it could not reach the top. Scroll again once it is open.
+      requestAnimationFrame(() =>
+        requestAnimationFrame(() => document.getElementById(anchor)?.scrollIntoView({ block: "start" })),
+      );
     };
     follow();
     window.addEventListener("hashchange", follow);
