@@ -19,7 +19,7 @@ import { servicePinsOf } from "./service-pins";
 import type { BundleFile, BundlePlan, BundleSpec, BundleTargetRequest, StageAnalysis } from "./types";
 
 /** Devices whose templates make triggered and zero-cross firmware, with the view their template reads as `trigger` (the set itself is TRIGGER_DEVICES in buildable.ts, shared with the live plans). */
-const TRIGGER_VIEWS: Record<string, (plan: BundlePlan) => unknown> = {
+export const TRIGGER_VIEWS: Record<string, (plan: BundlePlan) => unknown> = {
   atmega328p: avrTriggerView,
   attiny85: avrTriggerView,
   rp2040: rp2040TriggerView,

@@ -4,6 +4,8 @@
 import { describe, expect, it } from "vitest";
 import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { isEngineError } from "@/lib/engine";
+import { TRIGGER_VIEWS } from "@/lib/bundle/build";
+import { TRIGGER_DEVICES } from "@/lib/bundle/buildable";
 
 const stage = { kind: "timer555-monostable", r: 10e3, c: 1e-6 } as const;
 
@@ -58,5 +60,14 @@ describe("bundle and triggered plans", () => {
       targets: [{ device: "atmega328p", clockHz: 16e6, periodS: 0.01, highS: 1e-4 }],
     });
     expect(files.some((f) => f.path === "atmega328p/src/main.c")).toBe(true);
+  });
+});
+
+// The trigger device set is written twice on purpose: buildable.ts (no
+// template imports, read by the browser's live plans) and build.ts's views.
+// Both must name the same devices, or live plans and generation disagree.
+describe("trigger device lists", () => {
+  it("TRIGGER_DEVICES (live plans) names exactly the devices TRIGGER_VIEWS (generation) renders", () => {
+    expect([...TRIGGER_DEVICES].sort()).toEqual(Object.keys(TRIGGER_VIEWS).sort());
   });
 });
