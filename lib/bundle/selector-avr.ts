@@ -35,19 +35,54 @@ const TIMER1_CS: Record<number, string> = {
   1024: "(1 << CS12) | (1 << CS10)",
 };
 
-export function atmega328pSelectorWiring(
+type SelectorPin = { readonly bit: number; readonly packagePin: number };
+type WiringLine = { role: string; pin: string; packagePin: number };
+
+/** One pin-map line per position (contact to a pulled-up pin) and the common contact to ground. */
+function selectorWiring(
   table: SelectorTable,
   valueText: (v: number) => string,
-): { role: string; pin: string; packagePin: number }[] {
-  const pins = ATMEGA328P_SELECTOR_PINS.slice(0, table.positions.length);
+  port: string,
+  pinList: readonly SelectorPin[],
+  groundPackagePin: number,
+): WiringLine[] {
+  const pins = pinList.slice(0, table.positions.length);
   return [
     ...table.positions.map((p, i) => ({
       role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up`,
-      pin: `PD${pins[i].bit}`,
+      pin: `${port}${pins[i].bit}`,
       packagePin: pins[i].packagePin,
     })),
-    { role: "switch common contact to ground", pin: "GND", packagePin: 8 },
+    { role: "switch common contact to ground", pin: "GND", packagePin: groundPackagePin },
   ];
+}
+
+/** Template fields both AVR selector templates share: the input mask and TOP/OCR per position. */
+function selectorFields(table: SelectorTable, pinList: readonly SelectorPin[], startIndex: number) {
+  const pins = pinList.slice(0, table.positions.length);
+  return {
+    debounceMs: SELECTOR_DEBOUNCE_MS,
+    startIndex,
+    noContactRule: table.noContactRule,
+    mask: `0x${pins
+      .reduce((m, p) => m | (1 << p.bit), 0)
+      .toString(16)
+      .toUpperCase()
+      .padStart(2, "0")}`,
+    positions: table.positions.map((p, i) => ({
+      position: p.position,
+      bit: pins[i].bit,
+      top: p.periodCounts - 1,
+      ocr: p.highCounts - 1,
+    })),
+  };
+}
+
+export function atmega328pSelectorWiring(
+  table: SelectorTable,
+  valueText: (v: number) => string,
+): WiringLine[] {
+  return selectorWiring(table, valueText, "PD", ATMEGA328P_SELECTOR_PINS, 8);
 }
 
 export function renderAtmega328pSelector({
@@ -71,27 +106,13 @@ export function renderAtmega328pSelector({
   if (plan.pin.port.startsWith("PD")) throw new Error(`targets: ${plan.pin.port} is a selector input.`);
   const cs = TIMER1_CS[plan.divider];
   if (!cs) throw new Error(`divider ${plan.divider} is not a Timer1 clock select.`);
-  const pins = ATMEGA328P_SELECTOR_PINS.slice(0, n);
   return render("atmega328p/selector.c.hbs", {
     deviceName: "ATmega328P",
     controlText,
     clockHz: plan.clockHz,
     divider: plan.divider,
     csExpr: cs,
-    debounceMs: SELECTOR_DEBOUNCE_MS,
-    startIndex,
-    noContactRule: table.noContactRule,
-    mask: `0x${pins
-      .reduce((m, p) => m | (1 << p.bit), 0)
-      .toString(16)
-      .toUpperCase()
-      .padStart(2, "0")}`,
-    positions: table.positions.map((p, i) => ({
-      position: p.position,
-      bit: pins[i].bit,
-      top: p.periodCounts - 1,
-      ocr: p.highCounts - 1,
-    })),
+    ...selectorFields(table, ATMEGA328P_SELECTOR_PINS, startIndex),
   });
 }
 
@@ -108,19 +129,8 @@ const ATTINY85_SELECTOR_PINS = [
   { bit: 4, packagePin: 3 },
 ] as const;
 
-export function attiny85SelectorWiring(
-  table: SelectorTable,
-  valueText: (v: number) => string,
-): { role: string; pin: string; packagePin: number }[] {
-  const pins = ATTINY85_SELECTOR_PINS.slice(0, table.positions.length);
-  return [
-    ...table.positions.map((p, i) => ({
-      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up`,
-      pin: `PB${pins[i].bit}`,
-      packagePin: pins[i].packagePin,
-    })),
-    { role: "switch common contact to ground", pin: "GND", packagePin: 4 },
-  ];
+export function attiny85SelectorWiring(table: SelectorTable, valueText: (v: number) => string): WiringLine[] {
+  return selectorWiring(table, valueText, "PB", ATTINY85_SELECTOR_PINS, 4);
 }
 
 export function renderAttiny85Selector({
@@ -143,7 +153,6 @@ export function renderAttiny85Selector({
   if (plan.pin.port !== "PB1") throw new Error("targets: the ATtiny85 selector firmware drives OC0B on PB1.");
   for (const p of table.positions)
     if (p.periodCounts > 256) throw new Error(`control: position ${p.position} needs more than 256 counts.`);
-  const pins = ATTINY85_SELECTOR_PINS.slice(0, n);
   return render("attiny85/selector.c.hbs", {
     deviceName: "ATtiny85",
     controlText,
@@ -151,19 +160,6 @@ export function renderAttiny85Selector({
     divider: plan.divider,
     tccr0a: plan.registers.TCCR0A,
     tccr0b: plan.registers.TCCR0B,
-    debounceMs: SELECTOR_DEBOUNCE_MS,
-    startIndex,
-    noContactRule: table.noContactRule,
-    mask: `0x${pins
-      .reduce((m, p) => m | (1 << p.bit), 0)
-      .toString(16)
-      .toUpperCase()
-      .padStart(2, "0")}`,
-    positions: table.positions.map((p, i) => ({
-      position: p.position,
-      bit: pins[i].bit,
-      top: p.periodCounts - 1,
-      ocr: p.highCounts - 1,
-    })),
+    ...selectorFields(table, ATTINY85_SELECTOR_PINS, startIndex),
   });
 }
