@@ -16,7 +16,7 @@ import { STAGE_KINDS } from "@/lib/engine";
 import { fetchJson } from "@/lib/client/fetch-json";
 import type { RetrofitListItem } from "@/lib/retrofits/list";
 import { STATE_WORDS } from "@/lib/review/words";
-import { StateBadge } from "./state-badge";
+import { StateBadge } from "@/components/review/state-badge";
 
 type ListResponse = {
   items: RetrofitListItem[];

@@ -4,7 +4,7 @@
 import Link from "next/link";
 import type { RevisionState } from "@/db/schema";
 import { BUILD_STATE_WORDS, type BuildState } from "@/lib/revisions/build-state";
-import { StateBadge } from "./state-badge";
+import { StateBadge } from "@/components/review/state-badge";
 
 export type RevisionListItem = {
   id: number;

@@ -1,7 +1,8 @@
 import type { RevisionState } from "@/db/schema";
 import { STATE_WORDS } from "@/lib/review/words";
 
-// Words carry the state; the colour only repeats it.
+// Revision state as words; the colour only repeats them. One badge for every
+// page that names a revision state.
 const STYLE: Record<RevisionState, string> = {
   prepared: "border-paper-line bg-paper-sunk text-ink-soft",
   awaiting_check: "border-accent bg-accent-soft text-accent-strong",

@@ -4,7 +4,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { BuildProgress } from "@/components/retrofit/build-progress";
-import { StateBadge } from "@/components/retrofit/state-badge";
+import { StateBadge } from "@/components/review/state-badge";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { pageUser } from "@/lib/auth/page";
 import { ANY, READ_ALL, REVIEW_VIEW } from "@/lib/auth/roles";
