@@ -4,7 +4,9 @@
 // programmer avrdude knows works with PROGRAMMER=...).
 import { listDevices } from "@/lib/engine";
 import { avrFuses, type AvrFuses } from "./avr-fuses";
+import type { DeviceView, RegisterWrite } from "./device-view";
 import { hex } from "./format";
+import { avrPin } from "./pins";
 import type { BundlePlan } from "./types";
 
 export interface AvrClockView {
@@ -34,4 +36,28 @@ export function avrClockView(plan: BundlePlan): AvrClockView {
     `Another programmer: replace -c usbasp (e.g. -c avrispmkII, -c stk500v1 -P /dev/ttyUSB0 -b 19200).`,
   ];
   return { fuses, clockLabel: option?.label ?? source, calibratedRc, flashing };
+}
+
+/** The device view both AVR devices build from a timer's register writes: pin, clock and fuse facts, ISR vector. */
+export function avrDeviceView(
+  plan: BundlePlan,
+  writes: RegisterWrite[],
+  isrVector: string | null,
+): DeviceView {
+  const pin = avrPin(plan);
+  const clock = avrClockView(plan);
+  return {
+    writes,
+    pin,
+    flashing: clock.flashing,
+    extra: {
+      fuses: clock.fuses,
+      clockLabel: clock.clockLabel,
+      calibratedRc: clock.calibratedRc,
+      isr: isrVector !== null,
+      isrVector,
+      portLetter: pin.port.charAt(1),
+      portBit: Number(pin.port.slice(2)),
+    },
+  };
 }

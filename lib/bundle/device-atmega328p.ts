@@ -4,8 +4,7 @@
 import { EngineError } from "@/lib/engine/errors";
 import { avrTimer8 } from "./avr-timer8";
 import { bits, intRange, unsupported, write, type DeviceView, type RegisterWrite } from "./device-view";
-import { avrClockView } from "./avr-clock-view";
-import { avrPin } from "./pins";
+import { avrDeviceView } from "./avr-clock-view";
 import type { BundlePlan } from "./types";
 
 const CS01: Record<number, number> = { 1: 1, 8: 2, 64: 3, 256: 4, 1024: 5 };
@@ -95,20 +94,5 @@ export function atmega328pView(plan: BundlePlan): DeviceView {
           ? avrTimer8(plan, { n: 2, cs: CS2, timsk: "TIMSK2", ocieBit: 1 })
           : null;
   if (!r) throw new EngineError("unknown-timer", `atmega328p: no timer ${plan.timer}`);
-  const pin = avrPin(plan);
-  const clock = avrClockView(plan);
-  return {
-    writes: r.writes,
-    pin,
-    flashing: clock.flashing,
-    extra: {
-      fuses: clock.fuses,
-      clockLabel: clock.clockLabel,
-      calibratedRc: clock.calibratedRc,
-      isr: r.isrVector !== null,
-      isrVector: r.isrVector,
-      portLetter: pin.port.charAt(1),
-      portBit: Number(pin.port.slice(2)),
-    },
-  };
+  return avrDeviceView(plan, r.writes, r.isrVector);
 }

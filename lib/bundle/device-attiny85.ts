@@ -4,8 +4,7 @@
 import { EngineError } from "@/lib/engine/errors";
 import { bits, intRange, unsupported, write, type DeviceView, type RegisterWrite } from "./device-view";
 import { avrTimer8 } from "./avr-timer8";
-import { avrClockView } from "./avr-clock-view";
-import { avrPin } from "./pins";
+import { avrDeviceView } from "./avr-clock-view";
 import type { BundlePlan } from "./types";
 
 const CS0: Record<number, number> = { 1: 1, 8: 2, 64: 3, 256: 4, 1024: 5 };
@@ -83,20 +82,5 @@ export function attiny85View(plan: BundlePlan): DeviceView {
   const t = plan.timer.toUpperCase();
   const r = t === "TIMER0" ? timer0(plan) : t === "TIMER1" ? timer1(plan) : null;
   if (!r) throw new EngineError("unknown-timer", `attiny85: no timer ${plan.timer}`);
-  const pin = avrPin(plan);
-  const clock = avrClockView(plan);
-  return {
-    writes: r.writes,
-    pin,
-    flashing: clock.flashing,
-    extra: {
-      fuses: clock.fuses,
-      clockLabel: clock.clockLabel,
-      calibratedRc: clock.calibratedRc,
-      isr: r.isr !== null,
-      isrVector: r.isr,
-      portLetter: pin.port.charAt(1),
-      portBit: Number(pin.port.slice(2)),
-    },
-  };
+  return avrDeviceView(plan, r.writes, r.isr);
 }
