@@ -81,3 +81,25 @@ describe("sign-in and roles", () => {
     expect(res.headers.get("location")).toMatch(/\/sign-in/);
   });
 });
+
+// After an invitation is accepted the set-password form sends the new user to
+// /sign-in?email=...&welcome=1 (app/(auth)/invite/[token]/set-password-form.tsx).
+describe("sign-in page after an accepted invitation", () => {
+  it("confirms the account and fills the e-mail it was given", async () => {
+    const res = await new Session().fetch("/sign-in?email=new.tech%40example.test&welcome=1");
+    const html = await res.text();
+    expect(res.status).toBe(200);
+    expect(html).toContain('data-testid="invitation-accepted"');
+    expect(html).toContain("Sign in with new.tech@example.test");
+    expect(html).toMatch(/<input[^>]*name="email"[^>]*value="new.tech@example.test"/);
+  });
+
+  it("shows no confirmation and fills nothing for a missing or malformed e-mail", async () => {
+    for (const q of ["?welcome=1", "?email=%3Cscript%3E&welcome=1", "?email=a%20b%40c&welcome=1"]) {
+      const html = await (await new Session().fetch(`/sign-in${q}`)).text();
+      expect(html, q).not.toContain('data-testid="invitation-accepted"');
+      expect(html, q).not.toContain("<script>");
+      expect(html, q).not.toMatch(/<input[^>]*name="email"[^>]*value="[^"]+"/);
+    }
+  });
+});

@@ -4,7 +4,7 @@ import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 
-export function SignInForm() {
+export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -34,7 +34,15 @@ export function SignInForm() {
         <label htmlFor="email" className="field-label">
           E-mail
         </label>
-        <input id="email" name="email" type="email" autoComplete="username" required className="input" />
+        <input
+          id="email"
+          name="email"
+          type="email"
+          autoComplete="username"
+          defaultValue={initialEmail}
+          required
+          className="input"
+        />
       </div>
       <div>
         <label htmlFor="password" className="field-label">
@@ -45,6 +53,7 @@ export function SignInForm() {
           name="password"
           type="password"
           autoComplete="current-password"
+          autoFocus={initialEmail !== ""}
           required
           className="input"
         />
