@@ -12,6 +12,7 @@ import type { BuildStatus } from "@/lib/revisions/build-state";
 import { AnalysisPanel } from "./analysis-panel";
 import { toForm, workspaceSchema, type WorkspaceForm, type WorkspaceOut } from "./form-values";
 import { useLive } from "./live";
+import { useUnsavedGuard } from "./use-unsaved-guard";
 import { PlansTable } from "./plans-table";
 import { StageFields } from "./stage-fields";
 import { TargetsFields } from "./targets-fields";
@@ -43,6 +44,7 @@ export function WorkspaceEditor(props: {
   const live = useLive(values);
   const [phase, setPhase] = useState<Phase>({ kind: "idle" });
   const busy = phase.kind === "saving" || phase.kind === "generating" || phase.kind === "building";
+  useUnsavedGuard(props.editable && form.formState.isDirty);
 
   function showServerError(e: unknown) {
     const fields = e instanceof ClientApiError ? e.fields : undefined;
@@ -61,6 +63,8 @@ export function WorkspaceEditor(props: {
             method: "PATCH",
             body: JSON.stringify({ stage: out.stage, control: out.control ?? null, targets: out.targets }),
           });
+          // What is stored now is the new baseline: leaving no longer asks.
+          form.reset(form.getValues());
           if (!then) {
             setPhase({ kind: "saved" });
             props.onChanged();

@@ -13,6 +13,8 @@ import { analyzeStage, formatEng, type UjtStage } from "@/lib/engine";
 import { launch, signInAs } from "../helpers/browser";
 import { BASE_URL } from "../helpers/server";
 import { makeUser, TEST_PASSWORD } from "../helpers/users";
+import { makeRetrofit } from "../integration/field/fixtures";
+import { UNSAVED_QUESTION } from "@/components/retrofit/use-unsaved-guard";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -127,6 +129,50 @@ describe("retrofit workspace in the browser", () => {
     expect(res?.status()).toBe(404);
     await expect.poll(() => t.page.getByTestId("bundle-sha256").count()).toBe(0);
     await t.context.close();
+  });
+
+  it("unsaved edits ask before an in-app link leaves the workspace; after Save nothing asks", async () => {
+    const eng = await makeUser("engineer");
+    const retrofit = await makeRetrofit({ createdBy: eng.id });
+    const { context, page } = await signInAs(browser, eng.email, TEST_PASSWORD);
+    page.setDefaultTimeout(60_000);
+    const asked: string[] = [];
+    let answer = false;
+    page.on("dialog", (d) => {
+      asked.push(d.message());
+      void (answer ? d.accept() : d.dismiss());
+    });
+    const url = `/retrofits/${retrofit.id}`;
+    await page.goto(url);
+    const nav = page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Reviews" });
+
+    // Nothing edited: the link leaves without a question.
+    await nav.click();
+    await page.waitForURL(/\/reviews$/);
+    expect(asked).toEqual([]);
+
+    await page.goto(url);
+    await new Workspace(page).field("Period (s)").fill("12m");
+    await nav.click(); // dismissed: still here, the edit kept
+    await expect.poll(() => asked.length).toBe(1);
+    expect(asked[0]).toBe(UNSAVED_QUESTION);
+    expect(new URL(page.url()).pathname).toBe(url);
+    expect(await new Workspace(page).field("Period (s)").inputValue()).toBe("12m");
+
+    await page.getByRole("button", { name: "Save" }).click();
+    await page.getByText("Saved.").waitFor();
+    await nav.click();
+    await page.waitForURL(/\/reviews$/);
+    expect(asked).toHaveLength(1);
+
+    // Accepting the question leaves and drops the edit.
+    await page.goto(url);
+    await new Workspace(page).field("Period (s)").fill("14m");
+    answer = true;
+    await nav.click();
+    await page.waitForURL(/\/reviews$/);
+    expect(asked).toHaveLength(2);
+    await context.close();
   });
 
   it("API tokens: empty name refused, a new token shown once and usable, then revoked", async () => {
