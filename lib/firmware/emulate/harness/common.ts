@@ -73,8 +73,9 @@ export async function withTempFiles<T>(
   }
 }
 
+/** Seconds in the unit that keeps them readable; a hair under a unit boundary (float error) counts as above it. */
 const fmt = (s: number) => {
-  const a = Math.abs(s);
+  const a = Math.abs(s) * (1 + 1e-9);
   if (a >= 1) return `${s.toPrecision(7)} s`;
   if (a >= 1e-3) return `${(s * 1e3).toPrecision(7)} ms`;
   if (a >= 1e-6) return `${(s * 1e6).toPrecision(7)} us`;
