@@ -27,7 +27,7 @@ import {
   registersAtAsync,
   tracePinAsync,
 } from "./harness/gpsim";
-import { systemClockHz } from "./harness/pic12f1840-tables";
+import { decodeConfig2, systemClockHz } from "./harness/pic12f1840-tables";
 
 const KINDS = ["periodic"] as const;
 /** Instruction cycles before the set-up is read: past the oscillator wait and Timer2's first period. */
@@ -66,6 +66,18 @@ export const emulatePic12f1840: DeviceEmulator = async (input: EmulationInput): 
       const { config1, config2 } = configWords(`${dir}/${IMAGE}`);
       const board = defineValue(textOf(input, "src/timing.h"), "_XTAL_FREQ") ?? 0;
       const hz = systemClockHz(config1, config2, regs.OSCCON, board);
+      // gpsim 0.31 never sets MFIOFR or PLLR (OSCSTAT reads 0x39): an image waiting for them never starts there.
+      const ircf = (regs.OSCCON >> 3) & 15;
+      if (ircf >= 2 && ircf <= 4)
+        return notEmulated(
+          "This image runs from MFINTOSC (62.5 or 31.25 kHz); gpsim 0.31 never reports it ready, so nothing was measured.",
+          tool,
+        );
+      if ((regs.OSCCON & 0x80) !== 0 || decodeConfig2(config2).pllen)
+        return notEmulated(
+          "This image runs through the 4x PLL; gpsim 0.31 never reports PLLR, so nothing was measured.",
+          tool,
+        );
       if (!(hz > 0)) return differsWithout("The image's oscillator set-up gives no known clock.", tool);
       const tcy = 4 / hz;
       const clock = `${hz} Hz from CONFIG1 0x${config1.toString(16)} and OSCCON 0x${regs.OSCCON.toString(16)}`;
