@@ -121,4 +121,11 @@ describe("MSP430G2553 wrapper: not emulated, never faked", () => {
     expect(r.verdict).toBe("not-emulated");
     expect(r.reason).toMatch(/periodic plans only/);
   });
+  it("a run past the wall-clock budget is stopped and not judged", async () => {
+    const { input } = await targetImage(PWM);
+    const r = await emulateMsp430g2553({ ...input, timeoutMs: 5 });
+    expect(r.verdict).toBe("not-emulated");
+    expect(r.reason).toMatch(/The simulator run did not finish: the .* run took longer than \d+ ms/);
+    expect(r.periodS).toBeUndefined();
+  });
 });

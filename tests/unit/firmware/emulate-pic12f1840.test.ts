@@ -124,4 +124,11 @@ describe("PIC12F1840 wrapper: not emulated, never faked", () => {
     const r = await emulatePic12f1840({ ...input, kind: "triggered" });
     expect(r.verdict).toBe("not-emulated");
   });
+  it("a run past the wall-clock budget is stopped and not judged", async () => {
+    const { input } = await targetImage(PWM);
+    const r = await emulatePic12f1840({ ...input, timeoutMs: 5 });
+    expect(r.verdict).toBe("not-emulated");
+    expect(r.reason).toMatch(/The gpsim run did not finish: the .* run took longer than \d+ ms/);
+    expect(r.periodS).toBeUndefined();
+  });
 });
