@@ -1,20 +1,13 @@
 // Build a generated PIC12F1840 folder with its own Makefile (gpasm, Debian
-// gputils) and run the image in gpsim (Debian gpsim 0.31, processor
-// p12f1840) in command mode. What gpsim 0.31 shows and what it lacks was
-// tried on this machine:
-// - the CCP1 PWM output is driven onto RA2 and reads back through PORTA;
-// - cycle counts are instruction cycles (Fosc/4); gpsim does not derive time
-//   from OSCCON, so the clock is decoded from the registers by the tests;
-// - OSCSTAT reads 0x39 whatever is selected: HFIOFR is set, but MFIOFR and
-//   PLLR never are, so an image that waits for those (62.5/31.25 kHz, 4x PLL)
-//   cannot get past its wait here and is checked from registers instead;
-// - a `break c N` that falls inside a two-cycle instruction never fires, so
-//   the pin is sampled with `step` (one instruction, at most two cycles).
+// gputils) for the tests; the gpsim runner lives with the product's emulator
+// wrapper (lib/firmware/emulate/harness/gpsim.ts) and is re-exported here.
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import type { BundleFile } from "@/lib/bundle";
 import { writeFolder } from "./files";
-import { mustRun, requireTool, run } from "./require-tool";
+import { mustRun, requireTool } from "./require-tool";
+
+export * from "@/lib/firmware/emulate/harness/gpsim";
 
 /** Writes the folder, optionally edits src/main.asm (planted faults), runs `make`; returns the folder. */
 export function buildPic(files: BundleFile[], folder: string, edit?: (asm: string) => string): string {
@@ -29,157 +22,4 @@ export function buildPic(files: BundleFile[], folder: string, edit?: (asm: strin
   }
   mustRun("make", ["-s", "-C", dir], dir);
   return dir;
-}
-
-function gpsim(dir: string, commands: string[]): string {
-  requireTool("gpsim", "gpsim");
-  const script = path.join(dir, "run.stc");
-  // Loading the .cod file gives gpsim the symbols; `quit` ends command mode.
-  writeFileSync(
-    script,
-    ["processor p12f1840", "load build/firmware.cod", ...commands, "quit", ""].join("\n"),
-  );
-  // stdin closed: without a command on it gpsim would wait for one. Output to
-  // a file: a long pin trace is more than a pipe buffer holds.
-  const r = run("sh", ["-c", "gpsim -i -c run.stc </dev/null >run.out 2>&1"], dir, 120_000);
-  const out = readFileSync(path.join(dir, "run.out"), "utf8");
-  if (r.status !== 0) throw new Error(`gpsim failed (${r.status}):\n${out.slice(-4000)}`);
-  return out;
-}
-
-export interface PinSample {
-  cycle: number;
-  level: 0 | 1;
-}
-
-/**
- * A voltage on one RA pin through gpsim's module library (libgpsim_modules,
- * "pullup": a source of `volts` behind 100 ohm), for the ADC: gpsim 0.31
- * converts the pin voltage against VDD (5 V) when the pin is analog.
- */
-export function analogSource(pin: string, volts: number): string[] {
-  return [
-    "module library libgpsim_modules",
-    "module load pullup wiper_src",
-    `wiper_src.voltage = ${volts}`,
-    "wiper_src.resistance = 100",
-    "node wiper_node",
-    `attach wiper_node wiper_src.pin ${pin.toLowerCase()}`,
-  ];
-}
-
-/** Runs to `fromCycle`, then samples RA<bit> after each of `steps` instructions; `setup` runs first (stimuli). */
-export function tracePin(
-  dir: string,
-  bit: number,
-  fromCycle: number,
-  steps: number,
-  setup: string[] = [],
-): PinSample[] {
-  const cmds = [...setup, `break c ${fromCycle}`, "run"];
-  for (let i = 0; i < steps; i++) cmds.push("step", "cycles", "porta");
-  const out = gpsim(dir, cmds);
-  const samples: PinSample[] = [];
-  const re = /(\d+) = 0x[0-9A-Fa-f]+\s*\n\s*porta = 0x([0-9A-Fa-f]+)/g;
-  for (let m = re.exec(out); m; m = re.exec(out)) {
-    samples.push({ cycle: Number(m[1]), level: (Number.parseInt(m[2], 16) >> bit) & 1 ? 1 : 0 });
-  }
-  if (samples.length < steps)
-    throw new Error(
-      `gpsim gave ${samples.length} of ${steps} samples; did the run reach cycle ${fromCycle}?`,
-    );
-  return samples;
-}
-
-/** One write to LATA logged by gpsim: instruction cycle and the value written. */
-export interface LatchWrite {
-  cycle: number;
-  value: number;
-}
-
-/** Runs `cycles` instruction cycles logging every write to LATA (gpsim `log w`). */
-export function latchWrites(dir: string, cycles: number): LatchWrite[] {
-  const log = path.join(dir, "lata.log");
-  gpsim(dir, [`log on ${log}`, "log w lata", `break c ${cycles}`, "run", "log off"]);
-  const text = readFileSync(log, "utf8");
-  const got: LatchWrite[] = [];
-  const re = /^0x([0-9A-Fa-f]+) p12f1840 .*movwf\s+lata[\s\S]*?Wrote: 0x([0-9A-Fa-f]+) to lata/gm;
-  for (let m = re.exec(text); m; m = re.exec(text)) {
-    got.push({ cycle: Number.parseInt(m[1], 16), value: Number.parseInt(m[2], 16) });
-  }
-  return got;
-}
-
-/** Register values (gpsim's lower-case symbols) after running `cycles` instruction cycles; `setup` runs first. */
-export function registersAt(
-  dir: string,
-  cycles: number,
-  names: string[],
-  setup: string[] = [],
-): Record<string, number> {
-  const out = gpsim(dir, [...setup, `break c ${cycles}`, "run", ...names.map((n) => n.toLowerCase())]);
-  const regs: Record<string, number> = {};
-  for (const n of names) {
-    const m = new RegExp(`\\b${n.toLowerCase()} = 0x([0-9A-Fa-f]+)`).exec(out);
-    if (!m) throw new Error(`gpsim printed no value for ${n}:\n${out.slice(-2000)}`);
-    regs[n] = Number.parseInt(m[1], 16);
-  }
-  return regs;
-}
-
-export interface PinTiming {
-  /** Mean period over the whole rising-to-rising periods seen, instruction cycles. */
-  periodCycles: number;
-  /** Mean high time over the same periods, instruction cycles. */
-  highCycles: number;
-  periods: number;
-}
-
-/** Period and high time from a sampled trace; null when the pin does not toggle twice. */
-export function pinTiming(samples: PinSample[]): PinTiming | null {
-  const rises: number[] = [];
-  const falls: number[] = [];
-  for (let i = 1; i < samples.length; i++) {
-    const a = samples[i - 1];
-    const b = samples[i];
-    if (a.level === 0 && b.level === 1) rises.push(b.cycle);
-    if (a.level === 1 && b.level === 0 && rises.length > 0) falls.push(b.cycle);
-  }
-  if (rises.length < 2 || falls.length < 1) return null;
-  const periods = rises.length - 1;
-  let high = 0;
-  let n = 0;
-  for (let k = 0; k < periods; k++) {
-    const f = falls.find((x) => x > rises[k] && x < rises[k + 1]);
-    if (f !== undefined) {
-      high += f - rises[k];
-      n++;
-    }
-  }
-  return { periodCycles: (rises[periods] - rises[0]) / periods, highCycles: n ? high / n : 0, periods };
-}
-
-/** Configuration words CONFIG1/CONFIG2 at word addresses 0x8007/0x8008 of an Intel HEX image. */
-export function configWords(hexPath: string): { config1: number; config2: number } {
-  const bytes = new Map<number, number>();
-  let base = 0;
-  for (const line of readFileSync(hexPath, "utf8").split(/\r?\n/)) {
-    if (!line.startsWith(":")) continue;
-    const raw = Buffer.from(line.slice(1), "hex");
-    const sum = raw.reduce((s, b) => (s + b) & 0xff, 0);
-    if (sum !== 0) throw new Error(`bad checksum in ${line}`);
-    const len = raw[0];
-    const addr = (raw[1] << 8) | raw[2];
-    const type = raw[3];
-    if (type === 4) base = ((raw[4] << 8) | raw[5]) << 16;
-    if (type === 0) for (let i = 0; i < len; i++) bytes.set(base + addr + i, raw[4 + i]);
-  }
-  // Byte address = 2 x word address, low byte first (gpasm's inhx32 output).
-  const word = (w: number) => {
-    const lo = bytes.get(2 * w);
-    const hi = bytes.get(2 * w + 1);
-    if (lo === undefined || hi === undefined) throw new Error(`no word at 0x${w.toString(16)} in ${hexPath}`);
-    return (hi << 8) | lo;
-  };
-  return { config1: word(0x8007), config2: word(0x8008) };
 }

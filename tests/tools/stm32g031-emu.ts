@@ -1,16 +1,22 @@
 // Build a generated STM32G031 folder with its own Makefile (firmware.md build
-// contract: `make -C <folder>` into build/) and run the ELF in the
-// python3-unicorn harness ./stm32g031-emu.py (our own code; Debian
-// python3-unicorn under /usr/bin/python3).
+// contract: `make -C <folder>` into build/) for the tests, and run the ELF in
+// the python3-unicorn harness, which lives with the product's emulator
+// wrapper (lib/firmware/emulate/harness/stm32g031-emu.py, our own code;
+// Debian python3-unicorn under /usr/bin/python3).
 import { spawnSync } from "node:child_process";
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import type { BundleFile } from "@/lib/bundle";
+import {
+  STM32_PYTHON,
+  runStm32Sync,
+  type RunOptions,
+  type Stm32Run,
+} from "@/lib/firmware/emulate/harness/stm32g031-run";
 import { writeFolder } from "./files";
 import { mustRun, requireTool } from "./require-tool";
 
-const HARNESS = path.join(process.cwd(), "tests/tools/stm32g031-emu.py");
-const PYTHON = "/usr/bin/python3";
+export type { RunOptions, Stm32Run, Stm32Timer } from "@/lib/firmware/emulate/harness/stm32g031-run";
 
 export interface Stm32Build {
   dir: string;
@@ -19,78 +25,16 @@ export interface Stm32Build {
   hex: string;
 }
 
-export interface Stm32Timer {
-  CR1: number;
-  DIER: number;
-  SR: number;
-  CCMR1: number;
-  CCMR2: number;
-  CCER: number;
-  PSC: number;
-  ARR: number;
-  CCR1: number;
-  CCR2: number;
-  CCR3: number;
-  CCR4: number;
-  [reg: string]: number;
-}
-
-export interface Stm32Run {
-  idle: { pc: number; kind: string } | null;
-  steps: number;
-  error?: string;
-  stuck?: { pc: number; polled: string; reads: number; pending: string[] };
-  resetVector: number;
-  handler?: number;
-  isrCalls: { level: number; uifCleared: boolean }[];
-  sysclkHz: number | null;
-  rcc: { CR: number; CFGR: number; PLLCFGR: number; IOPENR: number; APBENR1: number };
-  flashAcr: number;
-  nvicIser: number;
-  timers: Record<"TIM2" | "TIM3", Stm32Timer>;
-  gpio: Record<"A" | "B" | "C", Record<string, number>>;
-  /** Triggered plans: one entry per edge raised on the EXTI line (tests/tools/stm32g031-emu.py). */
-  edgeCalls?: {
-    edge: "rising" | "falling";
-    called: boolean;
-    handler?: number;
-    error?: string;
-    /** the handler's writes: [register, value, ARMv6-M cycles spent before the write] */
-    writes?: [string, number, number][];
-    cycles?: number;
-    pendingAfter: boolean;
-    timers: Record<"TIM2" | "TIM3", { CR1: number; CNT: number }>;
-  }[];
-  exti?: { RTSR1: number; FTSR1: number; EXTICR1: number; IMR1: number };
-  vtor?: number;
-  /** Every peripheral write in order: [register name, value]. */
-  writes: [string, number][];
-  faults: string[];
-}
-
-export interface RunOptions {
-  package?: string;
-  /** Frequency of the clock fed into PC14-OSC_IN; omitted = nothing connected. */
-  extClockHz?: number;
-  maxInstructions?: number;
-  /** Interrupt plans: IRQ number (RM0444 vector table) and how many handler calls. */
-  isrIrq?: number;
-  isrCalls?: number;
-  pinPort?: string;
-  pinBit?: number;
-  /** Triggered plans: EXTI IRQ (RM0444 vector table), line, and the edges to raise in order. */
-  extiIrq?: number;
-  extiLine?: number;
-  edges?: ("rising" | "falling")[];
-}
-
+let unicornChecked = false;
 function requireUnicorn(): void {
-  requireTool(PYTHON, "python3");
-  const r = spawnSync(PYTHON, ["-c", "import unicorn"], { encoding: "utf8" });
+  if (unicornChecked) return;
+  requireTool(STM32_PYTHON, "python3");
+  const r = spawnSync(STM32_PYTHON, ["-c", "import unicorn"], { encoding: "utf8" });
   if (r.status !== 0)
     throw new Error(
       "python3-unicorn is missing: apt-get install -y python3-unicorn (scripts/test.sh installs it)",
     );
+  unicornChecked = true;
 }
 
 /** Writes the folder, optionally edits src/main.c (planted faults), runs `make -s -C`. */
@@ -116,8 +60,5 @@ export function buildStm32(
 
 export function runStm32(elf: string, opts: RunOptions = {}): Stm32Run {
   requireUnicorn();
-  const arg = JSON.stringify({ elf, package: "TSSOP-20", maxInstructions: 200_000, ...opts });
-  const r = spawnSync(PYTHON, [HARNESS, arg], { encoding: "utf8", timeout: 60_000, maxBuffer: 16 << 20 });
-  if (r.status !== 0) throw new Error(`stm32g031 harness failed (${r.status}): ${r.stderr}${r.stdout}`);
-  return JSON.parse(r.stdout) as Stm32Run;
+  return runStm32Sync(elf, opts);
 }

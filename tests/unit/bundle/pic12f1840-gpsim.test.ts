@@ -2,7 +2,7 @@
 // Makefile) runs in gpsim (Debian gpsim 0.31, processor p12f1840). Expected
 // values are the REQUESTED period and high time; the clock is decoded from
 // the image's configuration words and the OSCCON value gpsim ends with
-// (tests/tools/pic12f1840-tables.ts, DS40001441 Registers 4-1, 4-2, 5-1),
+// (lib/firmware/emulate/harness/pic12f1840-tables.ts, DS40001441 Registers 4-1, 4-2, 5-1),
 // because gpsim counts instruction cycles (Fosc/4) and does not model time.
 // Tolerance: half a timer count (firmware.md build contract) plus the
 // emulator's own step: the pin is sampled once per instruction, and the

@@ -3,7 +3,7 @@
 // words read back from the hex (word addresses 0x8007/0x8008) are checked
 // field by field against the datasheet's bit tables (PIC12(L)F1840,
 // DS40001441, Register 4-1 CONFIG1 and 4-2 CONFIG2, decoded independently
-// in tests/tools/pic12f1840-tables.ts), the OSCCON value against Register
+// in lib/firmware/emulate/harness/pic12f1840-tables.ts), the OSCCON value against Register
 // 5-1, bank selection against the data memory map, and the start-up order
 // against the CCP chapter's "Setup for PWM operation" steps.
 import { readFileSync } from "node:fs";

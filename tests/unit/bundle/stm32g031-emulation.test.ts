@@ -1,7 +1,7 @@
 // STM32G031 images proven by an instruction-level run: each bundle folder is
 // built with its own Makefile (arm-none-eabi-gcc, Debian), the ELF runs from
 // the reset vector in python3-unicorn with every peripheral access logged
-// (tests/tools/stm32g031-emu.py), and the final clock tree and timer
+// (lib/firmware/emulate/harness/stm32g031-emu.py), and the final clock tree and timer
 // registers must give the requested period and high time within half a timer
 // count (formulas from RM0444: counter clock f_TIM/(PSC+1), update every
 // ARR+1 counts, PWM mode 1 high while CNT < CCR1, toggle halves the rate).

@@ -13,7 +13,7 @@
 //   middle of a 16-count step, so either gives the same step);
 // - timing: DS40001441 CCP chapter, period = (PR2+1)*4*Tosc*prescale, the
 //   clock decoded from the image's configuration words and OSCCON
-//   (tests/tools/pic12f1840-tables.ts) because gpsim counts instruction cycles.
+//   (lib/firmware/emulate/harness/pic12f1840-tables.ts) because gpsim counts instruction cycles.
 // Tolerance: one timer count of the plan (the "within one count"), plus the
 // emulator's step (the pin is sampled once per instruction, at most two cycles).
 // Planted faults kept as cases: wrong channel (CHS = AN2 in ADCON0), wrong table entry.

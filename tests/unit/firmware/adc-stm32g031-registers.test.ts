@@ -1,5 +1,5 @@
 // STM32G031 kept rate pot, proven by registers: the emulator harness
-// (tests/tools/stm32g031-emu.py) has no ADC model (no ready, calibration or
+// (lib/firmware/emulate/harness/stm32g031-emu.py) has no ADC model (no ready, calibration or
 // conversion flags), so the generated set-up is read back from the source and
 // judged against RM0444's ADC chapter: ADC_CFGR2 CKMODE written while ADEN = 0,
 // regulator (ADVREGEN) on for tADCVREG_STUP (20 us, datasheet; from memory)

@@ -1,5 +1,5 @@
 // Triggered and zero-cross firmware on the STM32G031 (engine.md section 6),
-// checked in the python3-unicorn harness (tests/tools/stm32g031-emu.py). The
+// checked in the python3-unicorn harness (lib/firmware/emulate/harness/stm32g031-emu.py). The
 // harness has no counting timer and no pin timing, so this is proof by
 // registers and by the interrupt path: the image runs from reset to its idle
 // loop, then the harness raises the EXTI line as the EXTI would (pending only
