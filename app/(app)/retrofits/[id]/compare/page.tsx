@@ -7,6 +7,7 @@ import { retrofits } from "@/db/schema";
 import { FileDiff, type HighlightedRow } from "@/components/diff/file-diff";
 import { AnchorCommentForm } from "@/components/review/anchor-comment-form";
 import { CommentThread } from "@/components/review/comment-thread";
+import { CommentAnchorProvider } from "@/components/review/comment-anchor-context";
 import { revisionAnchors } from "@/lib/review/anchors";
 import { toThreadView } from "@/lib/review/thread-view";
 import { fileAnchor } from "@/lib/diff/anchor";
@@ -105,6 +106,9 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const comments = (await listThreads(b.id)).map(toThreadView);
   const boardThreads = comments.filter((c) => !c.filePath);
   const canComment = COMMENT_ROLES.includes(user.role);
+  const anchors = revisionAnchors(b);
+  // Rows get a Comment button only for people who may comment, and only for an anchor the newer revision has.
+  const anchorKeys = canComment ? anchors.map((x) => x.key) : undefined;
 
   const changed = filesReady ? cmp.files.filter((f) => f.status !== "unchanged") : [];
   const unchanged = filesReady ? cmp.files.filter((f) => f.status === "unchanged") : [];
@@ -161,34 +165,36 @@ export default async function ComparePage({ params, searchParams }: Props) {
         <UnbuiltNotice key={r.id} revision={r} />
       ))}
 
-      <section aria-labelledby="board-h">
-        <h2 id="board-h" className="mb-2 text-lg font-semibold">
-          What the board does
-        </h2>
-        <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} />
-      </section>
+      <CommentAnchorProvider>
+        <section aria-labelledby="board-h">
+          <h2 id="board-h" className="mb-2 text-lg font-semibold">
+            What the board does
+          </h2>
+          <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
 
-      <section aria-labelledby="registers-h">
-        <h2 id="registers-h" className="mb-2 text-lg font-semibold">
-          Registers the firmware writes
-        </h2>
-        <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} />
-      </section>
+        <section aria-labelledby="registers-h">
+          <h2 id="registers-h" className="mb-2 text-lg font-semibold">
+            Registers the firmware writes
+          </h2>
+          <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
 
-      <section aria-labelledby="board-comments-h" className="space-y-2">
-        <h2 id="board-comments-h" className="text-lg font-semibold">
-          Comments on timing and registers ({boardThreads.length})
-        </h2>
-        {boardThreads.length === 0 && (
-          <p className="text-sm text-ink-soft">
-            None yet. Pick a quantity or register below to comment on it.
-          </p>
-        )}
-        {boardThreads.map((t) => (
-          <CommentThread key={t.id} thread={t} revisionId={b.id} canComment={canComment} />
-        ))}
-        {canComment && <AnchorCommentForm revisionId={b.id} anchors={revisionAnchors(b)} />}
-      </section>
+        <section aria-labelledby="board-comments-h" className="space-y-2">
+          <h2 id="board-comments-h" className="text-lg font-semibold">
+            Comments on timing and registers ({boardThreads.length})
+          </h2>
+          {boardThreads.length === 0 && (
+            <p className="text-sm text-ink-soft">
+              None yet. Use a row&apos;s Comment button above, or pick a quantity or register below.
+            </p>
+          )}
+          {boardThreads.map((t) => (
+            <CommentThread key={t.id} thread={t} revisionId={b.id} canComment={canComment} />
+          ))}
+          {canComment && <AnchorCommentForm revisionId={b.id} anchors={anchors} />}
+        </section>
+      </CommentAnchorProvider>
 
       <section aria-labelledby="numbers-h">
         <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
