@@ -1,9 +1,24 @@
+import { CommentRowButton } from "@/components/review/comment-row-button";
 import type { BoardTarget } from "@/lib/diff/board";
 
 const VERDICT = { meets: "meets the tolerance", misses: "misses the tolerance" } as const;
 
-/** What the board does, old vs new, one small table per target; shown first on the compare page. */
-export function BoardTable({ targets, a, b }: { targets: BoardTarget[]; a: number; b: number }) {
+/**
+ * What the board does, old vs new, one small table per target; shown first on
+ * the compare page. `anchorKeys`: the newer revision's comment anchors; a row
+ * whose quantity is one of them gets a "Comment" button.
+ */
+export function BoardTable({
+  targets,
+  a,
+  b,
+  anchorKeys,
+}: {
+  targets: BoardTarget[];
+  a: number;
+  b: number;
+  anchorKeys?: string[];
+}) {
   if (targets.length === 0)
     return <p className="panel text-ink-soft">No target planned in either revision.</p>;
   const old = a === 0 ? "before" : `r${a}`;
@@ -33,6 +48,11 @@ export function BoardTable({ targets, a, b }: { targets: BoardTarget[]; a: numbe
                 <th scope="col" className="text-right">
                   Change
                 </th>
+                {anchorKeys && (
+                  <th scope="col">
+                    <span className="sr-only">Comment</span>
+                  </th>
+                )}
               </tr>
             </thead>
             <tbody>
@@ -42,6 +62,16 @@ export function BoardTable({ targets, a, b }: { targets: BoardTarget[]; a: numbe
                   <td className="num text-right text-ink-soft">{q.before}</td>
                   <td className={`num text-right ${q.changed ? "font-semibold" : ""}`}>{q.after}</td>
                   <td className="num text-right">{q.changed ? q.difference || "changed" : "same"}</td>
+                  {anchorKeys && (
+                    <td className="text-right">
+                      {anchorKeys.includes(`target${t.position}.${q.key}`) && (
+                        <CommentRowButton
+                          anchorKey={`target${t.position}.${q.key}`}
+                          label={`target ${t.position} ${q.what.toLowerCase()}`}
+                        />
+                      )}
+                    </td>
+                  )}
                 </tr>
               ))}
             </tbody>

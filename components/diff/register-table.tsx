@@ -1,11 +1,26 @@
 import { hex } from "@/lib/bundle/format";
+import { CommentRowButton } from "@/components/review/comment-row-button";
 import type { RegisterTarget } from "@/lib/diff/registers";
 
 const shown = (v: number | null) =>
   v === null ? "—" : `${v} (${hex(v, v > 0xffff ? 8 : v > 0xff ? 4 : 2)})`;
 
-/** Per device, each register the firmware writes: old value, new value and the formula behind it. */
-export function RegisterTable({ targets, a, b }: { targets: RegisterTarget[]; a: number; b: number }) {
+/**
+ * Per device, each register the firmware writes: old value, new value and the
+ * formula behind it. `anchorKeys`: the newer revision's comment anchors; a
+ * register that is one of them gets a "Comment" button.
+ */
+export function RegisterTable({
+  targets,
+  a,
+  b,
+  anchorKeys,
+}: {
+  targets: RegisterTarget[];
+  a: number;
+  b: number;
+  anchorKeys?: string[];
+}) {
   if (targets.length === 0)
     return <p className="panel text-ink-soft">No target planned in either revision.</p>;
   const old = a === 0 ? "before" : `r${a}`;
@@ -36,6 +51,11 @@ export function RegisterTable({ targets, a, b }: { targets: RegisterTarget[]; a:
                     r{b}
                   </th>
                   <th scope="col">Where the value comes from</th>
+                  {anchorKeys && (
+                    <th scope="col">
+                      <span className="sr-only">Comment</span>
+                    </th>
+                  )}
                 </tr>
               </thead>
               <tbody>
@@ -52,6 +72,16 @@ export function RegisterTable({ targets, a, b }: { targets: RegisterTarget[]; a:
                       </code>
                       <span className="text-ink-soft"> · {r.why}</span>
                     </td>
+                    {anchorKeys && (
+                      <td className="text-right">
+                        {anchorKeys.includes(`target${t.position}.register.${r.reg}`) && (
+                          <CommentRowButton
+                            anchorKey={`target${t.position}.register.${r.reg}`}
+                            label={`target ${t.position} ${r.reg}`}
+                          />
+                        )}
+                      </td>
+                    )}
                   </tr>
                 ))}
               </tbody>

@@ -1,17 +1,32 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useId, useState } from "react";
+import { useEffect, useId, useRef, useState } from "react";
 import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
+import { useCommentAnchor } from "./comment-anchor-context";
 
 export type AnchorChoice = { kind: "quantity" | "register"; key: string; label: string; text: string };
 
-/** A new thread on the revision as a whole or on one quantity or register of it. */
+/**
+ * A new thread on the revision as a whole or on one quantity or register of it.
+ * Inside a CommentAnchorProvider the rows' "Comment" buttons choose the anchor.
+ */
 export function AnchorCommentForm(props: { revisionId: number; anchors: AnchorChoice[] }) {
   const router = useRouter();
   const selectId = useId();
   const bodyId = useId();
-  const [key, setKey] = useState("");
+  const shared = useCommentAnchor();
+  const [ownKey, setOwnKey] = useState("");
+  const key = shared?.key ?? ownKey;
+  const setKey = shared?.setKey ?? setOwnKey;
+  const form = useRef<HTMLFormElement>(null);
+  const text = useRef<HTMLTextAreaElement>(null);
+  const asked = shared?.asked ?? 0;
+  useEffect(() => {
+    if (asked === 0) return;
+    form.current?.scrollIntoView({ block: "center" });
+    text.current?.focus({ preventScroll: true });
+  }, [asked]);
   const [body, setBody] = useState("");
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -40,7 +55,13 @@ export function AnchorCommentForm(props: { revisionId: number; anchors: AnchorCh
   }
 
   return (
-    <form onSubmit={send} className="panel space-y-2" aria-label="New comment on a quantity or register">
+    <form
+      ref={form}
+      id="anchored-comment"
+      onSubmit={send}
+      className="panel space-y-2"
+      aria-label="New comment on a quantity or register"
+    >
       <label htmlFor={selectId} className="field-label">
         About
       </label>
@@ -56,6 +77,7 @@ export function AnchorCommentForm(props: { revisionId: number; anchors: AnchorCh
         Comment
       </label>
       <textarea
+        ref={text}
         id={bodyId}
         className="input min-h-20 font-sans"
         value={body}

@@ -8,9 +8,17 @@ import { ApiError, notFound } from "@/lib/api/errors";
 import type { AuthUser } from "@/lib/auth/guard";
 import { assertCanReadRevision } from "@/lib/revisions/access";
 import { compareSnapshots } from "./index";
+import type { BuildState } from "@/lib/revisions/build-state";
 import type { RevisionComparison, RevisionRef, RevisionSnapshot } from "./types";
 
-type Loaded = RevisionRef & RevisionSnapshot & { retrofitId: number };
+/** A revision as the comparison reads it, with its build state: files exist only once it is built. */
+export type Loaded = RevisionRef &
+  RevisionSnapshot & {
+    retrofitId: number;
+    buildState: BuildState;
+    buildError: string | null;
+    buildProgress: unknown;
+  };
 
 async function loadOne(id: number): Promise<Loaded & { site: string }> {
   const [row] = await db
@@ -22,6 +30,9 @@ async function loadOne(id: number): Promise<Loaded & { site: string }> {
       spec: revisions.spec,
       analysis: revisions.analysis,
       plans: revisions.plans,
+      buildState: revisions.buildState,
+      buildError: revisions.buildError,
+      buildProgress: revisions.buildProgress,
       site: retrofits.site,
     })
     .from(revisions)
@@ -48,6 +59,9 @@ const nothing = (retrofitId: number): Loaded & { site: string } => ({
   analysis: {},
   plans: [],
   files: [],
+  buildState: "ready",
+  buildError: null,
+  buildProgress: {},
   site: "",
 });
 

@@ -4,6 +4,7 @@
 // the same functions whose `writes` the templates print into main.c, so the
 // table cannot show a number the firmware does not write.
 import { DEVICES } from "@/lib/bundle/devices";
+import { TRIGGER_VIEWS } from "@/lib/bundle/build";
 import { avrTriggerView } from "@/lib/bundle/trigger-avr";
 import type { RegisterWrite } from "@/lib/bundle/device-view";
 import { controlOnTarget } from "@/lib/bundle/adc-control";
@@ -34,8 +35,13 @@ export type RegisterTarget = {
 const obj = (v: unknown): Record<string, unknown> =>
   v !== null && typeof v === "object" && !Array.isArray(v) ? (v as Record<string, unknown>) : {};
 
-/** Devices whose triggered firmware is the AVR one tabled below (lib/bundle/trigger-avr.ts). */
-const AVR_TRIGGER_DEVICES = new Set(["atmega328p", "attiny85"]);
+/** Devices whose triggered firmware is the AVR one tabled below: those whose
+ *  trigger view in generation (TRIGGER_VIEWS, lib/bundle/build.ts) is avrTriggerView. */
+const AVR_TRIGGER_DEVICES = new Set(
+  Object.entries(TRIGGER_VIEWS)
+    .filter(([, view]) => view === avrTriggerView)
+    .map(([device]) => device),
+);
 
 function planOf(entry: unknown): BundlePlan | null {
   const e = obj(entry);

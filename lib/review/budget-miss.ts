@@ -38,3 +38,25 @@ export function missedText(missed: MissedTarget[]): string {
     )
     .join("; ");
 }
+
+export type Override = { reason: string; text: string; targets: MissedTarget[] };
+
+/**
+ * The release rule itself: with no missed target a release needs nothing
+ * (override null); with one, a reason that is more than blanks, which is kept
+ * trimmed with the missed targets. `refusal` is the message when it is missing.
+ */
+export function releaseOverride(
+  plans: unknown,
+  overrideReason: string,
+  revisionNumber: number,
+): { override: Override | null } | { refusal: string } {
+  const missed = missedTargets(plans);
+  if (missed.length === 0) return { override: null };
+  const reason = overrideReason.trim();
+  if (!reason)
+    return {
+      refusal: `r${revisionNumber} cannot be released as it is: ${missedText(missed)}. Return it, or release it with an override and the reason.`,
+    };
+  return { override: { reason, text: missedText(missed), targets: missed } };
+}

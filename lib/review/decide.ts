@@ -15,7 +15,7 @@ import { releasedMail, decisionMail } from "@/lib/mail/messages";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
 import { techniciansOfSite } from "./recipients";
-import { missedTargets, missedText } from "./budget-miss";
+import { releaseOverride, type Override } from "./budget-miss";
 import { decideRefusal, type Decision } from "./states";
 import { DECISION_STATE, REVIEW_ACTIONS, STATE_WORDS } from "./words";
 
@@ -33,7 +33,7 @@ export async function decideRevision(
     if (refusal) throw refusal;
     // Decisions on one retrofit queue up here, so superseding sees every release.
     await tx.select({ id: retrofits.id }).from(retrofits).where(eq(retrofits.id, retrofit.id)).for("update");
-    let override: { reason: string; text: string; targets: ReturnType<typeof missedTargets> } | null = null;
+    let override: Override | null = null;
     if (decision === "release") {
       const stale = await newerCandidate(tx, retrofit.id, revision.number);
       if (stale) throw stale;
@@ -41,15 +41,12 @@ export async function decideRevision(
         .select({ plans: revisions.plans })
         .from(revisions)
         .where(eq(revisions.id, revisionId));
-      const missed = missedTargets(stored?.plans);
-      if (missed.length && !overrideReason.trim())
-        throw new ApiError(
-          "unprocessable",
-          `r${revision.number} cannot be released as it is: ${missedText(missed)}. Return it, or release it with an override and the reason.`,
-          { override: "Give the reason for releasing despite the missed budget." },
-        );
-      if (missed.length)
-        override = { reason: overrideReason.trim(), text: missedText(missed), targets: missed };
+      const rule = releaseOverride(stored?.plans, overrideReason, revision.number);
+      if ("refusal" in rule)
+        throw new ApiError("unprocessable", rule.refusal, {
+          override: "Give the reason for releasing despite the missed budget.",
+        });
+      override = rule.override;
     }
     const now = new Date();
     const [moved] = await tx

@@ -1,14 +1,17 @@
 // Generating a revision, in two steps.
-// startRevision (in the request): lock the retrofit row FOR UPDATE, snapshot the
-// stage and targets, run the engine, refuse what cannot be planned, and insert
-// the revision in state "building" with the next gapless number, together with
-// its build job (one transaction: the row exists exactly when its job does).
+// startRevision (in the request): snapshot the stage and targets, run the
+// engine and refuse what cannot be planned (before any lock), then lock the
+// retrofit row FOR UPDATE, read the rows again (re-planning only when they
+// changed), and insert the revision in state "building" with the next gapless
+// number, together with its build job (one transaction: the row exists exactly
+// when its job does).
 // buildRevision (on a worker): compile every target from the stored snapshot,
 // then store files, images, bundle and the audit event in ONE transaction and
 // mark it ready; a build that cannot succeed marks it failed with the reason
 // and stores nothing else. A worker killed mid-build commits nothing; the
 // queue runs the job again and the revision is still "building".
 // No "server-only" marker: the seed script runs this outside Next.
+import { isDeepStrictEqual } from "node:util";
 import { and, asc, eq, sql } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
 import {
@@ -47,6 +50,7 @@ import { reportProgress } from "@/lib/jobs/progress";
 import { storedControl } from "@/lib/validation/control";
 import type { BuildProgress } from "./build-state";
 import { TARGET_FIELDS } from "@/lib/validation/target";
+import { oneAtATime } from "./one-at-a-time";
 import { planOne, planRequestOf, snapshotOf } from "./plan-targets";
 import type { StoredPlan } from "./types";
 
@@ -73,10 +77,29 @@ interface Inputs {
   requests: BundleTargetRequest[];
 }
 
-/** Reads and plans everything a revision needs; `lock` takes the retrofit row FOR UPDATE. */
-async function loadInputs(tx: Reader, retrofitId: number, lock: boolean): Promise<Inputs> {
+/** The rows a revision is made from, as read (nothing planned yet). */
+interface SourceRows {
+  retrofit: Retrofit | undefined;
+  stageRow: typeof stages.$inferSelect | undefined;
+  targetRows: (typeof targets.$inferSelect)[];
+}
+
+/** Reads the retrofit, its stage and its targets; `lock` takes the retrofit row FOR UPDATE. */
+async function readRows(tx: Reader, retrofitId: number, lock: boolean): Promise<SourceRows> {
   const query = tx.select().from(retrofits).where(eq(retrofits.id, retrofitId));
   const [retrofit] = lock ? await query.for("update") : await query;
+  if (!retrofit) return { retrofit, stageRow: undefined, targetRows: [] };
+  const [stageRow] = await tx.select().from(stages).where(eq(stages.retrofitId, retrofitId));
+  const targetRows = await tx
+    .select()
+    .from(targets)
+    .where(eq(targets.retrofitId, retrofitId))
+    .orderBy(asc(targets.position), asc(targets.id));
+  return { retrofit, stageRow, targetRows };
+}
+
+/** Plans everything a revision needs from its rows (CPU only: no connection is held here). */
+function planInputs({ retrofit, stageRow, targetRows }: SourceRows): Inputs {
   if (!retrofit) throw notFound("Retrofit");
   if (retrofit.archivedAt) {
     throw new ApiError(
@@ -84,16 +107,10 @@ async function loadInputs(tx: Reader, retrofitId: number, lock: boolean): Promis
       "This retrofit is archived; archived retrofits keep their revisions but get no new ones.",
     );
   }
-  const [stageRow] = await tx.select().from(stages).where(eq(stages.retrofitId, retrofitId));
   if (!stageRow)
     throw new ApiError("unprocessable", "Enter the old stage before generating a revision.", {
       stage: "Required.",
     });
-  const targetRows = await tx
-    .select()
-    .from(targets)
-    .where(eq(targets.retrofitId, retrofitId))
-    .orderBy(asc(targets.position), asc(targets.id));
   if (targetRows.length === 0) {
     throw new ApiError("unprocessable", "Add at least one target before generating a revision.", {
       targets: "Add at least one target.",
@@ -167,6 +184,17 @@ function checkSources(spec: BundleSpec): void {
   }
 }
 
+/**
+ * Plans the rows and checks that the bundle's sources can be written. The
+ * revision number is only printed in the sources, never a reason to refuse, so
+ * the check runs with a stand-in number before the real one is taken.
+ */
+function checkedInputs(rows: SourceRows): Inputs {
+  const inputs = planInputs(rows);
+  checkSources(specOf(inputs, 0));
+  return inputs;
+}
+
 export type StartedRevision = { id: number; number: number };
 
 /**
@@ -178,41 +206,55 @@ export async function startRevision(
   { retrofitId, userId, note = "" }: { retrofitId: number; userId: number; note?: string },
   queue?: (tx: Tx, revisionId: number) => Promise<unknown>,
 ): Promise<StartedRevision> {
-  return db.transaction(async (tx) => {
-    const inputs = await loadInputs(tx, retrofitId, true);
-    const [{ max }] = await tx
-      .select({ max: sql<number>`coalesce(max(${revisions.number}), 0)`.mapWith(Number) })
-      .from(revisions)
-      .where(eq(revisions.retrofitId, retrofitId));
-    const number = max + 1;
-    const spec = specOf(inputs, number);
-    checkSources(spec);
-    const folders = targetFolders(spec.targets.map((t) => t.device));
-    const progress: BuildProgress = Object.fromEntries(
-      folders.map((folder, index) => [folder, { index, device: spec.targets[index].device, step: "queued" }]),
-    );
-    const [row] = await tx
-      .insert(revisions)
-      .values({
-        retrofitId,
-        number,
-        spec,
-        analysis: inputs.analysis,
-        plans: inputs.stored,
-        engineVersion: ENGINE_VERSION,
-        // No bundle until the build stores one (build_state says so; downloads refuse).
-        bundle: Buffer.alloc(0),
-        bundleSha256: "",
-        bundleSize: 0,
-        buildState: "building",
-        buildProgress: progress,
-        note,
-        createdBy: userId,
-      })
-      .returning({ id: revisions.id, number: revisions.number });
-    await queue?.(tx, row.id);
-    return row;
-  });
+  // Planning (the stage's tolerance spread) and the bundle's source check take
+  // CPU time; they run before the row lock, so requests queued on the lock of
+  // one retrofit do not each hold a pool connection through them (a burst of
+  // generations starved the pool and answered 500/503). Inside the lock the
+  // rows are read again; only when they changed meanwhile is the work redone.
+  // Requests for one retrofit then enter the transaction one at a time in this
+  // process, so they wait in memory rather than on the lock with a connection.
+  const seen = await readRows(db, retrofitId, false);
+  const checked = checkedInputs(seen);
+  return oneAtATime(`retrofit:${retrofitId}`, () =>
+    db.transaction(async (tx) => {
+      const now = await readRows(tx, retrofitId, true);
+      const inputs = isDeepStrictEqual(now, seen) ? checked : checkedInputs(now);
+      const [{ max }] = await tx
+        .select({ max: sql<number>`coalesce(max(${revisions.number}), 0)`.mapWith(Number) })
+        .from(revisions)
+        .where(eq(revisions.retrofitId, retrofitId));
+      const number = max + 1;
+      const spec = specOf(inputs, number);
+      const folders = targetFolders(spec.targets.map((t) => t.device));
+      const progress: BuildProgress = Object.fromEntries(
+        folders.map((folder, index) => [
+          folder,
+          { index, device: spec.targets[index].device, step: "queued" },
+        ]),
+      );
+      const [row] = await tx
+        .insert(revisions)
+        .values({
+          retrofitId,
+          number,
+          spec,
+          analysis: inputs.analysis,
+          plans: inputs.stored,
+          engineVersion: ENGINE_VERSION,
+          // No bundle until the build stores one (build_state says so; downloads refuse).
+          bundle: Buffer.alloc(0),
+          bundleSha256: "",
+          bundleSize: 0,
+          buildState: "building",
+          buildProgress: progress,
+          note,
+          createdBy: userId,
+        })
+        .returning({ id: revisions.id, number: revisions.number });
+      await queue?.(tx, row.id);
+      return row;
+    }),
+  );
 }
 
 /** Why a build cannot succeed however often it is tried (a retry would fail the same way). */

@@ -7,6 +7,7 @@ import { retrofits } from "@/db/schema";
 import { FileDiff, type HighlightedRow } from "@/components/diff/file-diff";
 import { AnchorCommentForm } from "@/components/review/anchor-comment-form";
 import { CommentThread } from "@/components/review/comment-thread";
+import { CommentAnchorProvider } from "@/components/review/comment-anchor-context";
 import { revisionAnchors } from "@/lib/review/anchors";
 import { toThreadView } from "@/lib/review/thread-view";
 import { fileAnchor } from "@/lib/diff/anchor";
@@ -17,13 +18,14 @@ import { boardChanges } from "@/lib/diff/board";
 import { RegisterTable } from "@/components/diff/register-table";
 import { registerChanges } from "@/lib/diff/registers";
 import { RevisionPicker } from "@/components/diff/revision-picker";
+import { UnbuiltNotice, unbuiltSentence, type UnbuiltRevision } from "@/components/diff/unbuilt-notice";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
 import { ApiError } from "@/lib/api/errors";
 import { pageUser } from "@/lib/auth/page";
 import { READ_ALL } from "@/lib/auth/roles";
 import { compareSnapshots } from "@/lib/diff";
-import { defaultPair, loadPair, revisionsOf } from "@/lib/diff/load";
+import { defaultPair, loadPair, NOTHING_ID, revisionsOf } from "@/lib/diff/load";
 import type { DiffRow } from "@/lib/diff/types";
 import { COMMENT_ROLES, listThreads } from "@/lib/review/comments";
 import { STATE_WORDS } from "@/lib/review/words";
@@ -95,12 +97,21 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const { a, b } = pair;
   if (a.retrofitId !== retrofitId) notFound();
   const cmp = compareSnapshots(retrofitId, a, b);
+  // A revision still building (or failed) has its plan but no files yet: the
+  // numbers compare, the file text waits (else every file would show as gone).
+  const unbuilt = [a, b].filter(
+    (r): r is typeof r & UnbuiltRevision => r.id !== NOTHING_ID && r.buildState !== "ready",
+  );
+  const filesReady = unbuilt.length === 0;
   const comments = (await listThreads(b.id)).map(toThreadView);
   const boardThreads = comments.filter((c) => !c.filePath);
   const canComment = COMMENT_ROLES.includes(user.role);
+  const anchors = revisionAnchors(b);
+  // Rows get a Comment button only for people who may comment, and only for an anchor the newer revision has.
+  const anchorKeys = canComment ? anchors.map((x) => x.key) : undefined;
 
-  const changed = cmp.files.filter((f) => f.status !== "unchanged");
-  const unchanged = cmp.files.filter((f) => f.status === "unchanged");
+  const changed = filesReady ? cmp.files.filter((f) => f.status !== "unchanged") : [];
+  const unchanged = filesReady ? cmp.files.filter((f) => f.status === "unchanged") : [];
   const files = await Promise.all(
     changed.map(async (f) => {
       const before = a.files.find((x) => x.path === f.path)?.content ?? "";
@@ -133,7 +144,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
       <div className="flex flex-wrap items-end justify-between gap-4">
         <RevisionPicker choices={choices} a={a.id} b={b.id} />
         <div className="flex flex-wrap gap-2">
-          {a.number > 0 && (
+          {a.number > 0 && filesReady && (
             <a className="btn" href={`/api/v1/diff?a=${a.id}&b=${b.id}&format=patch`}>
               Download patch
             </a>
@@ -147,38 +158,43 @@ export default async function ComparePage({ params, searchParams }: Props) {
         {a.number === 0
           ? "Nothing before"
           : `r${a.number} (${STATE_WORDS[a.state as keyof typeof STATE_WORDS]})`}{" "}
-        → r{b.number} ({STATE_WORDS[b.state as keyof typeof STATE_WORDS]}). Comments go to r{b.number}; open a
-        file and choose a line number to comment on it.
+        → r{b.number} ({STATE_WORDS[b.state as keyof typeof STATE_WORDS]}). Comments go to r{b.number}
+        {filesReady ? "; open a file and choose a line number to comment on it." : "."}
       </p>
+      {unbuilt.map((r) => (
+        <UnbuiltNotice key={r.id} revision={r} />
+      ))}
 
-      <section aria-labelledby="board-h">
-        <h2 id="board-h" className="mb-2 text-lg font-semibold">
-          What the board does
-        </h2>
-        <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} />
-      </section>
+      <CommentAnchorProvider>
+        <section aria-labelledby="board-h">
+          <h2 id="board-h" className="mb-2 text-lg font-semibold">
+            What the board does
+          </h2>
+          <BoardTable targets={boardChanges(a, b)} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
 
-      <section aria-labelledby="registers-h">
-        <h2 id="registers-h" className="mb-2 text-lg font-semibold">
-          Registers the firmware writes
-        </h2>
-        <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} />
-      </section>
+        <section aria-labelledby="registers-h">
+          <h2 id="registers-h" className="mb-2 text-lg font-semibold">
+            Registers the firmware writes
+          </h2>
+          <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
 
-      <section aria-labelledby="board-comments-h" className="space-y-2">
-        <h2 id="board-comments-h" className="text-lg font-semibold">
-          Comments on timing and registers ({boardThreads.length})
-        </h2>
-        {boardThreads.length === 0 && (
-          <p className="text-sm text-ink-soft">
-            None yet. Pick a quantity or register below to comment on it.
-          </p>
-        )}
-        {boardThreads.map((t) => (
-          <CommentThread key={t.id} thread={t} revisionId={b.id} canComment={canComment} />
-        ))}
-        {canComment && <AnchorCommentForm revisionId={b.id} anchors={revisionAnchors(b)} />}
-      </section>
+        <section aria-labelledby="board-comments-h" className="space-y-2">
+          <h2 id="board-comments-h" className="text-lg font-semibold">
+            Comments on timing and registers ({boardThreads.length})
+          </h2>
+          {boardThreads.length === 0 && (
+            <p className="text-sm text-ink-soft">
+              None yet. Use a row&apos;s Comment button above, or pick a quantity or register below.
+            </p>
+          )}
+          {boardThreads.map((t) => (
+            <CommentThread key={t.id} thread={t} revisionId={b.id} canComment={canComment} />
+          ))}
+          {canComment && <AnchorCommentForm revisionId={b.id} anchors={anchors} />}
+        </section>
+      </CommentAnchorProvider>
 
       <section aria-labelledby="numbers-h">
         <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
@@ -187,63 +203,79 @@ export default async function ComparePage({ params, searchParams }: Props) {
         <NumbersTable rows={cmp.numbers} a={a.number} b={b.number} />
       </section>
 
-      <section aria-labelledby="files-h" className="space-y-4">
-        <h2 id="files-h" className="text-lg font-semibold">
-          Files ({changed.length} changed, {unchanged.length} unchanged)
-        </h2>
-        {changed.length === 0 && <p className="panel text-ink-soft">Every file is byte-identical.</p>}
-        {changed.length > 0 && (
-          <nav aria-label="File index" className="panel">
-            <p className="mb-1 text-sm text-ink-soft">
-              Each file opens on its own; a name below jumps to it and opens it.
-            </p>
-            <ul className="num columns-1 text-sm sm:columns-2">
-              {files.map((f) => (
-                <li key={f.path}>
-                  <a className="underline" href={`#${fileAnchor(f.path)}`}>
-                    {f.path}
-                  </a>{" "}
-                  <span className="text-ink-muted">
-                    ({f.added} new, {f.removed} gone{f.notes.length ? `, ${f.notes.length} comment(s)` : ""})
-                  </span>
-                </li>
-              ))}
-            </ul>
-          </nav>
-        )}
-        {files.map((f) => (
-          <FileDiff
-            key={f.path}
-            path={f.path}
-            status={f.status}
-            added={f.added}
-            removed={f.removed}
-            rows={f.rows}
-            revisionId={b.id}
-            canComment={canComment}
-            comments={f.notes}
-          />
-        ))}
-        {unchanged.length > 0 && (
-          <details className="panel">
-            <summary className="cursor-pointer text-sm">{unchanged.length} unchanged files</summary>
-            <ul className="num mt-2 text-sm">
-              {unchanged.map((f) => (
-                <li key={f.path}>{f.path}</li>
-              ))}
-            </ul>
-          </details>
-        )}
-        {unchangedWithComments.length > 0 && (
-          <p className="text-sm text-ink-soft">
-            {unchangedWithComments.length} comment(s) sit on unchanged files; see the{" "}
-            <Link href={`/revisions/${b.id}/review`} className="underline">
-              review page
-            </Link>
-            .
+      {!filesReady && (
+        <section aria-labelledby="files-h" className="space-y-2">
+          <h2 id="files-h" className="text-lg font-semibold">
+            Files
+          </h2>
+          <p className="panel text-ink-soft">
+            No file text to compare yet:{" "}
+            {unbuilt.map((r) => unbuiltSentence(r).replace(/^The/, "the")).join("; ")}. The files are compared
+            once both revisions are built.
           </p>
-        )}
-      </section>
+        </section>
+      )}
+
+      {filesReady && (
+        <section aria-labelledby="files-h" className="space-y-4">
+          <h2 id="files-h" className="text-lg font-semibold">
+            Files ({changed.length} changed, {unchanged.length} unchanged)
+          </h2>
+          {changed.length === 0 && <p className="panel text-ink-soft">Every file is byte-identical.</p>}
+          {changed.length > 0 && (
+            <nav aria-label="File index" className="panel">
+              <p className="mb-1 text-sm text-ink-soft">
+                Each file opens on its own; a name below jumps to it and opens it.
+              </p>
+              <ul className="num columns-1 text-sm sm:columns-2">
+                {files.map((f) => (
+                  <li key={f.path}>
+                    <a className="underline" href={`#${fileAnchor(f.path)}`}>
+                      {f.path}
+                    </a>{" "}
+                    <span className="text-ink-muted">
+                      ({f.added} new, {f.removed} gone{f.notes.length ? `, ${f.notes.length} comment(s)` : ""}
+                      )
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            </nav>
+          )}
+          {files.map((f) => (
+            <FileDiff
+              key={f.path}
+              path={f.path}
+              status={f.status}
+              added={f.added}
+              removed={f.removed}
+              rows={f.rows}
+              revisionId={b.id}
+              canComment={canComment}
+              comments={f.notes}
+            />
+          ))}
+          {unchanged.length > 0 && (
+            <details className="panel">
+              <summary className="cursor-pointer text-sm">{unchanged.length} unchanged files</summary>
+              <ul className="num mt-2 text-sm">
+                {unchanged.map((f) => (
+                  <li key={f.path}>{f.path}</li>
+                ))}
+              </ul>
+            </details>
+          )}
+          {unchangedWithComments.length > 0 && (
+            <p className="text-sm text-ink-soft">
+              {unchangedWithComments.length} comment(s) sit on unchanged files; see the{" "}
+              <Link href={`/revisions/${b.id}/review`} className="underline">
+                review page
+              </Link>
+              .
+            </p>
+          )}
+        </section>
+      )}
     </section>
   );
 }
