@@ -45,16 +45,28 @@ describe("field work at phone width", () => {
     const input = verify.getByLabel(/Check a downloaded bundle r1/);
     await input.setInputFiles({ name: "bundle.zip", mimeType: "application/zip", buffer: zip });
     const result = verify.getByTestId("verify-result");
-    await result.getByText(/Matches/).waitFor({ timeout: 30_000 });
+    await result.getByText(/matches the released bundle/).waitFor({ timeout: 30_000 });
     // The digest shown is the one OpenSSL (node:crypto) computes for the same bytes.
     await expect.poll(() => result.textContent()).toContain(sha);
 
     // Planted fault: one byte of the zip changed in transit must not pass.
     const tampered = Buffer.from(zip);
     tampered[tampered.length - 1] ^= 0x01;
-    await input.setInputFiles({ name: "bundle.zip", mimeType: "application/zip", buffer: tampered });
-    await result.getByText(/Does not match/).waitFor({ timeout: 30_000 });
+    // This one is dropped on the box, as from a file manager.
+    const dropped = await page.evaluateHandle(
+      (bytes) => {
+        const dt = new DataTransfer();
+        dt.items.add(new File([new Uint8Array(bytes)], "bundle.zip", { type: "application/zip" }));
+        return dt;
+      },
+      [...tampered],
+    );
+    await verify.dispatchEvent("drop", { dataTransfer: dropped });
+    await result.getByText(/does not match the released bundle/).waitFor({ timeout: 30_000 });
     await expect.poll(() => result.textContent()).toContain("Do not flash it");
+    await expect
+      .poll(() => result.textContent())
+      .toContain(createHash("sha256").update(tampered).digest("hex"));
 
     await expect.poll(() => sidewaysOverflow(page)).toBeLessThanOrEqual(0);
 
