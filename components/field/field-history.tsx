@@ -69,6 +69,13 @@ export function FieldHistory({ retrofitId }: { retrofitId: number }) {
                   </a>
                 )}
               </div>
+              <a
+                className="mt-1 block w-fit text-sm underline"
+                href={`/api/v1/field-checks/${c.id}/record`}
+                download
+              >
+                Export record (PDF)<span className="sr-only"> of check {c.id}</span>
+              </a>
               <p className="mt-1 text-sm" data-testid="signed-off">
                 Signed off by <strong>{c.signedOffBy}</strong>
                 {c.technician.name !== c.signedOffBy ? ` (recorded by ${c.technician.name})` : ""}

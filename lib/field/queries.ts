@@ -140,6 +140,11 @@ export async function getFieldCheckPhoto({ id }: { id: number }) {
   return row ?? null;
 }
 
+/** Every photo of one field check (the caller checks read access). */
+export async function listFieldCheckPhotos({ fieldCheckId }: { fieldCheckId: number }) {
+  return db.select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.fieldCheckId, fieldCheckId));
+}
+
 /** A text file of a revision's bundle (CHECKLIST.md, PINMAP.md), or null. */
 export async function getRevisionFile({ revisionId, path }: { revisionId: number; path: string }) {
   const [row] = await db

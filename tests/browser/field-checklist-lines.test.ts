@@ -95,6 +95,9 @@ describe("checklist lines on the phone", () => {
     expect(((await entry.textContent()) ?? "").split(technician.name).length - 1).toBe(1);
     await entry.getByText("Checklist lines", { exact: true }).click();
     const stored = entry.getByTestId("step-S5").getByRole("img", { name: "Photo for S5" });
+    await stored.scrollIntoViewIfNeeded(); // loaded lazily, as the technician scrolls to it
+    const src = (await stored.getAttribute("src"))!;
+    expect((await page.request.get(src)).headers()["content-type"]).toBe("image/jpeg");
     await expect
       .poll(() => stored.evaluate((i: HTMLImageElement) => i.complete && i.naturalWidth))
       .toBe(1600);

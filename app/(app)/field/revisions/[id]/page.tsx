@@ -62,6 +62,9 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
           </a>
         </div>
         <VerifyBundle sha256={revision.bundleSha256} label={`bundle r${revision.number}`} />
+        <Link href={`/field/revisions/${revision.id}/print`} className="no-print w-fit text-sm underline">
+          Print checklist and pin map
+        </Link>
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
       <ReleaseNote revisionId={revision.id} />
