@@ -9,7 +9,7 @@ import { formatEng, parseEng } from "@/lib/engine";
 import type { CaptureView, FieldCheckView } from "@/lib/field/shapes";
 import type { ChecklistStep } from "@/lib/field/checklist-steps";
 import { CheckLines } from "./check-lines";
-import { ChecklistLines, EMPTY_LINE, readMeasured, type LineDrafts } from "./checklist-lines";
+import { ChecklistLines, EMPTY_LINE, readMeasured, type LineEntries } from "./checklist-lines";
 import { StepResults } from "./step-results";
 import { capturesKey, historyKey } from "./keys";
 import { defaultResolutionS } from "./reading-step";
@@ -65,7 +65,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer, checklists 
   const [errors, setErrors] = useState<Errors>({});
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<FieldCheckView | null>(null);
-  const [drafts, setDrafts] = useState<LineDrafts>({});
+  const [entries, setEntries] = useState<LineEntries>({});
   const steps = checklists[target] ?? [];
 
   async function submit(e: React.FormEvent) {
@@ -82,7 +82,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer, checklists 
       next.measuredHighS = "Enter the measured high time, or pick a capture.";
     if (!signedOffBy.trim()) next.signedOffBy = "Sign with your name.";
     for (const s of steps) {
-      const d = drafts[s.id] ?? EMPTY_LINE;
+      const d = entries[s.id] ?? EMPTY_LINE;
       if (s.safety && !d.done) next[`steps.${s.id}.done`] = "Confirm this safety step.";
       const read = readMeasured(s, d.measured);
       if (read.error) next[`steps.${s.id}.measured`] = read.error;
@@ -108,7 +108,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer, checklists 
               steps: steps
                 .filter((s) => s.kind !== "info" && !s.from)
                 .map((s) => {
-                  const d = drafts[s.id] ?? EMPTY_LINE;
+                  const d = entries[s.id] ?? EMPTY_LINE;
                   return {
                     id: s.id,
                     done: d.done,
@@ -130,7 +130,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer, checklists 
       setResolution("");
       setCaptureId("");
       setNotes("");
-      setDrafts({});
+      setEntries({});
       await mutate(historyKey(retrofitId));
     } catch (err) {
       const f = err instanceof ClientApiError ? (err.fields ?? {}) : {};
@@ -161,7 +161,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer, checklists 
             value={target}
             onChange={(e) => {
               setTarget(Number(e.target.value));
-              setDrafts({});
+              setEntries({});
             }}
           >
             {devices.map((d, i) => (
@@ -274,11 +274,11 @@ export function CheckForm({ revisionId, retrofitId, devices, signer, checklists 
           </p>
           <ChecklistLines
             steps={steps}
-            drafts={drafts}
+            entries={entries}
             errors={Object.fromEntries(
               Object.entries(errors).filter((e): e is [string, string] => typeof e[1] === "string"),
             )}
-            onChange={(id, d) => setDrafts((all) => ({ ...all, [id]: d }))}
+            onChange={(id, d) => setEntries((all) => ({ ...all, [id]: d }))}
             onPhotoError={(id, message) => setErrors((all) => ({ ...all, [`steps.${id}.photo`]: message }))}
           />
         </section>

@@ -7,10 +7,10 @@ import { formatEng, parseEng, type EngUnit } from "@/lib/engine";
 import type { ChecklistStep } from "@/lib/field/checklist-steps";
 import { shrinkPhoto, type PickedPhoto } from "./photo";
 
-export type LineDraft = { done: boolean; measured: string; note: string; photo?: PickedPhoto };
-export type LineDrafts = Record<string, LineDraft>;
+export type LineEntry = { done: boolean; measured: string; note: string; photo?: PickedPhoto };
+export type LineEntries = Record<string, LineEntry>;
 
-export const EMPTY_LINE: LineDraft = { done: false, measured: "", note: "" };
+export const EMPTY_LINE: LineEntry = { done: false, measured: "", note: "" };
 
 /** The measured text read against the line's limits, or the reason it cannot be read. */
 export function readMeasured(step: ChecklistStep, text: string): { value?: number; error?: string } {
@@ -38,13 +38,13 @@ function sections(steps: ChecklistStep[]): [string, ChecklistStep[]][] {
 
 type Props = {
   steps: ChecklistStep[];
-  drafts: LineDrafts;
+  entries: LineEntries;
   errors: Record<string, string>;
-  onChange: (id: string, draft: LineDraft) => void;
+  onChange: (id: string, entry: LineEntry) => void;
   onPhotoError: (id: string, message: string) => void;
 };
 
-export function ChecklistLines({ steps, drafts, errors, onChange, onPhotoError }: Props) {
+export function ChecklistLines({ steps, entries, errors, onChange, onPhotoError }: Props) {
   return (
     <div className="flex flex-col gap-4" data-testid="checklist-lines">
       {sections(steps).map(([section, list]) => (
@@ -52,8 +52,8 @@ export function ChecklistLines({ steps, drafts, errors, onChange, onPhotoError }
           <legend className="font-semibold">{section}</legend>
           <ol className="mt-2 flex flex-col gap-2">
             {list.map((s) => {
-              const d = drafts[s.id] ?? EMPTY_LINE;
-              const set = (patch: Partial<LineDraft>) => onChange(s.id, { ...d, ...patch });
+              const d = entries[s.id] ?? EMPTY_LINE;
+              const set = (patch: Partial<LineEntry>) => onChange(s.id, { ...d, ...patch });
               const read = readMeasured(s, d.measured);
               const err = errors[`steps.${s.id}.done`] ?? errors[`steps.${s.id}.measured`] ?? read.error;
               const photoErr = errors[`steps.${s.id}.photo`];
