@@ -266,8 +266,28 @@ export const fieldChecks = pgTable("field_checks", {
   passed: boolean("passed").notNull(),
   notes: text("notes").notNull().default(""),
   signedOffBy: text("signed_off_by").notNull(),
+  // The CHECKLIST.md lines ticked or measured on the phone (lib/field/record-steps.ts); [] for checks without them.
+  steps: jsonb("steps").notNull().default([]),
   createdAt: createdAt(),
 });
+
+// A photo taken for one checklist line of a field check (JPEG or PNG, downscaled in the browser).
+export const fieldCheckPhotos = pgTable(
+  "field_check_photos",
+  {
+    id: serial("id").primaryKey(),
+    fieldCheckId: integer("field_check_id")
+      .notNull()
+      .references(() => fieldChecks.id),
+    stepId: text("step_id").notNull(),
+    mediaType: text("media_type").notNull(),
+    byteSize: integer("byte_size").notNull(),
+    sha256: text("sha256").notNull(),
+    content: bytea("content").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("field_check_photos_check_idx").on(t.fieldCheckId)],
+);
 
 export const auditEvents = pgTable(
   "audit_events",
@@ -382,6 +402,7 @@ export type Review = typeof reviews.$inferSelect;
 export type Comment = typeof comments.$inferSelect;
 export type Capture = typeof captures.$inferSelect;
 export type FieldCheck = typeof fieldChecks.$inferSelect;
+export type FieldCheckPhoto = typeof fieldCheckPhotos.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type ApiToken = typeof apiTokens.$inferSelect;
 export type Invitation = typeof invitations.$inferSelect;

@@ -7,15 +7,26 @@ import useSWR, { useSWRConfig } from "swr";
 import { ClientApiError, fetchJson } from "@/lib/client/fetch-json";
 import { formatEng, parseEng } from "@/lib/engine";
 import type { CaptureView, FieldCheckView } from "@/lib/field/shapes";
+import type { ChecklistStep } from "@/lib/field/checklist-steps";
 import { CheckLines } from "./check-lines";
+import { ChecklistLines, EMPTY_LINE, readMeasured, type LineEntries } from "./checklist-lines";
+import { StepResults } from "./step-results";
 import { capturesKey, historyKey } from "./keys";
 import { defaultResolutionS } from "./reading-step";
 import { deviceName } from "@/components/retrofit/format";
 
-type Props = { revisionId: number; retrofitId: number; devices: string[]; signer: string };
+type Props = {
+  revisionId: number;
+  retrofitId: number;
+  devices: string[];
+  signer: string;
+  /** Each target's CHECKLIST.md lines, in target order. */
+  checklists?: ChecklistStep[][];
+};
 type Errors = Partial<
   Record<"measuredPeriodS" | "measuredHighS" | "resolutionS" | "signedOffBy" | "form", string>
->;
+> &
+  Record<string, string | undefined>;
 
 function readTime(text: string, allowZero = false): number | string | undefined {
   if (!text.trim()) return undefined;
@@ -41,7 +52,7 @@ function defaultFor(period: number | string | undefined): number | undefined {
   return typeof period === "number" ? defaultResolutionS(period) : undefined;
 }
 
-export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
+export function CheckForm({ revisionId, retrofitId, devices, signer, checklists = [] }: Props) {
   const { mutate } = useSWRConfig();
   const { data: captureList } = useSWR<{ captures: CaptureView[] }>(capturesKey(retrofitId));
   const [target, setTarget] = useState(0);
@@ -54,6 +65,8 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
   const [errors, setErrors] = useState<Errors>({});
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<FieldCheckView | null>(null);
+  const [entries, setEntries] = useState<LineEntries>({});
+  const steps = checklists[target] ?? [];
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -68,6 +81,14 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
     if (!captureId && h === undefined)
       next.measuredHighS = "Enter the measured high time, or pick a capture.";
     if (!signedOffBy.trim()) next.signedOffBy = "Sign with your name.";
+    for (const s of steps) {
+      const d = entries[s.id] ?? EMPTY_LINE;
+      if (s.safety && !d.done) next[`steps.${s.id}.done`] = "Confirm this safety step.";
+      const read = readMeasured(s, d.measured);
+      if (read.error) next[`steps.${s.id}.measured`] = read.error;
+    }
+    if (Object.keys(next).some((k) => k.startsWith("steps.")))
+      next.form = "A checklist line needs attention; see the marked lines.";
     setErrors(next);
     if (Object.keys(next).length) return;
     setBusy(true);
@@ -82,6 +103,22 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
         ...(captureId ? { captureId: Number(captureId) } : {}),
         notes,
         signedOffBy: signedOffBy.trim(),
+        ...(steps.length
+          ? {
+              steps: steps
+                .filter((s) => s.kind !== "info" && !s.from)
+                .map((s) => {
+                  const d = entries[s.id] ?? EMPTY_LINE;
+                  return {
+                    id: s.id,
+                    done: d.done,
+                    measured: d.measured,
+                    note: d.note,
+                    ...(d.photo ? { photo: { mediaType: d.photo.mediaType, base64: d.photo.base64 } } : {}),
+                  };
+                }),
+            }
+          : {}),
       };
       const res = await fetchJson<{ check: FieldCheckView }>("/api/v1/field-checks", {
         method: "POST",
@@ -93,6 +130,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
       setResolution("");
       setCaptureId("");
       setNotes("");
+      setEntries({});
       await mutate(historyKey(retrofitId));
     } catch (err) {
       const f = err instanceof ClientApiError ? (err.fields ?? {}) : {};
@@ -121,7 +159,10 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
             id="check-target"
             className="input"
             value={target}
-            onChange={(e) => setTarget(Number(e.target.value))}
+            onChange={(e) => {
+              setTarget(Number(e.target.value));
+              setEntries({});
+            }}
           >
             {devices.map((d, i) => (
               <option key={i} value={i}>
@@ -222,6 +263,26 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
         </select>
         <p className="mt-1 text-xs text-ink-muted">Typed values win over the capture&apos;s.</p>
       </div>
+      {steps.length > 0 && (
+        <section aria-labelledby="lines-title" className="flex flex-col gap-2">
+          <h3 id="lines-title" className="font-semibold">
+            Checklist lines ({deviceName(devices[target] ?? "")}, target {target + 1})
+          </h3>
+          <p className="text-xs text-ink-muted">
+            Tick each line as you do it, type what you measured, add a note or a photo. Safety steps are
+            confirmed before the check is recorded.
+          </p>
+          <ChecklistLines
+            steps={steps}
+            entries={entries}
+            errors={Object.fromEntries(
+              Object.entries(errors).filter((e): e is [string, string] => typeof e[1] === "string"),
+            )}
+            onChange={(id, d) => setEntries((all) => ({ ...all, [id]: d }))}
+            onPhotoError={(id, message) => setErrors((all) => ({ ...all, [`steps.${id}.photo`]: message }))}
+          />
+        </section>
+      )}
       <div>
         <label className="field-label" htmlFor="check-notes">
           Notes
@@ -270,6 +331,7 @@ export function CheckForm({ revisionId, retrofitId, devices, signer }: Props) {
               : "Check failed: a line is outside its limits. The revision's author has been e-mailed."}
           </p>
           <CheckLines lines={result.lines} />
+          {result.steps.length > 0 && <StepResults steps={result.steps} />}
         </div>
       )}
     </form>

@@ -4,7 +4,9 @@
 import useSWR from "swr";
 import { formatEng } from "@/lib/engine";
 import type { FieldCheckView } from "@/lib/field/shapes";
+import { deviceName } from "@/components/retrofit/format";
 import { CheckLines } from "./check-lines";
+import { StepResults } from "./step-results";
 import { historyKey } from "./keys";
 
 export function FieldHistory({ retrofitId }: { retrofitId: number }) {
@@ -39,6 +41,15 @@ export function FieldHistory({ retrofitId }: { retrofitId: number }) {
                   {c.passed ? "Passed" : "Failed"}
                 </span>
                 <span className="num">r{c.revisionNumber}</span>
+                <span className="text-sm" data-testid="checked-what">
+                  {c.boardRef ? (
+                    <>
+                      board <strong>{c.boardRef}</strong> ·{" "}
+                    </>
+                  ) : null}
+                  {c.device ? deviceName(c.device) : "—"}
+                  {c.target !== null ? ` · target ${c.target + 1}` : ""}
+                </span>
                 <time className="num text-sm text-ink-soft" dateTime={c.createdAt}>
                   {c.createdAt.slice(0, 16).replace("T", " ")} UTC
                 </time>
@@ -58,13 +69,22 @@ export function FieldHistory({ retrofitId }: { retrofitId: number }) {
                   </a>
                 )}
               </div>
-              <p className="mt-1 text-sm">
-                Signed off by <strong>{c.signedOffBy}</strong> ({c.technician.name})
+              <a
+                className="mt-1 block w-fit text-sm underline"
+                href={`/api/v1/field-checks/${c.id}/record`}
+                download
+              >
+                Export record (PDF)<span className="sr-only"> of check {c.id}</span>
+              </a>
+              <p className="mt-1 text-sm" data-testid="signed-off">
+                Signed off by <strong>{c.signedOffBy}</strong>
+                {c.technician.name !== c.signedOffBy ? ` (recorded by ${c.technician.name})` : ""}
               </p>
               {c.notes && <p className="mt-1 whitespace-pre-wrap text-sm text-ink-soft">{c.notes}</p>}
               <details className="mt-2">
                 <summary className="cursor-pointer text-sm">Checklist lines</summary>
                 <CheckLines lines={c.lines} />
+                {c.steps.length > 0 && <StepResults steps={c.steps} />}
               </details>
             </li>
           ))}

@@ -56,15 +56,14 @@ export function VerifyBundle({ sha256, label }: { sha256: string; label: string 
         {state.kind === "hashing" && <>Hashing {state.name}…</>}
         {state.kind === "match" && (
           <span className="font-medium text-ok">
-            ✓ Matches: {state.name} is the released bundle (sha256 <span className="num">{state.actual}</span>
-            ).
+            ✓ {state.name} matches the released bundle (sha256 <span className="num">{state.actual}</span>).
           </span>
         )}
         {state.kind === "mismatch" && (
           <span className="font-medium text-hazard">
-            ✗ Does not match: {state.name} has sha256 <span className="num">{state.actual}</span>, the
-            released bundle has <span className="num">{state.expected}</span>. Do not flash it; download the
-            bundle again.
+            ✗ {state.name} does not match the released bundle: it has sha256{" "}
+            <span className="num">{state.actual}</span>, the released bundle has{" "}
+            <span className="num">{state.expected}</span>. Do not flash it; download the bundle again.
           </span>
         )}
         {(state.kind === "error" || state.kind === "bad-expected") && (

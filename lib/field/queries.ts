@@ -4,10 +4,10 @@ import "server-only";
 // bytes are never selected here.
 import { and, asc, desc, eq, inArray, isNull, type SQL } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
-import { fieldChecks, retrofits, revisions, users } from "@/db/schema";
+import { fieldCheckPhotos, fieldChecks, revisionFiles, retrofits, revisions, users } from "@/db/schema";
 import type { AuthUser } from "@/lib/auth/guard";
 import { READ_ALL } from "@/lib/auth/roles";
-import type { CheckLine, FieldAsset, FieldCheckView } from "./shapes";
+import type { CheckLine, FieldAsset, FieldCheckView, StepResult } from "./shapes";
 
 const revisionColumns = {
   id: revisions.id,
@@ -111,11 +111,47 @@ export type NewFieldCheck = {
   passed: boolean;
   notes: string;
   signedOffBy: string;
+  steps?: StepResult[];
 };
 
 export async function insertFieldCheck(input: NewFieldCheck, tx: Tx) {
   const [row] = await tx.insert(fieldChecks).values(input).returning();
   return row;
+}
+
+export async function insertFieldCheckPhoto(
+  input: { fieldCheckId: number; stepId: string; mediaType: string; content: Buffer; sha256: string },
+  tx: Tx,
+) {
+  const [row] = await tx
+    .insert(fieldCheckPhotos)
+    .values({ ...input, byteSize: input.content.length })
+    .returning({ id: fieldCheckPhotos.id });
+  return row;
+}
+
+export async function setFieldCheckSteps(id: number, steps: StepResult[], tx: Tx) {
+  await tx.update(fieldChecks).set({ steps }).where(eq(fieldChecks.id, id));
+}
+
+/** One photo with the check it belongs to (the caller checks read access via listFieldChecks). */
+export async function getFieldCheckPhoto({ id }: { id: number }) {
+  const [row] = await db.select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.id, id));
+  return row ?? null;
+}
+
+/** Every photo of one field check (the caller checks read access). */
+export async function listFieldCheckPhotos({ fieldCheckId }: { fieldCheckId: number }) {
+  return db.select().from(fieldCheckPhotos).where(eq(fieldCheckPhotos.fieldCheckId, fieldCheckId));
+}
+
+/** A text file of a revision's bundle (CHECKLIST.md, PINMAP.md), or null. */
+export async function getRevisionFile({ revisionId, path }: { revisionId: number; path: string }) {
+  const [row] = await db
+    .select({ content: revisionFiles.content })
+    .from(revisionFiles)
+    .where(and(eq(revisionFiles.revisionId, revisionId), eq(revisionFiles.path, path)));
+  return row?.content ?? null;
 }
 
 /** Field checks by retrofit or revision, newest first. Technicians get checks
@@ -141,6 +177,8 @@ export async function listFieldChecks({
       revisionState: revisions.state,
       retrofitId: retrofits.id,
       retrofitName: retrofits.name,
+      assetTag: retrofits.assetTag,
+      boardRef: retrofits.boardRef,
       technicianName: users.name,
     })
     .from(fieldChecks)
@@ -157,21 +195,29 @@ export async function listFieldChecks({
     )
     .orderBy(desc(fieldChecks.createdAt), desc(fieldChecks.id))
     .limit(500);
-  return rows.map(({ c, ...r }) => ({
-    id: c.id,
-    revisionId: c.revisionId,
-    revisionNumber: r.revisionNumber,
-    revisionState: r.revisionState,
-    retrofitId: r.retrofitId,
-    retrofitName: r.retrofitName,
-    technician: { id: c.technicianId, name: r.technicianName },
-    measuredPeriodS: c.measuredPeriodS,
-    measuredHighS: c.measuredHighS,
-    captureId: c.captureId,
-    lines: c.lines as CheckLine[],
-    passed: c.passed,
-    notes: c.notes,
-    signedOffBy: c.signedOffBy,
-    createdAt: c.createdAt.toISOString(),
-  }));
+  return rows.map(({ c, ...r }) => {
+    const lines = c.lines as CheckLine[];
+    return {
+      id: c.id,
+      revisionId: c.revisionId,
+      revisionNumber: r.revisionNumber,
+      revisionState: r.revisionState,
+      retrofitId: r.retrofitId,
+      retrofitName: r.retrofitName,
+      assetTag: r.assetTag,
+      boardRef: r.boardRef,
+      target: lines[0]?.target ?? null,
+      device: lines[0]?.device ?? null,
+      technician: { id: c.technicianId, name: r.technicianName },
+      measuredPeriodS: c.measuredPeriodS,
+      measuredHighS: c.measuredHighS,
+      captureId: c.captureId,
+      lines,
+      passed: c.passed,
+      notes: c.notes,
+      signedOffBy: c.signedOffBy,
+      steps: (c.steps as StepResult[] | null) ?? [],
+      createdAt: c.createdAt.toISOString(),
+    };
+  });
 }

@@ -11,10 +11,21 @@ import type { CaptureMeasurement } from "@/lib/capture";
 import { formatEng } from "@/lib/engine";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { assertCanReadRevision } from "@/lib/revisions/access";
+import { createHash } from "node:crypto";
+import { targetFolders } from "@/lib/bundle/folders";
 import { loadReadableCapture } from "./captures";
+import { judgeSteps, stepInputSchema } from "./record-steps";
 import { judgeCheck, requiredRelativeOf, revisionPlans } from "./judge";
-import { getRevisionWithRetrofit, getUserEmail, insertFieldCheck, listFieldChecks } from "./queries";
-import type { CheckLine, FieldCheckView } from "./shapes";
+import {
+  getRevisionFile,
+  getRevisionWithRetrofit,
+  getUserEmail,
+  insertFieldCheck,
+  insertFieldCheckPhoto,
+  listFieldChecks,
+  setFieldCheckSteps,
+} from "./queries";
+import type { CheckLine, FieldCheckView, StepResult } from "./shapes";
 
 const seconds = z.number().finite().positive("Enter a time greater than zero.");
 
@@ -34,6 +45,8 @@ export const fieldCheckSchema = z
     captureId: dbId.optional(),
     notes: z.string().max(4000).default(""),
     signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
+    /** Lines of the target's CHECKLIST.md ticked or measured on the phone (optional; older clients send none). */
+    steps: z.array(stepInputSchema).max(200).optional(),
   })
   .strict();
 
@@ -91,7 +104,31 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
     requiredRelativeOf(revision.plans, input.target),
   );
 
-  const author = verdict.passed ? null : await getUserEmail({ id: revision.createdBy });
+  let steps: ReturnType<typeof judgeSteps> | null = null;
+  if (input.steps) {
+    const devices = ((revision.spec as { targets?: { device: string }[] }).targets ?? []).map(
+      (t) => t.device,
+    );
+    const folder = targetFolders(devices)[input.target];
+    const markdown = folder
+      ? await getRevisionFile({ revisionId: revision.id, path: `${folder}/CHECKLIST.md` })
+      : null;
+    if (markdown === null) {
+      throw new ApiError(
+        "unprocessable",
+        `r${revision.number} has no checklist for target ${input.target + 1}.`,
+        {
+          steps: "Record the check without checklist lines.",
+        },
+      );
+    }
+    steps = judgeSteps(markdown, input.steps, { lines: verdict.lines, target: input.target });
+  }
+  const passed = verdict.passed && (steps?.passed ?? true);
+  // The bench period/high lines repeat verdict.lines; the mail lists the other failed lines.
+  const failedSteps = (steps?.results ?? []).filter((r) => r.pass === false && r.measured !== "");
+
+  const author = passed ? null : await getUserEmail({ id: revision.createdBy });
   const id = await db.transaction(async (tx) => {
     const row = await insertFieldCheck(
       {
@@ -101,16 +138,31 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
         measuredHighS: highS,
         captureId: input.captureId ?? null,
         lines: verdict.lines,
-        passed: verdict.passed,
+        passed,
         notes: input.notes,
         signedOffBy: input.signedOffBy,
+        steps: steps?.results ?? [],
       },
       tx,
     );
+    if (steps) {
+      const photoIds = new Map<string, number>();
+      for (const p of steps.photos) {
+        const sha256 = createHash("sha256").update(p.content).digest("hex");
+        const photo = await insertFieldCheckPhoto({ fieldCheckId: row.id, ...p, sha256 }, tx);
+        photoIds.set(p.stepId, photo.id);
+      }
+      if (photoIds.size) {
+        const withPhotos: StepResult[] = steps.results.map((r) =>
+          photoIds.has(r.id) ? { ...r, photoId: photoIds.get(r.id) } : r,
+        );
+        await setFieldCheckSteps(row.id, withPhotos, tx);
+      }
+    }
     await recordAudit(
       {
         actorId: user.id,
-        action: verdict.passed ? "field-check.passed" : "field-check.failed",
+        action: passed ? "field-check.passed" : "field-check.failed",
         subjectType: "revision",
         subjectId: revision.id,
         details: {
@@ -120,6 +172,8 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
           periodS,
           highS,
           resolutionS: input.resolutionS ?? null,
+          steps: steps ? steps.results.filter((r) => r.done).length : null,
+          photos: steps ? steps.photos.length : 0,
         },
       },
       tx,
@@ -136,6 +190,9 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
               `Target ${input.target + 1}: ${plan.device}.`,
               "",
               ...verdict.lines.map(lineText),
+              ...failedSteps.map(
+                (r) => `FAIL  ${r.id} ${r.text}: measured ${r.measured}, limits ${r.limits}`,
+              ),
               "",
               `Signed off by ${input.signedOffBy} (${user.name}).`,
               input.notes ? `Notes: ${input.notes}` : "No notes.",

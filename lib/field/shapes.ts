@@ -18,6 +18,25 @@ export type CheckLine = {
   source?: string;
 };
 
+/** One CHECKLIST.md line as recorded with a check (lib/field/record-steps.ts). */
+export type StepResult = {
+  id: string;
+  section: string;
+  text: string;
+  kind: "tick" | "measure" | "info";
+  expected: string;
+  limits: string;
+  done: boolean;
+  /** As typed ("42 mA"); the bench period/high lines leave it empty and carry `value`. */
+  measured: string;
+  value: number | null;
+  unit: string;
+  /** null: not judged (not done, information, or no numeric limit and not ticked). */
+  pass: boolean | null;
+  note: string;
+  photoId?: number;
+};
+
 export type FieldCheckView = {
   id: number;
   revisionId: number;
@@ -25,6 +44,11 @@ export type FieldCheckView = {
   revisionState: string;
   retrofitId: number;
   retrofitName: string;
+  assetTag: string;
+  boardRef: string;
+  /** The target checked (0-based) and its device; null for a check without lines. */
+  target: number | null;
+  device: string | null;
   technician: { id: number; name: string };
   measuredPeriodS: number | null;
   measuredHighS: number | null;
@@ -33,6 +57,7 @@ export type FieldCheckView = {
   passed: boolean;
   notes: string;
   signedOffBy: string;
+  steps: StepResult[];
   createdAt: string;
 };
 

@@ -6,6 +6,7 @@ import { notFound } from "next/navigation";
 import { MeasurementTable } from "@/components/capture/measurement-table";
 import { TracePlot } from "@/components/capture/trace-plot";
 import { UseAsStage } from "@/components/capture/use-as-stage";
+import { CopySha } from "@/components/field/copy-sha";
 import { NotAllowed } from "@/components/ui/not-allowed";
 import { pageUser } from "@/lib/auth/page";
 import { ANY, EDIT } from "@/lib/auth/roles";
@@ -30,8 +31,9 @@ export default async function CapturePage({ params }: { params: Promise<{ id: st
         <h1 className="break-words text-xl font-semibold">
           Capture #{c.id}: {c.fileName}
         </h1>
-        <p className="num break-all text-xs text-ink-soft" title={c.sha256}>
-          sha256 {c.sha256} · {(c.byteSize / 1024).toFixed(1)} KiB · {c.uploadedBy.name} ·{" "}
+        <CopySha sha256={c.sha256} full />
+        <p className="num break-words text-xs text-ink-soft">
+          {(c.byteSize / 1024).toFixed(1)} KiB · {c.uploadedBy.name} ·{" "}
           {c.createdAt.slice(0, 16).replace("T", " ")} UTC
         </p>
       </header>

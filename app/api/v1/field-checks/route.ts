@@ -7,8 +7,11 @@ import { ANY, FIELD } from "@/lib/auth/roles";
 import { listFieldChecks } from "@/lib/field/queries";
 import { fieldCheckSchema, recordFieldCheck } from "@/lib/field/record-check";
 
+/** Room for the checklist lines' photos (6 MB decoded, base64 in JSON). */
+const FIELD_CHECK_MAX_BYTES = 9 * 1024 * 1024;
+
 export const POST = apiRoute(async (req) => {
-  const input = fieldCheckSchema.parse(await readJson(req));
+  const input = fieldCheckSchema.parse(await readJson(req, FIELD_CHECK_MAX_BYTES));
   const user = await requireUser({ roles: FIELD, req });
   const check = await recordFieldCheck(user, input);
   return Response.json({ check }, { status: 201 });

@@ -14,7 +14,9 @@ import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
 import { pageUser } from "@/lib/auth/page";
 import { CAPTURE, FIELD, FIELD_VIEW } from "@/lib/auth/roles";
-import { getRevisionWithRetrofit } from "@/lib/field/queries";
+import { targetFolders } from "@/lib/bundle/folders";
+import { checklistSteps } from "@/lib/field/checklist-steps";
+import { getRevisionFile, getRevisionWithRetrofit } from "@/lib/field/queries";
 import { canReadRevision } from "@/lib/revisions/access";
 import { deviceName } from "@/components/retrofit/format";
 
@@ -30,6 +32,13 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
   const { revision, retrofit } = found;
   const devices = ((revision.spec as { targets?: { device: string }[] }).targets ?? []).map((t) => t.device);
   const released = revision.state === "released";
+  const checklists = await Promise.all(
+    targetFolders(devices).map(async (folder) =>
+      checklistSteps(
+        (await getRevisionFile({ revisionId: revision.id, path: `${folder}/CHECKLIST.md` })) ?? "",
+      ),
+    ),
+  );
 
   return (
     <div className="flex flex-col gap-6">
@@ -53,12 +62,21 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
           </a>
         </div>
         <VerifyBundle sha256={revision.bundleSha256} label={`bundle r${revision.number}`} />
+        <Link href={`/field/revisions/${revision.id}/print`} className="no-print w-fit text-sm underline">
+          Print checklist and pin map
+        </Link>
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
       <ReleaseNote revisionId={revision.id} />
       {FIELD.includes(user.role) && released && (
         <section className="panel">
-          <CheckForm revisionId={revision.id} retrofitId={retrofit.id} devices={devices} signer={user.name} />
+          <CheckForm
+            revisionId={revision.id}
+            retrofitId={retrofit.id}
+            devices={devices}
+            signer={user.name}
+            checklists={checklists}
+          />
         </section>
       )}
       {!released && (
