@@ -105,8 +105,11 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
     basis:
       "GPIO input synchroniser 2 cycles (RP2040 datasheet, GPIO; from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ Technical Reference Manual, interrupt latency with zero-wait-state memory: vector table and handler run from SRAM) + 1 to finish the busy loop's branch; edge handler (templates/rp2040/trigger.c.hbs, naked) 5 cycles to the PWM CSR.EN store (ldr 2, movs 1, str 2; ARMv6-M cycle counts), restart rule 10 to the CTR = 0 store; the PWM slice then drives the pin itself, so the pulse has no handler in its path",
   },
-  // PIC12F1840 datasheet: 13.0 Interrupt-on-change (IOCAP/IOCAN per pin select
-  // the edge), 7.3 Interrupt latency (3 to 5 instruction cycles); RA1 = PDIP-8 pin 6.
+  // PIC12F1840 datasheet (DS40001441): interrupt-on-change chapter (IOCAP/IOCAN
+  // per pin select the edge, both = both edges), interrupt latency (3 to 5
+  // instruction cycles for an asynchronous interrupt, 3 to 4 for a synchronous
+  // one such as TMR2IF; from memory); RA1 = PDIP-8 pin 6. Handler:
+  // templates/pic12f1840/trigger.asm.hbs (assembler, fixed cycle counts).
   pic12f1840: {
     input: pin({
       port: "RA1",
@@ -118,9 +121,9 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
     }),
     edgeHow: { rising: "IOCAP1 = 1", falling: "IOCAN1 = 1", both: "IOCAP1 = 1 and IOCAN1 = 1" },
     responseCycles: 5 * 4,
-    handlerCycles: 4 * 4,
+    handlerCycles: (7 + 4 + 10) * 4,
     basis:
-      "PIC12F1840 datasheet, interrupt latency up to 5 instruction cycles for an asynchronous interrupt (automatic context save); handler 4 instruction cycles to the TMR2ON set (btfss IOCAF, goto, movlb, bsf); 4 clocks per instruction cycle",
+      "PIC12F1840 datasheet, interrupt latency up to 5 instruction cycles for an asynchronous interrupt such as interrupt-on-change (from memory); IOC handler (templates/pic12f1840/trigger.asm.hbs) up to 7 instruction cycles to the start of the count (ignore rule 6: banksel 1, btfss skipping 2, banksel 1, btfss 1, bsf TMR2ON 1; restart rule 7: banksel 1, btfss 2, banksel 1, bcf TMR2ON 1, clrf TMR2 1, bsf TMR2ON 1); the Timer2 match handler's entry to the LATA write adds up to 4 (synchronous interrupt latency, from memory) + 10, the same for the pulse's off edge, so it shifts the delay, not the pulse; 4 clocks per instruction cycle; an edge arriving while the match handler runs waits for it (up to 17 instruction cycles more)",
   },
   // MSP430x2xx family user's guide: 8.2 Digital I/O P1IES/P1IE (one edge per
   // setting: both edges by flipping P1IES in the handler), 2.2.3 interrupt
