@@ -125,9 +125,10 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
     basis:
       "PIC12F1840 datasheet, interrupt latency up to 5 instruction cycles for an asynchronous interrupt such as interrupt-on-change (from memory); IOC handler (templates/pic12f1840/trigger.asm.hbs) up to 7 instruction cycles to the start of the count (ignore rule 6: banksel 1, btfss skipping 2, banksel 1, btfss 1, bsf TMR2ON 1; restart rule 7: banksel 1, btfss 2, banksel 1, bcf TMR2ON 1, clrf TMR2 1, bsf TMR2ON 1); the Timer2 match handler's entry to the LATA write adds up to 4 (synchronous interrupt latency, from memory) + 10, the same for the pulse's off edge, so it shifts the delay, not the pulse; 4 clocks per instruction cycle; an edge arriving while the match handler runs waits for it (up to 17 instruction cycles more)",
   },
-  // MSP430x2xx family user's guide: 8.2 Digital I/O P1IES/P1IE (one edge per
-  // setting: both edges by flipping P1IES in the handler), 2.2.3 interrupt
+  // MSP430x2xx family user's guide: Digital I/O P1IES/P1IE (one edge per
+  // setting: both edges by flipping P1IES in the handler), interrupt
   // acceptance 6 cycles after the current instruction; G2553 datasheet PDIP-20: P1.3 = pin 5.
+  // Handlers: templates/msp430g2553/trigger.c.hbs (assembler, fixed cycle counts).
   msp430g2553: {
     input: pin({
       port: "P1.3",
@@ -143,9 +144,9 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       both: "P1IES bit 3 flipped in the handler after each edge",
     },
     responseCycles: 6 + 6,
-    handlerCycles: 5,
+    handlerCycles: 5 + (6 + 6 + 4),
     basis:
-      "MSP430x2xx family user's guide, interrupt acceptance 6 cycles + up to 6 to finish the current instruction; handler 5 cycles to the TA0CTL store (bis.w #MC_1,&TA0CTL; family guide instruction cycle table); CPU kept awake (no low-power mode) so no wake-up time adds",
+      "MSP430x2xx family user's guide, interrupt acceptance 6 cycles + up to 6 to finish the current instruction; port 1 handler (templates/msp430g2553/trigger.c.hbs, assembler) 5 cycles to the TA0CTL store that starts the count (ignore rule bis.w #MC_1,&TA0CTL; restart rule mov.w #...|MC_1|TACLR,&TA0CTL; family guide instruction cycle table: #N to &EDE 5 cycles); the TACCR1 handler's entry to the P1OUT write adds up to 6 + 6 + 4 (bis.b with a constant-generator mask), the same for the TACCR0 handler's off edge, so it shifts the delay, not the pulse; CPU kept awake (no low-power mode) so no wake-up time adds",
   },
 };
 
