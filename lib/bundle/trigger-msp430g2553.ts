@@ -16,6 +16,7 @@
 // (PORT1 0xFFE4 = slot 2, TIMER0_A1 0xFFF0 = slot 8, TIMER0_A0 0xFFF2 = slot 9).
 import { EngineError } from "@/lib/engine/errors";
 import { msp430ClockSetup } from "./device-msp430g2553";
+import { write, type RegisterWrite } from "./device-view";
 import type { BundlePlan } from "./types";
 
 /** clang interrupt slots (0xFFE0 + 2 * slot) the triggered firmware fills. */
@@ -52,6 +53,8 @@ export interface Msp430TriggerView {
   edgeWords: string;
   /** Cycles of the P1OUT write: 4 with a constant-generator mask (1, 2, 4, 8), else 5 (family guide cycle table). */
   pinCycles: number;
+  /** Timer0_A3 set-up writes in code order (trigger-start.c.hbs; the compare page's register table). */
+  writes: RegisterWrite[];
 }
 
 const ID_BITS: Record<number, number> = { 1: 0, 2: 1, 4: 2, 8: 3 };
@@ -101,6 +104,19 @@ export function msp430g2553TriggerView(plan: BundlePlan): Msp430TriggerView | nu
   const base = (2 << 8) | (id << 6);
   const edge = plan.edge ?? "rising";
   const activeLow = plan.activeLow === true;
+  const idName = `ID_${id}`;
+  const writes = [
+    write(
+      "TA0CTL",
+      base | 0x04,
+      `TASSEL_2 | ${idName} | MC_0 | TACLR`,
+      `SMCLK/${plan.divider}, stopped at TAR = 0 until the input edge (the port 1 handler sets MC_1)`,
+    ),
+    write("TA0CCR1", ccr1, `${ccr1}u`, `pulse on at TAR = delayCounts = ${ccr1}`),
+    write("TA0CCR0", ccr0, `${ccr0}u`, `pulse off and stop at TAR = delayCounts + highCounts = ${ccr0}`),
+    write("TA0CCTL1", 0x10, "CCIE", "TACCR1 interrupt: pulse on"),
+    write("TA0CCTL0", 0x10, "CCIE", "TACCR0 interrupt: pulse off, timer stopped"),
+  ];
   return {
     outBit,
     outMask: `0x${(1 << outBit).toString(16).toUpperCase().padStart(2, "0")}`,
@@ -111,7 +127,7 @@ export function msp430g2553TriggerView(plan: BundlePlan): Msp430TriggerView | nu
     ctlStop: hex4(base | 0x04),
     ctlRun: hex4(0x10),
     ctlRestart: hex4(base | 0x10 | 0x04),
-    idName: `ID_${id}`,
+    idName,
     rising: edge === "rising",
     falling: edge === "falling",
     both: edge === "both",
@@ -122,5 +138,6 @@ export function msp430g2553TriggerView(plan: BundlePlan): Msp430TriggerView | nu
     offOp: activeLow ? "bis.b" : "bic.b",
     edgeWords: plan.edgeSetting ?? edge,
     pinCycles: [1, 2, 4, 8].includes(1 << outBit) ? 4 : 5,
+    writes,
   };
 }

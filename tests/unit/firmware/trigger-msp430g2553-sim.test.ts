@@ -178,8 +178,8 @@ describe("MSP430G2553 zero-cross firmware in mspdebug's simulator", () => {
     const d = base.plan.delayCounts!;
     const bad = build(zeroCross, {
       file: "src/main.c",
-      from: `TA0CCR1 = ${d}u;\n  TA0CCR0 = ${d + base.plan.highCounts}u;`,
-      to: `TA0CCR1 = ${d + 2}u;\n  TA0CCR0 = ${d + 2 + base.plan.highCounts}u;`,
+      from: new RegExp(`TA0CCR1 = ${d}u;([\\s\\S]*?)TA0CCR0 = ${d + base.plan.highCounts}u;`),
+      to: `TA0CCR1 = ${d + 2}u;$1TA0CCR0 = ${d + 2 + base.plan.highCounts}u;`,
     });
     const r = run(bad.elf, mains(50, 4));
     expect(timerPathProblems(bad.plan, r).length).toBeGreaterThan(0);
