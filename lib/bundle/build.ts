@@ -8,6 +8,8 @@ import { targetFolders } from "./folders";
 import { avrTriggerView } from "./trigger-avr";
 import { rp2040TriggerView } from "./trigger-rp2040";
 import { stm32g031TriggerView } from "./trigger-stm32g031";
+import { pic12f1840TriggerView } from "./trigger-pic12f1840";
+import { msp430g2553TriggerView } from "./trigger-msp430g2553";
 import { triggerDoc } from "./trigger-doc";
 import { sha256Hex } from "./hash";
 import { checklistLimits, limitBasis } from "./limits";
@@ -24,6 +26,8 @@ export const TRIGGER_VIEWS: Record<string, (plan: BundlePlan) => unknown> = {
   attiny85: avrTriggerView,
   rp2040: rp2040TriggerView,
   stm32g031: stm32g031TriggerView,
+  pic12f1840: pic12f1840TriggerView,
+  msp430g2553: msp430g2553TriggerView,
 };
 
 export type Planner = (request: BundleTargetRequest) => BundlePlan;

@@ -9,6 +9,8 @@ export const TRIGGER_DEVICES: ReadonlySet<string> = new Set([
   "attiny85",
   "rp2040",
   "stm32g031",
+  "pic12f1840",
+  "msp430g2553",
 ]);
 
 const NAMES = new Map<string, string>(listDevices().map((d) => [d.id, d.name]));

@@ -9,6 +9,7 @@
 import { EngineError } from "@/lib/engine/errors";
 import { intRange, unsupported, write, type DeviceView, type RegisterWrite } from "./device-view";
 import { pinFacts } from "./pins";
+import { MSP430_TRIGGER_SLOTS } from "./trigger-msp430g2553";
 import type { BundlePlan } from "./types";
 
 const ID: Record<number, string> = { 1: "ID_0", 2: "ID_1", 4: "ID_2", 8: "ID_3" };
@@ -111,7 +112,13 @@ export function msp430g2553View(plan: BundlePlan): DeviceView {
       `${clock.tassel === 1 ? "ACLK" : "SMCLK"}, divide by ${plan.divider}, up mode; starts the timer`,
     ),
   );
-  const used = isr ? [TA0_CCR0_SLOT, RESET_SLOT] : [RESET_SLOT];
+  // Triggered firmware fills PORT1, TIMER0_A1 and TIMER0_A0 (lib/bundle/trigger-msp430g2553.ts).
+  const triggered = plan.start !== undefined && plan.start !== "free";
+  const used: number[] = triggered
+    ? [...MSP430_TRIGGER_SLOTS, RESET_SLOT]
+    : isr
+      ? [TA0_CCR0_SLOT, RESET_SLOT]
+      : [RESET_SLOT];
   const unusedVectors = Array.from({ length: 16 }, (_, i) => i).filter((i) => !used.includes(i));
   return {
     writes,

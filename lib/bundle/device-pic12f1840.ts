@@ -120,7 +120,7 @@ export interface PicStep {
   clear: { reg: string; bit: string; why: string } | null;
 }
 
-const step = (s: Partial<PicStep> & { bankOf: string }): PicStep => ({
+export const step = (s: Partial<PicStep> & { bankOf: string }): PicStep => ({
   write: null,
   wait: null,
   clear: null,
@@ -132,7 +132,25 @@ function bytes32(plan: BundlePlan, name: string, v: number): string[] {
   return [0, 8, 16, 24].map((sh) => hex2(Math.floor(n / 2 ** sh) & 0xff));
 }
 
-const hex2 = (v: number) => `0x${v.toString(16).toUpperCase().padStart(2, "0")}`;
+export const hex2 = (v: number) => `0x${v.toString(16).toUpperCase().padStart(2, "0")}`;
+
+/** Oscillator start-up steps: OSCCON and its ready bits (internal), or the PLL lock wait (crystal with PLLEN). */
+export function picOscSteps(config: PicConfig, osc: PicOsc | null): PicStep[] {
+  const steps: PicStep[] = [];
+  const put = (w: RegisterWrite) => steps.push(step({ bankOf: w.reg, write: w }));
+  if (osc) {
+    put(write("OSCCON", osc.osccon, hex2(osc.osccon), `${osc.text}, SCS = 00 (clock from FOSC = INTOSC)`));
+    for (const r of osc.ready)
+      steps.push(
+        step({ bankOf: "OSCSTAT", wait: { reg: "OSCSTAT", bit: r, why: `${r}: oscillator ready` } }),
+      );
+  } else if (config.pllen) {
+    steps.push(
+      step({ bankOf: "OSCSTAT", wait: { reg: "OSCSTAT", bit: "PLLR", why: "PLLR: 4x PLL locked" } }),
+    );
+  }
+  return steps;
+}
 
 export function pic12f1840View(plan: BundlePlan): DeviceView {
   if (plan.timer.toUpperCase() !== "TIMER2") unsupported(plan, `timer ${plan.timer}`);
@@ -161,19 +179,8 @@ export function pic12f1840View(plan: BundlePlan): DeviceView {
 
   const pr2 = intRange(plan, "PR2", plan.periodCounts - 1, 0, 255);
   const mask = 1 << bit;
-  const steps: PicStep[] = [];
+  const steps: PicStep[] = picOscSteps(config, osc);
   const put = (w: RegisterWrite) => steps.push(step({ bankOf: w.reg, write: w }));
-  if (osc) {
-    put(write("OSCCON", osc.osccon, hex2(osc.osccon), `${osc.text}, SCS = 00 (clock from FOSC = INTOSC)`));
-    for (const r of osc.ready)
-      steps.push(
-        step({ bankOf: "OSCSTAT", wait: { reg: "OSCSTAT", bit: r, why: `${r}: oscillator ready` } }),
-      );
-  } else if (config.pllen) {
-    steps.push(
-      step({ bankOf: "OSCSTAT", wait: { reg: "OSCSTAT", bit: "PLLR", why: "PLLR: 4x PLL locked" } }),
-    );
-  }
   put(write("ANSELA", 0, "0x00", "all of PORTA digital"));
   put(write("LATA", 0, "0x00", "output latch low before the driver is on"));
   if (isr) {

@@ -6,6 +6,8 @@
 import { DEVICES } from "@/lib/bundle/devices";
 import { TRIGGER_VIEWS } from "@/lib/bundle/build";
 import { avrTriggerView } from "@/lib/bundle/trigger-avr";
+import { msp430g2553TriggerView } from "@/lib/bundle/trigger-msp430g2553";
+import { pic12f1840TriggerView } from "@/lib/bundle/trigger-pic12f1840";
 import type { RegisterWrite } from "@/lib/bundle/device-view";
 import { controlOnTarget } from "@/lib/bundle/adc-control";
 import type { BundlePlan, BundleSpec } from "@/lib/bundle/types";
@@ -56,9 +58,13 @@ export function registerWrites(plan: BundlePlan): RegisterWrite[] {
   const entry = DEVICES[plan.device];
   if (!entry) throw new Error(`no register view for ${plan.device}`);
   const triggered = plan.start !== undefined && plan.start !== "free";
+  // PIC12F1840 and MSP430G2553: the set-up writes of their triggered firmware (the handlers then only start and stop the timer)
+  if (triggered && plan.device === "pic12f1840")
+    return pic12f1840TriggerView(plan)!.steps.flatMap((s) => (s.write ? [s.write] : []));
+  if (triggered && plan.device === "msp430g2553") return [...msp430g2553TriggerView(plan)!.writes];
   if (triggered && !AVR_TRIGGER_DEVICES.has(plan.device))
     throw new Error(
-      `the triggered ${entry.name} firmware's registers are not tabled here yet: read its src/trigger.c in the files below`,
+      `the triggered ${entry.name} firmware's registers are not tabled here yet: read its src/main.c in the files below`,
     );
   const trig = triggered ? avrTriggerView(plan) : null;
   if (!trig) return [...entry.view(plan).writes];

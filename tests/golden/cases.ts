@@ -166,6 +166,36 @@ export const GOLDEN_CASES: GoldenCase[] = [
       ],
     },
   },
+  {
+    // PIC12F1840: mains zero-cross (both half cycles) and a falling-edge trigger with the restart rule
+    name: "trigger-pic12f1840",
+    spec: {
+      retrofit: retrofit(true),
+      revision: 1,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 47e3, timingC: 100e-9, eta: 0.63 },
+      targets: [
+        { device: "pic12f1840", clockHz: 4e6, periodS: 0.01, highS: 2e-4, mode: "isr",
+          start: "zero-cross", delayS: 0.004, edge: "both" },
+        { device: "pic12f1840", clockHz: 4e6, periodS: 0.02, highS: 0.001, mode: "isr",
+          start: "trigger", delayS: 0.004, edge: "falling", retrigger: "restart" },
+      ],
+    },
+  },
+  {
+    // MSP430G2553: mains zero-cross (both half cycles) and a rising-edge trigger with the ignore rule
+    name: "trigger-msp430g2553",
+    spec: {
+      retrofit: retrofit(true),
+      revision: 1,
+      stage: { kind: "ujt" as const, supplyV: 20, timingR: 47e3, timingC: 100e-9, eta: 0.63 },
+      targets: [
+        { device: "msp430g2553", clockSource: "dco-cal", clockHz: 1e6, periodS: 0.01, highS: 1e-4,
+          mode: "isr", start: "zero-cross", delayS: 0.004, edge: "both" },
+        { device: "msp430g2553", clockSource: "dco-cal", clockHz: 8e6, periodS: 0.02, highS: 0.001,
+          mode: "isr", start: "trigger", delayS: 0.004, edge: "rising" },
+      ],
+    },
+  },
 ];
 
 export const GOLDEN_ROOT = new URL("./", import.meta.url).pathname;

@@ -105,8 +105,11 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
     basis:
       "GPIO input synchroniser 2 cycles (RP2040 datasheet, GPIO; from memory) + Cortex-M0+ exception entry 15 cycles (Cortex-M0+ Technical Reference Manual, interrupt latency with zero-wait-state memory: vector table and handler run from SRAM) + 1 to finish the busy loop's branch; edge handler (templates/rp2040/trigger.c.hbs, naked) 5 cycles to the PWM CSR.EN store (ldr 2, movs 1, str 2; ARMv6-M cycle counts), restart rule 10 to the CTR = 0 store; the PWM slice then drives the pin itself, so the pulse has no handler in its path",
   },
-  // PIC12F1840 datasheet: 13.0 Interrupt-on-change (IOCAP/IOCAN per pin select
-  // the edge), 7.3 Interrupt latency (3 to 5 instruction cycles); RA1 = PDIP-8 pin 6.
+  // PIC12F1840 datasheet (DS40001441): interrupt-on-change chapter (IOCAP/IOCAN
+  // per pin select the edge, both = both edges), interrupt latency (3 to 5
+  // instruction cycles for an asynchronous interrupt, 3 to 4 for a synchronous
+  // one such as TMR2IF; from memory); RA1 = PDIP-8 pin 6. Handler:
+  // templates/pic12f1840/trigger.asm.hbs (assembler, fixed cycle counts).
   pic12f1840: {
     input: pin({
       port: "RA1",
@@ -118,13 +121,14 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
     }),
     edgeHow: { rising: "IOCAP1 = 1", falling: "IOCAN1 = 1", both: "IOCAP1 = 1 and IOCAN1 = 1" },
     responseCycles: 5 * 4,
-    handlerCycles: 4 * 4,
+    handlerCycles: (7 + 4 + 10) * 4,
     basis:
-      "PIC12F1840 datasheet, interrupt latency up to 5 instruction cycles for an asynchronous interrupt (automatic context save); handler 4 instruction cycles to the TMR2ON set (btfss IOCAF, goto, movlb, bsf); 4 clocks per instruction cycle",
+      "PIC12F1840 datasheet, interrupt latency up to 5 instruction cycles for an asynchronous interrupt such as interrupt-on-change (from memory); IOC handler (templates/pic12f1840/trigger.asm.hbs) up to 7 instruction cycles to the start of the count (ignore rule 6: banksel 1, btfss skipping 2, banksel 1, btfss 1, bsf TMR2ON 1; restart rule 7: banksel 1, btfss 2, banksel 1, bcf TMR2ON 1, clrf TMR2 1, bsf TMR2ON 1); the Timer2 match handler's entry to the LATA write adds up to 4 (synchronous interrupt latency, from memory) + 10, the same for the pulse's off edge, so it shifts the delay, not the pulse; 4 clocks per instruction cycle; an edge arriving while the match handler runs waits for it (up to 17 instruction cycles more)",
   },
-  // MSP430x2xx family user's guide: 8.2 Digital I/O P1IES/P1IE (one edge per
-  // setting: both edges by flipping P1IES in the handler), 2.2.3 interrupt
+  // MSP430x2xx family user's guide: Digital I/O P1IES/P1IE (one edge per
+  // setting: both edges by flipping P1IES in the handler), interrupt
   // acceptance 6 cycles after the current instruction; G2553 datasheet PDIP-20: P1.3 = pin 5.
+  // Handlers: templates/msp430g2553/trigger.c.hbs (assembler, fixed cycle counts).
   msp430g2553: {
     input: pin({
       port: "P1.3",
@@ -140,9 +144,9 @@ export const TRIGGER_INPUTS: Record<DeviceId, TriggerInput> = {
       both: "P1IES bit 3 flipped in the handler after each edge",
     },
     responseCycles: 6 + 6,
-    handlerCycles: 5,
+    handlerCycles: 5 + (6 + 6 + 4),
     basis:
-      "MSP430x2xx family user's guide, interrupt acceptance 6 cycles + up to 6 to finish the current instruction; handler 5 cycles to the TA0CTL store (bis.w #MC_1,&TA0CTL; family guide instruction cycle table); CPU kept awake (no low-power mode) so no wake-up time adds",
+      "MSP430x2xx family user's guide, interrupt acceptance 6 cycles + up to 6 to finish the current instruction; port 1 handler (templates/msp430g2553/trigger.c.hbs, assembler) 5 cycles to the TA0CTL store that starts the count (ignore rule bis.w #MC_1,&TA0CTL; restart rule mov.w #...|MC_1|TACLR,&TA0CTL; family guide instruction cycle table: #N to &EDE 5 cycles); the TACCR1 handler's entry to the P1OUT write adds up to 6 + 6 + 4 (bis.b with a constant-generator mask), the same for the TACCR0 handler's off edge, so it shifts the delay, not the pulse; CPU kept awake (no low-power mode) so no wake-up time adds",
   },
 };
 

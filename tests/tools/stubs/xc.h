@@ -70,4 +70,13 @@ typedef union {
 } ADCON1bits_t;
 extern volatile ADCON1bits_t ADCON1bits;
 
+/* Interrupt-on-change chapter: IOCAP, IOCAN, IOCAF (bits IOCAx5..0) */
+extern volatile uint8_t IOCAP, IOCAN, IOCAF;
+typedef union {
+  struct { unsigned IOCAF0 : 1, IOCAF1 : 1, IOCAF2 : 1, IOCAF3 : 1, IOCAF4 : 1, IOCAF5 : 1, : 2; };
+} IOCAFbits_t;
+extern volatile IOCAFbits_t IOCAFbits;
+/* OPTION_REG: nWPUEN INTEDG TMR0CS TMR0SE PSA PS<2:0>; WPUA (weak pull-ups, I/O Ports chapter) */
+extern volatile uint8_t OPTION_REG, WPUA;
+
 #endif

@@ -1,46 +1,38 @@
-// Triggered and zero-cross firmware exists for the AVRs, the RP2040 and the
-// STM32G031 so far (engine.md section 6): on any other device such a plan must be refused by the bundle,
-// naming the target and the device, and never shipped as a free-running image.
+// Triggered and zero-cross firmware exists for all six devices (engine.md
+// section 6); a device without it would have such a plan refused by the
+// bundle, naming the device, and never shipped as a free-running image.
 import { describe, expect, it } from "vitest";
-import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
-import { isEngineError } from "@/lib/engine";
+import { buildBundleSources } from "@/lib/bundle";
+import { listDevices } from "@/lib/engine";
 import { TRIGGER_VIEWS } from "@/lib/bundle/build";
-import { TRIGGER_DEVICES } from "@/lib/bundle/buildable";
+import { buildRefusal, TRIGGER_DEVICES } from "@/lib/bundle/buildable";
 
 const stage = { kind: "timer555-monostable", r: 10e3, c: 1e-6 } as const;
 
-function refusal(target: BundleTargetRequest & Record<string, unknown>) {
-  try {
-    buildBundleSources({ retrofit: { name: "Refusal check" }, revision: 1, stage, targets: [target] });
-  } catch (e) {
-    return e;
-  }
-  throw new Error("accepted, expected a refusal");
-}
-
 describe("bundle and triggered plans", () => {
-  it.each(["trigger", "zero-cross"] as const)(
-    "refuses a %s plan on the PIC12F1840 before writing any file, naming the target",
-    (start) => {
-      const e = refusal({
-        device: "pic12f1840",
-        clockHz: 4e6,
-        periodS: 0.01,
-        highS: 1e-4,
-        start,
-        delayS: 0.005,
-      });
-      expect(isEngineError(e)).toBe(true);
-      expect((e as { field?: string }).field).toBe("targets.0");
-      expect((e as Error).message).toMatch(/no firmware for triggered starts on PIC12F1840 yet/);
-    },
-  );
+  it("every device the engine lists has triggered firmware, so none is refused", () => {
+    expect([...TRIGGER_DEVICES].sort()).toEqual(
+      listDevices()
+        .map((d) => d.id)
+        .sort(),
+    );
+    for (const d of listDevices()) expect(buildRefusal({ device: d.id, start: "zero-cross" })).toBeNull();
+  });
+
+  it("a device without triggered firmware would be refused by name, on the start field", () => {
+    const r = buildRefusal({ device: "no-such-part", start: "trigger" });
+    expect(r?.field).toBe("start");
+    expect(r?.message).toMatch(/no firmware for triggered starts on no-such-part yet/);
+    expect(buildRefusal({ device: "no-such-part", start: "free" })).toBeNull();
+  });
 
   it.each([
     ["atmega328p", 8e6, /ISR\(INT0_vect, ISR_NAKED\)/],
     ["attiny85", 8e6, /ISR\(INT0_vect, ISR_NAKED\)/],
     ["rp2040", 48e6, /void trig_edge_isr\(void\)/],
     ["stm32g031", 16e6, /void trig_edge_isr\(void\)/],
+    ["pic12f1840", 4e6, /void __interrupt\(\) trigger_isr\(void\)/],
+    ["msp430g2553", 1e6, /trig_edge_isr:/],
   ] as const)("builds a zero-cross %s target with its trigger firmware", (device, clockHz, handler) => {
     const files = buildBundleSources({
       retrofit: { name: "Refusal check" },

@@ -137,10 +137,35 @@ export interface LatchWrite {
   value: number;
 }
 
-/** Runs `cycles` instruction cycles logging every write to LATA (gpsim `log w`). */
-export function latchWrites(dir: string, cycles: number, image = TEST_IMAGE): LatchWrite[] {
+/**
+ * A digital input on one RA pin (gpsim's asynchronous_stimulus): level 0 until
+ * the first change, then `level` from each `cycle` (instruction cycles) on.
+ */
+export function pinStimulus(pin: string, changes: { cycle: number; level: 0 | 1 }[]): string[] {
+  const last = changes.length ? changes[changes.length - 1].cycle : 0;
+  return [
+    "stimulus asynchronous_stimulus",
+    "initial_state 0",
+    "start_cycle 0",
+    // one period longer than the whole list, so it never repeats within a run
+    `period ${last + 10_000_000}`,
+    `{ ${changes.map((c) => `${c.cycle}, ${c.level}`).join(", ")} }`,
+    "name input_src",
+    "end",
+    "node input_node",
+    `attach input_node input_src ${pin.toLowerCase().replace(/^ra/, "porta")}`,
+  ];
+}
+
+/** Runs `cycles` instruction cycles logging every write to LATA (gpsim `log w`); `setup` runs first (stimuli). */
+export function latchWrites(
+  dir: string,
+  cycles: number,
+  setup: string[] = [],
+  image = TEST_IMAGE,
+): LatchWrite[] {
   const log = path.join(dir, "lata.log");
-  gpsim(dir, latchCommands(log, cycles), image);
+  gpsim(dir, [...setup, ...latchCommands(log, cycles)], image);
   return parseLatch(readFileSync(log, "utf8"));
 }
 

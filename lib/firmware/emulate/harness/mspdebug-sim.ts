@@ -24,6 +24,8 @@ export interface SimOptions {
    * image reads it as its conversion result.
    */
   memory?: { addr: number; bytes: number[] }[];
+  /** Give port 1 its interrupt (the gpio device's `irq` vector slot, 2 = PORT1 on the G2553). */
+  p1Irq?: number;
 }
 
 export interface IsrStop {
@@ -62,6 +64,7 @@ function devices(o: SimOptions): string[] {
     "simio add gpio p1",
     "simio config p1 base 0x20",
     "simio config p1 verbose",
+    ...(o.p1Irq !== undefined ? [`simio config p1 irq ${o.p1Irq}`] : []),
     "simio add gpio p2",
     "simio config p2 base 0x28",
     "simio add tracer tr 4096",
@@ -294,4 +297,39 @@ function parseEvents(out: string, slot: number): { irqs: number; resets: number;
     resets: [...hist.matchAll(/system reset/g)].length,
     io: ioWrites(out),
   };
+}
+
+/** One input change: run `steps` simulator steps, then set P1.<pin> to `level`. */
+export interface InputChange {
+  steps: number;
+  pin: number;
+  level: 0 | 1;
+}
+
+/**
+ * Drives P1 input pins through the gpio device (`simio config p1 set`) after
+ * the given numbers of steps, then runs `tailSteps` more. Returns the MCLK
+ * count at each change (read from the tracer just before it) and the IO write
+ * history, whose stamps are MCLK counts too.
+ */
+export function runWithInputs(
+  elf: string,
+  changes: InputChange[],
+  tailSteps: number,
+  o: SimOptions = {},
+): { changeAt: number[]; io: IoWrite[]; irqs: { at: number; slot: number }[] } {
+  const cmds = [...devices(o)];
+  for (const c of changes)
+    cmds.push(`step ${c.steps}`, "simio info tr", `simio config p1 set ${c.pin} ${c.level}`);
+  cmds.push(`step ${tailSteps}`, "simio info tr");
+  const out = mspdebug(elf, cmds, 120_000);
+  const mclk = [...out.matchAll(/MCLK:\s+(\d+)/g)].map((m) => Number(m[1]));
+  if (mclk.length !== changes.length + 1)
+    throw new Error(`mspdebug printed ${mclk.length} clock readings for ${changes.length + 1}`);
+  const hist = out.split("IO event history (oldest first):").pop() ?? "";
+  const irqs = [...hist.matchAll(/^\s+(\d+): irq handle (\d+)/gm)].map((m) => ({
+    at: Number(m[1]),
+    slot: Number(m[2]),
+  }));
+  return { changeAt: mclk.slice(0, changes.length), io: ioWrites(out), irqs };
 }

@@ -1,0 +1,15 @@
+/* Timing constants — MSP430G2553 TIMER0_A3 isr
+ * Retrofit: Ostberg pump house lead-lag timer, revision r1, engine 1.0.0
+ * Achieved period 20.00000 ms (+0.000 ppm),
+ * high time 1.000000 ms (+0.000 ppm).
+ * period = ID * (TACCR0+1) * modeFactor * softwareDivider / f
+ *        = 1 * 40000 * 1 * 1 / 8000000
+ */
+#ifndef TIMING_H
+#define TIMING_H
+
+#define TIMING_CLOCK_HZ 8000000UL
+#define TIMING_SOFT_DIVIDER 1UL
+#define TIMING_HIGH_TICKS 8000UL
+
+#endif
