@@ -161,6 +161,11 @@ export const revisions = pgTable(
     buildError: text("build_error"),
     // Per target folder: { index, device, step, reason? } (BuildProgress)
     buildProgress: jsonb("build_progress").notNull().default({}),
+    // Per target folder: the emulator's verdict on the built image (TargetEmulation,
+    // lib/revisions/emulations.ts); {} for revisions built before emulation ran.
+    emulations: jsonb("emulations").notNull().default({}),
+    // Why the author sent a revision with a target not proven in an emulator (given at submit).
+    unprovenReason: text("unproven_reason"),
   },
   (t) => [uniqueIndex("revisions_retrofit_number_uq").on(t.retrofitId, t.number)],
 );

@@ -22,6 +22,9 @@ export async function loadRevisionForReview(id: number, tx?: Tx) {
         supersededAt: revisions.supersededAt,
         bundleSha256: revisions.bundleSha256,
         buildState: revisions.buildState,
+        buildProgress: revisions.buildProgress,
+        emulations: revisions.emulations,
+        unprovenReason: revisions.unprovenReason,
         engineVersion: revisions.engineVersion,
       },
       retrofit: {

@@ -1,7 +1,8 @@
 // Sending a prepared revision for checking. The state moves with a conditional UPDATE
 // (WHERE state = 'prepared'), so a double click or two engineers at once submit
 // it exactly once; the audit event and the mail to the reviewers are written
-// in the same transaction and sent after it commits.
+// in the same transaction and sent after it commits. A target the emulator did
+// not prove needs the author's reason (proof-gate.ts), stored on the row.
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
@@ -16,18 +17,25 @@ import { activeReviewers } from "./recipients";
 import { submitRefusal } from "./states";
 import { REVIEW_ACTIONS, STATE_WORDS } from "./words";
 import { buildRefusal } from "./build-gate";
+import { proofGate } from "./proof-gate";
 
-export async function submitRevision(user: AuthUser, revisionId: number, note = "") {
+export async function submitRevision(
+  user: AuthUser,
+  revisionId: number,
+  note = "",
+  unprovenReasonInput?: string,
+) {
   const result = await db.transaction(async (tx) => {
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = submitRefusal(user, revision);
     if (refusal) throw refusal;
     const unbuilt = buildRefusal(revision);
     if (unbuilt) throw unbuilt;
+    const unprovenReason = proofGate(revision, unprovenReasonInput);
     const now = new Date();
     const [moved] = await tx
       .update(revisions)
-      .set({ state: "awaiting_check", submittedAt: now })
+      .set({ state: "awaiting_check", submittedAt: now, unprovenReason })
       .where(and(eq(revisions.id, revisionId), eq(revisions.state, "prepared")))
       .returning({ id: revisions.id });
     if (!moved) {
@@ -49,6 +57,7 @@ export async function submitRevision(user: AuthUser, revisionId: number, note = 
           from: "prepared",
           to: "awaiting_check",
           note,
+          ...(unprovenReason ? { unprovenReason } : {}),
         },
       },
       tx,

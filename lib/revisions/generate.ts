@@ -6,8 +6,8 @@
 // number, together with its build job (one transaction: the row exists exactly
 // when its job does).
 // buildRevision (on a worker): compile every target from the stored snapshot,
-// then store files, images, bundle and the audit event in ONE transaction and
-// mark it ready; a build that cannot succeed marks it failed with the reason
+// run each built image in its emulator (emulate-build.ts), then store files,
+// images, bundle, emulations and the audit event in ONE transaction and mark it ready; a build that cannot succeed marks it failed with the reason
 // and stores nothing else. A worker killed mid-build commits nothing; the
 // queue runs the job again and the revision is still "building".
 // No "server-only" marker: the seed script runs this outside Next.
@@ -47,6 +47,7 @@ import {
   type StageControl,
 } from "@/lib/engine";
 import { reportProgress } from "@/lib/jobs/progress";
+import { emulateBuilt } from "./emulate-build";
 import { storedControl } from "@/lib/validation/control";
 import type { BuildProgress } from "./build-state";
 import { TARGET_FIELDS } from "@/lib/validation/target";
@@ -313,6 +314,12 @@ export async function buildRevision(revisionId: number): Promise<BuildOutcome> {
     await failRevision(revisionId, lasting.message, lasting.folder);
     return { state: "failed", revisionId, number: rev.number, error: lasting.message };
   }
+  // Emulation after every target compiled; its results are stored with the rest below.
+  const emulations = await emulateBuilt(spec, files, (folder) =>
+    reportProgress(revisionId, folder, "emulating").catch((e: Error) =>
+      console.error(`revision ${revisionId}: progress not recorded: ${e.message}`),
+    ),
+  );
   const zip = Buffer.from(await zipBundle(files));
   const bundleSha256 = sha256Hex(zip);
 
@@ -358,6 +365,7 @@ export async function buildRevision(revisionId: number): Promise<BuildOutcome> {
         buildState: "ready",
         buildError: null,
         buildProgress: done,
+        emulations,
       })
       .where(eq(revisions.id, revisionId));
     await recordAudit(
@@ -372,6 +380,7 @@ export async function buildRevision(revisionId: number): Promise<BuildOutcome> {
           bundleSha256,
           files: files.length,
           engineVersion: ENGINE_VERSION,
+          emulations: Object.fromEntries(Object.entries(emulations).map(([f, e]) => [f, e.verdict])),
         },
       },
       tx,

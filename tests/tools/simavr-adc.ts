@@ -1,5 +1,5 @@
 // Builds an AVR C source with avr-gcc and runs it in libsimavr through
-// tests/tools/simavr/pin-trace.c with a chosen voltage on one ADC input,
+// lib/firmware/emulate/harness/simavr/pin-trace.c with a chosen voltage on one ADC input,
 // then returns the edges of one pin (VCD, IEEE 1364-2005 section 18).
 import { createHash } from "node:crypto";
 import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
@@ -7,7 +7,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { mustRun, requireTool } from "./require-tool";
 import { simavrHarness } from "./simavr";
-import { parseVcd, type Edge } from "./vcd";
+import { parseVcd, type Edge } from "@/lib/firmware/emulate/harness/vcd";
 
 /** avr-gcc -Os the one C file into an Intel HEX image; returns its path. */
 export function buildAvrHex(source: string, mcu: string, clockHz: number): string {

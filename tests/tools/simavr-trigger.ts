@@ -1,5 +1,5 @@
 // Builds a triggered AVR bundle target with its own Makefile and runs it in
-// tests/tools/simavr/trigger-trace.c, which drives the input pin; returns the
+// lib/firmware/emulate/harness/simavr/trigger-trace.c, which drives the input pin; returns the
 // input and output changes by CPU cycle.
 import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";

@@ -1,48 +1,24 @@
 // Runs a bundle's AVR image (the exact firmware.hex it ships) in libsimavr
-// through tests/tools/simavr/pin-trace.c and measures one pin from the VCD it
-// writes. The harness is compiled once per test process with the host gcc.
-import { createHash } from "node:crypto";
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+// through lib/firmware/emulate/harness/simavr/pin-trace.c and measures one pin from the VCD it
+// writes. The harness is compiled once per source content with the host gcc.
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { BundleFile } from "@/lib/bundle";
+import {
+  simavrHarnessBinary,
+  simavrMissing,
+  type SimavrHarness,
+} from "@/lib/firmware/emulate/harness/simavr-build";
 import { mustRun, requireTool } from "./require-tool";
-import { measure, parseVcd, type Measured } from "./vcd";
+import { measure, parseVcd, type Measured } from "@/lib/firmware/emulate/harness/vcd";
 
-/** Compiles tests/tools/simavr/<name>.c against libsimavr with the host gcc, once per
- *  source content (the binary's folder is named by the source's sha256); returns the binary. */
-export function simavrHarness(name: string): string {
+/** The lib harness (lib/firmware/emulate/harness/simavr/<name>.c), compiled once; a missing tool fails the test with the package. */
+export function simavrHarness(name: SimavrHarness): string {
   requireTool("gcc", "gcc");
-  if (!existsSync("/usr/include/simavr/sim_avr.h"))
-    throw new Error("libsimavr headers missing: apt-get install -y libsimavr-dev");
-  const source = path.join(process.cwd(), "tests/tools/simavr", `${name}.c`);
-  const src = readFileSync(source);
-  const dir = path.join(
-    tmpdir(),
-    `cg-simavr-${name}-${createHash("sha256").update(src).digest("hex").slice(0, 12)}`,
-  );
-  const bin = path.join(dir, name);
-  if (!existsSync(bin)) {
-    mkdirSync(dir, { recursive: true });
-    const tmp = `${bin}.${process.pid}`;
-    mustRun(
-      "gcc",
-      [
-        "-O1",
-        "-Wall",
-        "-Werror",
-        "-I/usr/include/simavr",
-        "-I/usr/include/simavr/avr",
-        "-o",
-        tmp,
-        source,
-        "-lsimavr",
-      ],
-      dir,
-    );
-    mustRun("mv", [tmp, bin], dir);
-  }
-  return bin;
+  const missing = simavrMissing();
+  if (missing) throw new Error(`${missing}: apt-get install -y libsimavr-dev`);
+  return simavrHarnessBinary(name);
 }
 
 export interface PinRun {

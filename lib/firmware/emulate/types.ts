@@ -26,6 +26,8 @@ export interface EmulationInput {
   kind: string;
   /** Acceptance half-width for period and high time, in seconds (e.g. one timer count plus latency). */
   toleranceS: { period: number; high: number };
+  /** The plan's CPU clock, for emulators that count cycles (simavr); a wrapper that needs it and gets none answers not-emulated. */
+  clockHz?: number;
   /** Wall-clock cap for the emulator run. */
   timeoutMs?: number;
 }

@@ -1,5 +1,5 @@
 // The bundle's own AVR images run in simavr (Debian libsimavr 1.6, harness
-// tests/tools/simavr/pin-trace.c): the shipped firmware/firmware.hex, no
+// lib/firmware/emulate/harness/simavr/pin-trace.c): the shipped firmware/firmware.hex, no
 // simulator code linked in. The traced pin's period and high time match the
 // REQUESTED values within half a timer count plus one CPU cycle (simavr steps
 // whole cycles), firmware.md "Timing of an image". Timer modes: ATmega328P

@@ -2,7 +2,7 @@
 // format and the simavr habits noted in verification (start at x, repeated
 // values 10 ns apart).
 import { describe, expect, it } from "vitest";
-import { measure, parseVcd } from "@/tests/tools/vcd";
+import { measure, parseVcd } from "@/lib/firmware/emulate/harness/vcd";
 
 const trace = `$timescale 10ns $end
 $scope module logic $end

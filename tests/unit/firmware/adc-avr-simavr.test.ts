@@ -12,7 +12,7 @@ import { describe, expect, it } from "vitest";
 import { buildAdcTable, type Stage } from "@/lib/engine";
 import { avrAdcPrescaler, renderAtmega328pAdc, renderAttiny85Adc } from "@/lib/bundle/adc-avr";
 import { buildAvrHex, runAvrWithAdc } from "@/tests/tools/simavr-adc";
-import { measure } from "@/tests/tools/vcd";
+import { measure } from "@/lib/firmware/emulate/harness/vcd";
 
 const CLOCK = 16e6;
 const AVCC_MV = 5000;

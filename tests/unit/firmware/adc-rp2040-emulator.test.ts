@@ -15,7 +15,7 @@ import { buildBundleSources, type BundleFile } from "@/lib/bundle";
 import { renderRp2040Adc } from "@/lib/bundle/adc-rp2040";
 import { spec } from "@/tests/unit/bundle/fixtures";
 import { buildRp2040, type SourceEdit } from "./rp2040-build";
-import { bootAndRun } from "./rp2040-emulator";
+import { bootAndRun } from "@/lib/firmware/emulate/harness/rp2040-boot";
 import { elfFlashContent } from "./rp2040-image-readers";
 
 const CLOCK = 12e6;

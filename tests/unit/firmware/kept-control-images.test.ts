@@ -12,7 +12,7 @@ import { describe, expect, it } from "vitest";
 import { buildAdcTable } from "@/lib/engine";
 import { buildBundleFiles } from "@/lib/firmware/bundle";
 import { GOLDEN_CASES } from "../../golden/cases";
-import { bootAndRun } from "./rp2040-emulator";
+import { bootAndRun } from "@/lib/firmware/emulate/harness/rp2040-boot";
 import { elfFlashContent } from "./rp2040-image-readers";
 
 const spec = GOLDEN_CASES.find((c) => c.name === "kept-pot-555")!.spec;

@@ -13,7 +13,12 @@ import { buildBundleSources, type BundleFile } from "@/lib/bundle";
 import { spec } from "@/tests/unit/bundle/fixtures";
 import { planTarget, type PlanRequest, type TimerPlan } from "@/lib/engine";
 import { buildRp2040, type SourceEdit } from "./rp2040-build";
-import { BootRefused, bootAndRun, measure, type RunOutcome } from "./rp2040-emulator";
+import {
+  BootRefused,
+  bootAndRun,
+  measure,
+  type RunOutcome,
+} from "@/lib/firmware/emulate/harness/rp2040-boot";
 import { elfFlashContent } from "./rp2040-image-readers";
 
 /**

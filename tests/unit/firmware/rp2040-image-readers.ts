@@ -6,85 +6,12 @@
 // family id) and the boot ROM's CRC-32 (RP2040 datasheet, bootrom, boot
 // stage 2: polynomial 0x04C11DB7, initial 0xFFFFFFFF, no reflection, no final XOR).
 
-/** Bitwise CRC-32, most significant bit first, no table: the check the RP2040 boot ROM makes. */
-export function romCrc32(bytes: Uint8Array): number {
-  let crc = 0xffffffff;
-  for (const b of bytes) {
-    crc = (crc ^ (b << 24)) >>> 0;
-    for (let i = 0; i < 8; i++) {
-      crc = crc & 0x80000000 ? ((crc << 1) ^ 0x04c11db7) >>> 0 : (crc << 1) >>> 0;
-    }
-  }
-  return crc >>> 0;
-}
-
-/** Contiguous memory image: start address and bytes. */
-export interface MemImage {
-  base: number;
-  bytes: Uint8Array;
-}
-
-function fromSegments(segments: { addr: number; data: Uint8Array }[]): MemImage {
-  if (segments.length === 0) throw new Error("no loadable bytes");
-  const base = Math.min(...segments.map((s) => s.addr));
-  const end = Math.max(...segments.map((s) => s.addr + s.data.length));
-  const bytes = new Uint8Array(end - base).fill(0xff);
-  for (const s of segments) bytes.set(s.data, s.addr - base);
-  return { base, bytes };
-}
-
-/** Loadable flash content of an ELF32 little-endian file: PT_LOAD segments by physical (load) address. */
-export function elfFlashContent(elf: Uint8Array, flashBase = 0x10000000, flashEnd = 0x11000000): MemImage {
-  const v = new DataView(elf.buffer, elf.byteOffset, elf.byteLength);
-  if (v.getUint32(0, false) !== 0x7f454c46) throw new Error("not an ELF file");
-  if (elf[4] !== 1 || elf[5] !== 1) throw new Error("not ELF32 little-endian");
-  const phoff = v.getUint32(28, true);
-  const phentsize = v.getUint16(42, true);
-  const phnum = v.getUint16(44, true);
-  const segments: { addr: number; data: Uint8Array }[] = [];
-  for (let i = 0; i < phnum; i++) {
-    const o = phoff + i * phentsize;
-    const type = v.getUint32(o, true);
-    const offset = v.getUint32(o + 4, true);
-    const paddr = v.getUint32(o + 12, true);
-    const filesz = v.getUint32(o + 16, true);
-    if (type !== 1 || filesz === 0) continue; // PT_LOAD with file bytes
-    if (paddr < flashBase || paddr >= flashEnd) continue;
-    segments.push({ addr: paddr, data: elf.subarray(offset, offset + filesz) });
-  }
-  return fromSegments(segments);
-}
-
-/** Intel HEX: data (00), end (01), extended linear address (04) and start address (05) records, checksums checked. */
-export function hexContent(text: string): MemImage {
-  const segments: { addr: number; data: Uint8Array }[] = [];
-  let upper = 0;
-  let ended = false;
-  for (const [n, raw] of text.split(/\r?\n/).entries()) {
-    const line = raw.trim();
-    if (line === "") continue;
-    if (ended) throw new Error(`hex line ${n + 1}: data after the end record`);
-    if (!line.startsWith(":")) throw new Error(`hex line ${n + 1}: no start code`);
-    const rec = Uint8Array.from(
-      line
-        .slice(1)
-        .match(/../g)!
-        .map((h) => parseInt(h, 16)),
-    );
-    const sum = rec.reduce((a, b) => (a + b) & 0xff, 0);
-    if (sum !== 0) throw new Error(`hex line ${n + 1}: checksum`);
-    const len = rec[0];
-    const addr = (rec[1] << 8) | rec[2];
-    const type = rec[3];
-    const data = rec.subarray(4, 4 + len);
-    if (type === 0) segments.push({ addr: (upper + addr) >>> 0, data });
-    else if (type === 1) ended = true;
-    else if (type === 4) upper = ((data[0] << 8) | data[1]) * 0x10000;
-    else if (type !== 5) throw new Error(`hex line ${n + 1}: record type ${type}`);
-  }
-  if (!ended) throw new Error("hex: no end record");
-  return fromSegments(segments);
-}
+// The ROM check itself lives with the emulator harness (the product runs it too).
+export { romCrc32 } from "@/lib/firmware/emulate/harness/rp2040-crc";
+// The ELF and Intel HEX readers and the segment joiner live with the emulator
+// harness, which loads images in the product as well.
+import { fromSegments, type MemImage } from "@/lib/firmware/emulate/harness/image-readers";
+export { elfFlashContent, hexContent, type MemImage } from "@/lib/firmware/emulate/harness/image-readers";
 
 export interface Uf2Block {
   flags: number;

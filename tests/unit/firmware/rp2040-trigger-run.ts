@@ -5,7 +5,7 @@
 import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { planTarget, type TimerPlan } from "@/lib/engine";
 import { buildRp2040, type SourceEdit } from "./rp2040-build";
-import { bootAndRun, type Edge } from "./rp2040-emulator";
+import { bootAndRun, type Edge } from "@/lib/firmware/emulate/harness/rp2040-boot";
 import { elfFlashContent } from "./rp2040-image-readers";
 
 export interface InputStep {

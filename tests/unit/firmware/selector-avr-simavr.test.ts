@@ -1,5 +1,5 @@
 // The kept selector switch on the AVRs: the bundle's src/main.c (built with
-// avr-gcc) runs in libsimavr through tests/tools/simavr/switch-trace.c, which
+// avr-gcc) runs in libsimavr through lib/firmware/emulate/harness/simavr/switch-trace.c, which
 // holds the switch's contacts low or high by cycle, and the timer output is
 // traced. Expected values: the old stage's own period per switched capacitor,
 // NE555 astable (TI NE555 datasheet SLFS022, astable operation)
@@ -21,7 +21,7 @@ import { buildBundleSources, type BundleSpec, type BundleTargetRequest } from "@
 import { mustRun } from "@/tests/tools/require-tool";
 import { buildAvrHex } from "@/tests/tools/simavr-adc";
 import { simavrHarness } from "@/tests/tools/simavr";
-import { measure, parseVcd, type Edge } from "@/tests/tools/vcd";
+import { measure, parseVcd, type Edge } from "@/lib/firmware/emulate/harness/vcd";
 
 const RA = 1e3;
 const RB = 10e3;

@@ -1,5 +1,5 @@
 // Triggered and zero-cross firmware on the AVRs (engine.md section 6), run in
-// simavr with the input pin driven by tests/tools/simavr/trigger-trace.c.
+// simavr with the input pin driven by lib/firmware/emulate/harness/simavr/trigger-trace.c.
 // Contract checked: each selected input edge is followed by one output pulse;
 // delay = delayCounts counts within one count (the prescaler phase) plus the
 // plan's latencyCycles; width = highCounts counts within one count.

@@ -4,6 +4,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { BuildProgress } from "@/components/retrofit/build-progress";
+import { EmulationProof } from "@/components/review/emulation-proof";
 import { StateBadge } from "@/components/review/state-badge";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { pageUser } from "@/lib/auth/page";
@@ -12,6 +13,7 @@ import { getRetrofitById } from "@/lib/retrofits/get";
 import { getRevisionById, listRevisionFiles, listRevisionImages } from "@/lib/retrofits/revisions";
 import { canReadRevision } from "@/lib/revisions/access";
 import { progressList, type BuildProgress as Progress } from "@/lib/revisions/build-state";
+import type { RevisionEmulations } from "@/lib/revisions/emulations";
 import type { StoredPlan } from "@/lib/revisions/types";
 import { FileView } from "./file-view";
 import { Markdown } from "./markdown";
@@ -97,6 +99,16 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
             </Link>
           )}
         </section>
+      )}
+
+      {revision.buildState === "ready" && (
+        <EmulationProof
+          headingId="emulation-title"
+          number={revision.number}
+          folders={progressList(revision.buildProgress as Progress).map((p) => p.folder)}
+          emulations={revision.emulations as RevisionEmulations}
+          unprovenReason={revision.unprovenReason}
+        />
       )}
 
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />

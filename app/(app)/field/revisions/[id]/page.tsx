@@ -9,6 +9,7 @@ import { CopySha } from "@/components/field/copy-sha";
 import { VerifyBundle } from "@/components/field/verify-bundle";
 import { FieldHistory } from "@/components/field/field-history";
 import { ReleaseNote } from "@/components/field/release-note";
+import { TargetImages } from "@/components/field/target-images";
 import { capturesKey } from "@/components/field/keys";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -18,6 +19,8 @@ import { targetFolders } from "@/lib/bundle/folders";
 import { checklistSteps } from "@/lib/field/checklist-steps";
 import { getRevisionFile, getRevisionWithRetrofit } from "@/lib/field/queries";
 import { canReadRevision } from "@/lib/revisions/access";
+import { listRevisionImages } from "@/lib/retrofits/revisions";
+import { loadEmulations } from "@/lib/revisions/load-emulations";
 import { deviceName } from "@/components/retrofit/format";
 
 export const metadata: Metadata = { title: "Field check" };
@@ -39,6 +42,10 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
       ),
     ),
   );
+  const [images, emu] = await Promise.all([
+    listRevisionImages({ revisionId: revision.id }),
+    loadEmulations(revision.id),
+  ]);
 
   return (
     <div className="flex flex-col gap-6">
@@ -68,6 +75,7 @@ export default async function FieldRevisionPage({ params }: { params: Promise<{ 
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
       <ReleaseNote revisionId={revision.id} />
+      <TargetImages images={images} emulations={emu?.emulations ?? {}} released={released} />
       {FIELD.includes(user.role) && released && (
         <section className="panel">
           <CheckForm

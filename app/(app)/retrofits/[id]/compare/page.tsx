@@ -20,6 +20,8 @@ import { registerChanges } from "@/lib/diff/registers";
 import { RevisionPicker } from "@/components/diff/revision-picker";
 import { UnbuiltNotice, unbuiltSentence, type UnbuiltRevision } from "@/components/diff/unbuilt-notice";
 import { HazardCaution } from "@/components/ui/hazard-caution";
+import { EmulationProof } from "@/components/review/emulation-proof";
+import { loadEmulations } from "@/lib/revisions/load-emulations";
 import { NotAllowed } from "@/components/ui/not-allowed";
 import { ApiError } from "@/lib/api/errors";
 import { pageUser } from "@/lib/auth/page";
@@ -104,6 +106,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   );
   const filesReady = unbuilt.length === 0;
   const comments = (await listThreads(b.id)).map(toThreadView);
+  const [emuA, emuB] = await Promise.all([a.number > 0 ? loadEmulations(a.id) : null, loadEmulations(b.id)]);
   const boardThreads = comments.filter((c) => !c.filePath);
   const canComment = COMMENT_ROLES.includes(user.role);
   const anchors = revisionAnchors(b);
@@ -178,6 +181,33 @@ export default async function ComparePage({ params, searchParams }: Props) {
             Registers the firmware writes
           </h2>
           <RegisterTable targets={registerChanges(a, b)} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
+
+        <section aria-labelledby="emulated-h" className="space-y-2">
+          <h2 id="emulated-h" className="text-lg font-semibold">
+            Emulated output beside the plan
+          </h2>
+          <div className="grid gap-4 lg:grid-cols-2">
+            {[
+              { rev: a, emu: emuA },
+              { rev: b, emu: emuB },
+            ].map(({ rev, emu }) =>
+              emu && emu.buildState === "ready" ? (
+                <EmulationProof
+                  key={rev.id}
+                  headingId={`emulated-r${rev.number}`}
+                  number={rev.number}
+                  folders={emu.folders}
+                  emulations={emu.emulations}
+                  unprovenReason={emu.unprovenReason}
+                />
+              ) : rev.number > 0 ? (
+                <p key={rev.id} className="panel text-sm text-ink-soft">
+                  r{rev.number} has no built images yet, so nothing was emulated.
+                </p>
+              ) : null,
+            )}
+          </div>
         </section>
 
         <section aria-labelledby="board-comments-h" className="space-y-2">

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { CommentForm } from "@/components/review/comment-form";
 import { DecisionForm } from "@/components/review/decision-form";
 import { StateBadge } from "@/components/review/state-badge";
+import { EmulationProof } from "@/components/review/emulation-proof";
 import { SubmitForReview } from "@/components/review/submit-button";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { NotAllowed } from "@/components/ui/not-allowed";
@@ -20,6 +21,8 @@ import { db } from "@/db/client";
 import { revisions } from "@/db/schema";
 import { loadRevisionForReview } from "@/lib/review/load";
 import { decideRefusal, submitRefusal } from "@/lib/review/states";
+import { progressList, type BuildProgress } from "@/lib/revisions/build-state";
+import { proofOf, type RevisionEmulations } from "@/lib/revisions/emulations";
 
 export const metadata: Metadata = { title: "Review" };
 
@@ -47,6 +50,9 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
   const mayDecide = decideRefusal(user, revision) === null;
   const decideWhy = decideRefusal(user, revision)?.message;
   const maySubmit = submitRefusal(user, revision) === null;
+  const folders = progressList(revision.buildProgress as BuildProgress).map((p) => p.folder);
+  const emulations = revision.emulations as RevisionEmulations;
+  const proof = proofOf(folders, emulations);
 
   return (
     <section className="space-y-6">
@@ -69,6 +75,15 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
         {revision.note && <p className="mt-1 text-sm">Note: {revision.note}</p>}
       </header>
       <HazardCaution mainsPowered={retrofit.mainsPowered} drivesThyristor={retrofit.drivesThyristor} />
+      {revision.buildState === "ready" && (
+        <EmulationProof
+          headingId="emulation-h"
+          number={revision.number}
+          folders={folders}
+          emulations={emulations}
+          unprovenReason={revision.unprovenReason}
+        />
+      )}
       <div className="flex flex-wrap gap-2">
         <Link className="btn" href={`/retrofits/${retrofit.id}/compare?b=${revision.id}`}>
           Compare with an earlier revision
@@ -110,7 +125,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ id: str
             <h2 id="decide-h" className="text-lg font-semibold">
               Decision
             </h2>
-            {maySubmit && <SubmitForReview revisionId={revision.id} number={revision.number} />}
+            {maySubmit && <SubmitForReview revisionId={revision.id} number={revision.number} proof={proof} />}
             {mayDecide && <DecisionForm revisionId={revision.id} number={revision.number} missed={missed} />}
             {!maySubmit && !mayDecide && <p className="text-sm text-ink-soft">{decideWhy}</p>}
             {revision.state === "returned" && (

@@ -4,12 +4,18 @@ import { requireUser } from "@/lib/auth/guard";
 import { EDIT } from "@/lib/auth/roles";
 import { submitRevision } from "@/lib/review/submit";
 
-const body = z.object({ note: z.string().trim().max(2000).optional() }).strict();
+const body = z
+  .object({
+    note: z.string().trim().max(2000).optional(),
+    // Required (422 naming it) when a target is not proven in an emulator.
+    unprovenReason: z.string().trim().max(2000).optional(),
+  })
+  .strict();
 
-// POST /api/v1/revisions/:id/submit { note? }: prepared -> awaiting_check (engineers, admins).
+// POST /api/v1/revisions/:id/submit { note?, unprovenReason? }: prepared -> awaiting_check (engineers, admins).
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Revision");
   const input = body.parse(await readOptionalJson(req));
   const user = await requireUser({ roles: EDIT, req });
-  return Response.json({ revision: await submitRevision(user, id, input.note ?? "") });
+  return Response.json({ revision: await submitRevision(user, id, input.note ?? "", input.unprovenReason) });
 });

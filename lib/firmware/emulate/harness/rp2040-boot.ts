@@ -1,4 +1,4 @@
-// Runs a built RP2040 flash image in rp2040js (npm devDependency) from the
+// Runs a built RP2040 flash image in rp2040js (npm package) from the
 // state the boot ROM hands over, and records one GPIO's edges.
 //
 // rp2040js has no boot ROM image here, so the harness does the ROM's part
@@ -15,7 +15,7 @@
 // to IO_BANK0, PADS_BANK0, PLL_SYS and PWM are dropped while their bit is set.
 // A missing release therefore shows as a pin that never moves.
 import { GPIOPinState, RP2040 } from "rp2040js";
-import { romCrc32 } from "./rp2040-image-readers";
+import { romCrc32 } from "./rp2040-crc";
 
 /** RESETS bit numbers (RP2040 datasheet, RESETS register list). */
 export const RESET_BITS = {
@@ -53,6 +53,8 @@ export interface RunOutcome {
   /** writes dropped because the block was still in reset, by peripheral page */
   droppedWrites: Record<string, number>;
   instructions: number;
+  /** true when maxWallMs ended the run */
+  timedOut: boolean;
 }
 
 interface PeripheralLike {
@@ -91,6 +93,8 @@ export function bootAndRun(
     edgesWanted: number;
     maxNs: number;
     maxInstructions?: number;
+    /** wall-clock cap in ms (the product's budget); the run stops and says timedOut */
+    maxWallMs?: number;
     /** called before the first instruction (e.g. to set ADC input values) */
     setup?: (rp: RP2040) => void;
   },
@@ -120,7 +124,13 @@ export function bootAndRun(
   const clock = rp.clock as unknown as { nanos: number; tick(ns: number): void; nanosToNextAlarm: number };
   const maxInstructions = opts.maxInstructions ?? 50_000_000;
   let instructions = 0;
+  const deadline = opts.maxWallMs === undefined ? Infinity : Date.now() + opts.maxWallMs;
+  let timedOut = false;
   while (edges.length < opts.edgesWanted && clock.nanos < opts.maxNs && instructions < maxInstructions) {
+    if ((instructions & 0xffff) === 0 && Date.now() > deadline) {
+      timedOut = true;
+      break;
+    }
     if (rp.core.waiting) {
       const dt = clock.nanosToNextAlarm;
       if (dt <= 0) break; // asleep with nothing scheduled: nothing more will happen
@@ -132,7 +142,7 @@ export function bootAndRun(
     }
     instructions++;
   }
-  return { rp, edges, clkSysHz: rp.clkSys, droppedWrites: dropped, instructions };
+  return { rp, edges, clkSysHz: rp.clkSys, droppedWrites: dropped, instructions, timedOut };
 }
 
 export interface Measured {
