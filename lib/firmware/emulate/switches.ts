@@ -2,6 +2,7 @@
 // emulation off, and a period too long for the budget is not run. Plain
 // reasons, never a guessed result.
 import { formatEng } from "@/lib/engine/units";
+import { emulatorsOff as emulatorsSwitchedOff } from "./harness/tool";
 import type { EmulationResult } from "./types";
 
 /** Emulated time one run may cover: the slowest period the product proves (keeps CI and workers quick). */
@@ -15,7 +16,7 @@ export function notEmulated(reason: string, tool?: string): EmulationResult {
 
 /** Set CLOCKGRAFT_EMULATORS_OFF=1 to run no emulator (every target answers not-emulated). */
 export function emulatorsOff(): EmulationResult | null {
-  return process.env.CLOCKGRAFT_EMULATORS_OFF === "1"
+  return emulatorsSwitchedOff()
     ? notEmulated("Emulators are switched off on this deployment (CLOCKGRAFT_EMULATORS_OFF=1).")
     : null;
 }

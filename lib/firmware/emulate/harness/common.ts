@@ -4,12 +4,10 @@
 import { mkdtemp, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
+import { emulatorsOff, notEmulated } from "../switches";
 import type { EmulationInput, EmulationResult } from "../types";
-import { emulatorsOff } from "./tool";
 
-export function notEmulated(reason: string, tool?: string): EmulationResult {
-  return tool ? { verdict: "not-emulated", reason, tool } : { verdict: "not-emulated", reason };
-}
+export { notEmulated };
 
 /**
  * The answer for the cases every wrapper refuses the same way: emulators off
@@ -20,10 +18,8 @@ export function commonRefusal(
   device: string,
   kinds: readonly string[],
 ): EmulationResult | null {
-  if (emulatorsOff())
-    return notEmulated(
-      "Emulators are switched off on this deployment (CLOCKGRAFT_EMULATORS_OFF=1); nothing was run.",
-    );
+  const off = emulatorsOff();
+  if (off) return off;
   if (!kinds.includes(input.kind))
     return notEmulated(
       `The ${device} emulator wrapper drives ${kinds.join(" and ")} plans only; this plan is "${input.kind}", so nothing was run.`,
