@@ -215,10 +215,15 @@ describe("a worker killed with SIGKILL during a generation", () => {
       note: "killed mid-job",
     });
     delete process.env.CLOCKGRAFT_JOB_EXPIRE_SECONDS;
-    // Killed while compiling: the worker has reported a target's compile start.
+    // Killed mid-job: the worker has reported a target's compile start (or already its emulation;
+    // nothing is stored before the last transaction, so either is mid-job).
+    const MID_JOB = ["compiling", "compiled", "emulating"];
     await pollUntil("the victim to start compiling", 120_000, async () =>
-      Object.values(await progressOf(revisionId)).some((p) => p.step === "compiling") ? true : undefined,
-    );
+      Object.values(await progressOf(revisionId)).some((p) => MID_JOB.includes(p.step)) ? true : undefined,
+    ).catch(async (e: Error) => {
+      const progress = JSON.stringify(await progressOf(revisionId));
+      throw new Error(`${e.message}; progress ${progress}; victim log:\n${victim.log.slice(-30).join("\n")}`);
+    });
     await stopWorker(victim, "SIGKILL");
     const killedAt = Date.now();
 
