@@ -16,17 +16,24 @@ import { judgeCheck, requiredRelativeOf, revisionPlans } from "./judge";
 import { getRevisionWithRetrofit, getUserEmail, insertFieldCheck, listFieldChecks } from "./queries";
 import type { CheckLine, FieldCheckView } from "./shapes";
 
-const seconds = z.number().finite().positive("Enter a time greater than zero.");
+const seconds = z
+  .number({ error: "A time is a JSON number in seconds (0.01 = 10 ms)." })
+  .finite()
+  .positive("Enter a time greater than zero.");
 
 export const fieldCheckSchema = z
   .object({
     revisionId: dbId,
-    target: z.number().int().min(0).default(0),
+    target: z
+      .number({ error: "target is the target's index, a whole number from 0." })
+      .int("target is a whole number from 0.")
+      .min(0, "target is a whole number from 0.")
+      .default(0),
     measuredPeriodS: seconds.optional(),
     measuredHighS: seconds.optional(),
     /** Reading resolution of the instrument (scope cursor step, counter's last digit); widens each limit. */
     resolutionS: z
-      .number()
+      .number({ error: "Resolution is a JSON number in seconds." })
       .finite()
       .min(0, "Resolution must not be negative.")
       .max(1, "Resolution is at most 1 s.")

@@ -103,6 +103,51 @@ describe.each(jsonRoutes)("JSON body of $method $pattern", (r: RouteEntry) => {
   );
 });
 
+// Numbers are read strictly (issue 15 point 8): a list, a boolean or hex text in
+// a number field used to be coerced by Number() ([16] -> 16, true -> 1,
+// "0x10" -> 16). Now each is a 400 that names the field and stores nothing.
+const COERCIBLE: unknown[] = [true, [2], "0x10"];
+describe.each(jsonRoutes)("numbers in $method $pattern are not coerced", (r: RouteEntry) => {
+  it(
+    "every number leaf x a list, a boolean, hex text: 400 naming the leaf",
+    { timeout: 300_000 },
+    async () => {
+      const req = await r.build(w, "admin");
+      const base = req.json;
+      const state = { fp: await fingerprint(w) };
+      const numeric = leafPaths(base).filter((path) =>
+        isNumericLeaf(path.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], base)),
+      );
+      for (const path of numeric) {
+        for (const bad of COERCIBLE) {
+          const res = await send(w, "admin", r.method, { ...req, json: withLeaf(base, path, bad) });
+          const what = `${r.method} ${req.path} ${path.join(".")}=${JSON.stringify(bad)}`;
+          await judge(res, what, state, true);
+          expect(res.status, `${what} -> ${res.text.slice(0, 200)}`).toBe(400);
+          const fields = (res.body as { error: { fields?: Record<string, string> } }).error.fields ?? {};
+          expect(Object.keys(fields), `${what} -> ${res.text.slice(0, 200)}`).toContain(path.join("."));
+        }
+      }
+    },
+  );
+});
+
+it("the strict-number corpus reaches number leaves (plan body: tolerance, clock, stage times)", async () => {
+  const plan = ROUTES.find((r) => r.method === "POST" && r.pattern === "/api/v1/plan")!;
+  const body = (await plan.build(w, "admin")).json;
+  const numeric = leafPaths(body).filter((p) =>
+    isNumericLeaf(p.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], body)),
+  );
+  expect(numeric.map((p) => p.join("."))).toEqual(
+    expect.arrayContaining([
+      "stage.periodS",
+      "stage.highS",
+      "targets.0.clockHz",
+      "targets.0.requiredTolerancePct",
+    ]),
+  );
+});
+
 describe.each(queryRoutes)("query of $method $pattern", (r: RouteEntry) => {
   it("every parameter x every bad value", { timeout: 300_000 }, async () => {
     const req = await r.build(w, "admin");

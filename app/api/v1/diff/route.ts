@@ -4,10 +4,9 @@ import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
 import { unifiedPatch } from "@/lib/diff";
 import { compareRevisions, loadPair } from "@/lib/diff/load";
-import { MAX_DB_ID } from "@/lib/validation/id";
+import { dbIdText } from "@/lib/validation/id";
 
-const id = z.coerce.number().int().positive().max(MAX_DB_ID);
-const query = z.object({ a: id, b: id, format: z.enum(["json", "patch"]).default("json") });
+const query = z.object({ a: dbIdText, b: dbIdText, format: z.enum(["json", "patch"]).default("json") });
 
 // GET /api/v1/diff?a=<revId>&b=<revId>[&format=patch]: what changed from a to b.
 // JSON: { retrofitId, a, b, numbers: [{ key, what, before, after, ... }], files: [...] }.
