@@ -3,6 +3,7 @@ import "server-only";
 // checklist limits and the verdict; a failed check e-mails the revision's author.
 import { z } from "zod";
 import { dbId } from "@/lib/validation/id";
+import { measurementProblems } from "@/lib/validation/measurement";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
@@ -42,7 +43,18 @@ export const fieldCheckSchema = z
     notes: z.string().max(4000).default(""),
     signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
   })
-  .strict();
+  .strict()
+  .superRefine((c, ctx) => {
+    // Bounds from the devices (lib/validation/measurement.ts): 5e-324 s or a
+    // period in millennia is a slip, not a reading.
+    const problems = measurementProblems(
+      { periodS: c.measuredPeriodS, highS: c.measuredHighS },
+      { periodS: "measuredPeriodS", highS: "measuredHighS" },
+      { periodS: "Measured period", highS: "Measured high time" },
+    );
+    for (const [field, message] of Object.entries(problems))
+      ctx.addIssue({ code: "custom", message, path: [field] });
+  });
 
 export type FieldCheckInput = z.infer<typeof fieldCheckSchema>;
 

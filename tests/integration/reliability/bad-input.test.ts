@@ -303,3 +303,62 @@ describe("ids past the integer column and impossible audit dates", () => {
     expect(res.status, `${c.what}: ${res.text.slice(0, 200)}`).toBe(400);
   });
 });
+
+describe("measurements no device can make", () => {
+  // Bounds from the devices (lib/validation/measurement.ts, checked against the
+  // planner in tests/unit/validation/measurement-bounds.test.ts): a period from
+  // two cycles of the fastest clock to the longest count at the slowest clock.
+  // 5e-324 s (the smallest double) and 1e12 s used to be stored.
+  const cases: { what: string; path: (w: World) => string; json: (w: World) => unknown; field: string }[] = [
+    {
+      what: "plan: measured stage of 5e-324 s",
+      path: () => "/api/v1/plan",
+      json: () => ({
+        stage: { kind: "measured", periodS: 5e-324, highS: 5e-324 },
+        targets: [{ device: "atmega328p", clockSource: "crystal", clockHz: "16M", mode: "pwm" }],
+      }),
+      field: "stage.periodS",
+    },
+    {
+      what: "new retrofit: measured stage of 1e12 s",
+      path: () => "/api/v1/retrofits",
+      json: (w) => ({
+        name: `Absurd ${w.tag}`,
+        site: w.site,
+        assetTag: `ABS-${w.tag}`,
+        stage: { kind: "measured", periodS: 1e12, highS: 1 },
+      }),
+      field: "stage.periodS",
+    },
+    {
+      what: "field check: period of 5e-324 s",
+      path: () => "/api/v1/field-checks",
+      json: (w) => ({
+        revisionId: w.revision.released,
+        measuredPeriodS: 5e-324,
+        measuredHighS: 2e-3,
+        signedOffBy: "A. Tester",
+      }),
+      field: "measuredPeriodS",
+    },
+    {
+      what: "field check: high time of 1e12 s",
+      path: () => "/api/v1/field-checks",
+      json: (w) => ({
+        revisionId: w.revision.released,
+        measuredPeriodS: 10e-3,
+        measuredHighS: 1e12,
+        signedOffBy: "A. Tester",
+      }),
+      field: "measuredHighS",
+    },
+  ];
+  it.each(cases)("$what", async (c) => {
+    const state = { fp: await fingerprint(w) };
+    const res = await send(w, "admin", "POST", { path: c.path(w), json: c.json(w) });
+    await judge(res, c.what, state, true);
+    expect(res.status, res.text.slice(0, 300)).toBe(400);
+    const fields = (res.body as { error: { fields?: Record<string, string> } }).error.fields ?? {};
+    expect(fields[c.field], res.text.slice(0, 300)).toMatch(/outside what any target device can make: from/);
+  });
+});
