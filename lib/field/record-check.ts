@@ -4,6 +4,7 @@ import "server-only";
 import { z } from "zod";
 import { dbId } from "@/lib/validation/id";
 import { measurementProblems } from "@/lib/validation/measurement";
+import { lineText as oneLine, paragraphText } from "@/lib/validation/plain-text";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
@@ -40,8 +41,8 @@ export const fieldCheckSchema = z
       .max(1, "Resolution is at most 1 s.")
       .optional(),
     captureId: dbId.optional(),
-    notes: z.string().max(4000).default(""),
-    signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
+    notes: paragraphText("Notes", { max: 4000 }).default(""),
+    signedOffBy: oneLine("Signed off by", { min: 1, max: 200 }),
   })
   .strict()
   .superRefine((c, ctx) => {

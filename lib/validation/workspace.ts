@@ -1,5 +1,6 @@
 // Bodies of the workspace API: create, update and the stateless plan request.
 import { z } from "zod";
+import { lineText, paragraphText } from "./plain-text";
 import { optionalPlainNumber } from "./plain-number";
 import { retrofitFactsPatchSchema, retrofitFactsSchema } from "./retrofit";
 import { refineControl } from "./control";
@@ -29,16 +30,12 @@ export const planBodySchema = z.object({
 });
 
 export const generateBodySchema = z
-  .object({ note: z.string().trim().max(500, "A note is at most 500 characters.").optional().default("") })
+  .object({ note: paragraphText("The note", { max: 500 }).optional().default("") })
   .optional()
   .default({ note: "" });
 
 export const tokenBodySchema = z.object({
-  name: z
-    .string({ error: "Name the token." })
-    .trim()
-    .min(1, "Name the token.")
-    .max(60, "At most 60 characters."),
+  name: lineText("The token's name", { min: 1, max: 60 }),
 });
 
 export const LIST_SORTS = ["name", "site", "assetTag", "kind", "state", "updatedAt"] as const;

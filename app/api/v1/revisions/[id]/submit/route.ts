@@ -1,10 +1,11 @@
 import { z } from "zod";
+import { paragraphText } from "@/lib/validation/plain-text";
 import { apiRoute, parseId, readOptionalJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { EDIT } from "@/lib/auth/roles";
 import { submitRevision } from "@/lib/review/submit";
 
-const body = z.object({ note: z.string().trim().max(2000).optional() }).strict();
+const body = z.object({ note: paragraphText("The note", { max: 2000 }).optional() }).strict();
 
 // POST /api/v1/revisions/:id/submit { note? }: prepared -> awaiting_check (engineers, admins).
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
