@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { contentDisposition } from "@/lib/api/content-disposition";
 import { apiRoute } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
@@ -20,7 +21,7 @@ export const GET = apiRoute(async (req) => {
     return new Response(unifiedPatch(a, b, a.files, b.files), {
       headers: {
         "content-type": "text/x-diff; charset=utf-8",
-        "content-disposition": `inline; filename="r${a.number}-r${b.number}.diff"`,
+        "content-disposition": contentDisposition(`r${a.number}-r${b.number}.diff`, "inline"),
       },
     });
   }
