@@ -19,7 +19,13 @@ export type {
   TimerPlan,
 } from "./plan-types";
 export { planTarget } from "./solver";
-export { LONGEST_PERIOD_S, clockMakes, longestPeriodS } from "./solver/validate";
+export {
+  LONGEST_PERIOD_S,
+  SHORTEST_PERIOD_S,
+  SHORTEST_TIME_S,
+  clockMakes,
+  longestPeriodS,
+} from "./solver/validate";
 
 export function listDevices(): DeviceInfo[] {
   return DEVICES.map(deviceInfo);

@@ -1,6 +1,7 @@
 // A streaming reader for one file part of a multipart/form-data body (RFC 7578).
 // The file's bytes are passed on as they arrive; only a delimiter-sized tail
 // is held back, so a large upload is never buffered whole.
+import { dispositionParams, uploadFileName } from "@/lib/api/content-disposition";
 import { ApiError } from "@/lib/api/errors";
 
 const CRLF2 = new TextEncoder().encode("\r\n\r\n");
@@ -35,9 +36,8 @@ function join(a: Uint8Array, b: Uint8Array): Uint8Array {
 
 function partInfo(headers: string): { name: string | null; fileName: string | null } {
   const disposition = /content-disposition:([^\r\n]*)/i.exec(headers)?.[1] ?? "";
-  const name = /\bname="([^"]*)"/i.exec(disposition)?.[1] ?? null;
-  const fileName = /\bfilename="([^"]*)"/i.exec(disposition)?.[1] ?? null;
-  return { name, fileName };
+  // Quoted names may hold escaped quotes; a name with a quote is kept whole.
+  return { name: dispositionParams(disposition).name ?? null, fileName: uploadFileName(disposition) };
 }
 
 /**

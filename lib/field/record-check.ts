@@ -3,6 +3,8 @@ import "server-only";
 // checklist limits and the verdict; a failed check e-mails the revision's author.
 import { z } from "zod";
 import { dbId } from "@/lib/validation/id";
+import { measurementProblems } from "@/lib/validation/measurement";
+import { lineText as oneLine, paragraphText } from "@/lib/validation/plain-text";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
@@ -27,28 +29,46 @@ import {
 } from "./queries";
 import type { CheckLine, FieldCheckView, StepResult } from "./shapes";
 
-const seconds = z.number().finite().positive("Enter a time greater than zero.");
+const seconds = z
+  .number({ error: "A time is a JSON number in seconds (0.01 = 10 ms)." })
+  .finite()
+  .positive("Enter a time greater than zero.");
 
 export const fieldCheckSchema = z
   .object({
     revisionId: dbId,
-    target: z.number().int().min(0).default(0),
+    target: z
+      .number({ error: "target is the target's index, a whole number from 0." })
+      .int("target is a whole number from 0.")
+      .min(0, "target is a whole number from 0.")
+      .default(0),
     measuredPeriodS: seconds.optional(),
     measuredHighS: seconds.optional(),
     /** Reading resolution of the instrument (scope cursor step, counter's last digit); widens each limit. */
     resolutionS: z
-      .number()
+      .number({ error: "Resolution is a JSON number in seconds." })
       .finite()
       .min(0, "Resolution must not be negative.")
       .max(1, "Resolution is at most 1 s.")
       .optional(),
     captureId: dbId.optional(),
-    notes: z.string().max(4000).default(""),
-    signedOffBy: z.string().trim().min(1, "Sign with your name.").max(200),
+    notes: paragraphText("Notes", { max: 4000 }).default(""),
+    signedOffBy: oneLine("Signed off by", { min: 1, max: 200 }),
     /** Lines of the target's CHECKLIST.md ticked or measured on the phone (optional; older clients send none). */
     steps: z.array(stepInputSchema).max(200).optional(),
   })
-  .strict();
+  .strict()
+  .superRefine((c, ctx) => {
+    // Bounds from the devices (lib/validation/measurement.ts): 5e-324 s or a
+    // period in millennia is a slip, not a reading.
+    const problems = measurementProblems(
+      { periodS: c.measuredPeriodS, highS: c.measuredHighS },
+      { periodS: "measuredPeriodS", highS: "measuredHighS" },
+      { periodS: "Measured period", highS: "Measured high time" },
+    );
+    for (const [field, message] of Object.entries(problems))
+      ctx.addIssue({ code: "custom", message, path: [field] });
+  });
 
 export type FieldCheckInput = z.infer<typeof fieldCheckSchema>;
 

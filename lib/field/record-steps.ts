@@ -5,6 +5,7 @@
 import { z } from "zod";
 import { ApiError } from "@/lib/api/errors";
 import { parseEng } from "@/lib/engine";
+import { lineText, paragraphText } from "@/lib/validation/plain-text";
 import { checklistSteps, type ChecklistStep } from "./checklist-steps";
 import type { CheckLine, StepResult } from "./shapes";
 
@@ -23,8 +24,8 @@ export const stepInputSchema = z
   .object({
     id: z.string().trim().min(1).max(20),
     done: z.boolean().default(false),
-    measured: z.string().trim().max(100, "At most 100 characters.").default(""),
-    note: z.string().max(2000, "A note is at most 2000 characters.").default(""),
+    measured: lineText("The measured value", { max: 100 }).default(""),
+    note: paragraphText("The line's note", { max: 2000 }).default(""),
     photo: photoSchema.optional(),
   })
   .strict();

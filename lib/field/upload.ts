@@ -4,6 +4,7 @@ import "server-only";
 // the bytes as they arrive, with or without a Content-Length header.
 import { createHash } from "node:crypto";
 import { ApiError } from "@/lib/api/errors";
+import { cleanLine } from "@/lib/validation/plain-text";
 import { CaptureError, measureCsv, type CaptureMeasurement } from "@/lib/capture";
 import { boundaryOf, multipartFile } from "./multipart";
 
@@ -62,10 +63,11 @@ export type MeasuredUpload = {
   measurement: CaptureMeasurement;
 };
 
-function cleanName(raw: string | null | undefined): string {
-  const base = (raw ?? "").split(/[\\/]/).pop()?.trim() ?? "";
-  const safe = base.replace(/[\u0000-\u001f\u007f]/g, "").slice(0, 200);
-  return safe || "capture.csv";
+/** The name as sent, without folders, line breaks, controls or bidi controls; quotes are kept. */
+export function cleanName(raw: string | null | undefined): string {
+  const base = (raw ?? "").split(/[\\/]/).pop() ?? "";
+  const safe = cleanLine(base.replace(/[\u0000-\u0009\u000b\u000c\u000e-\u001f\u007f]/g, ""));
+  return Array.from(safe).slice(0, 200).join("") || "capture.csv";
 }
 
 /** Measures and collects an upload: multipart/form-data (part "file") or a raw

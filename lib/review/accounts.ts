@@ -4,6 +4,7 @@
 import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
 import { z } from "zod";
+import { lineText } from "@/lib/validation/plain-text";
 import { db } from "@/db/client";
 import { apiTokens, users } from "@/db/schema";
 import { ApiError, notFound } from "@/lib/api/errors";
@@ -15,10 +16,7 @@ export const userChange = z
   .object({
     role: z.enum(ROLES).optional(),
     // Empty or null = every site.
-    site: z
-      .string()
-      .trim()
-      .max(200)
+    site: lineText("Site", { max: 200 })
       .nullish()
       .transform((s) => (s ? s : null)),
     disabled: z.boolean().optional(),

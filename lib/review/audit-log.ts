@@ -5,6 +5,7 @@ import { and, desc, eq, gte, lt, sql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db/client";
 import { dbIdText } from "@/lib/validation/id";
+import { optionalPlainNumber } from "@/lib/validation/plain-number";
 import { auditEvents, users } from "@/db/schema";
 
 const day = z
@@ -25,7 +26,14 @@ export const auditFilter = z.object({
   actor: dbIdText.optional().or(z.literal("").transform(() => undefined)),
   from: day.optional().or(z.literal("").transform(() => undefined)),
   to: day.optional().or(z.literal("").transform(() => undefined)),
-  page: z.coerce.number().int().min(1).max(10000).default(1),
+  page: optionalPlainNumber(
+    "page is a whole number from 1",
+    z
+      .number()
+      .int("page is a whole number.")
+      .min(1, "page starts at 1.")
+      .max(10000, "page is at most 10000."),
+  ).default(1),
 });
 
 export type AuditFilter = z.infer<typeof auditFilter>;

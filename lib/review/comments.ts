@@ -18,6 +18,8 @@ import type { AuthUser } from "@/lib/auth/guard";
 import { READ_ALL } from "@/lib/auth/roles";
 import { lineCount } from "@/lib/diff/files";
 import { dbId } from "@/lib/validation/id";
+import { optionalPlainNumber } from "@/lib/validation/plain-number";
+import { lineText, paragraphText } from "@/lib/validation/plain-text";
 import { carryLine, carryMark, revisionAnchors, type AnchorKind, type CarryMark } from "./anchors";
 import { loadRevisionForReview } from "./load";
 
@@ -25,12 +27,15 @@ export const COMMENT_ROLES = READ_ALL;
 
 export const commentInput = z
   .object({
-    body: z.string().trim().min(1, "Write the comment.").max(4000, "Keep a comment under 4000 characters."),
-    filePath: z.string().trim().min(1).max(300).nullish(),
-    line: z.coerce.number().int().positive("Lines count from 1.").nullish(),
+    body: paragraphText("The comment", { min: 1, max: 4000 }),
+    filePath: lineText("filePath", { min: 1, max: 300 }).nullish(),
+    line: optionalPlainNumber(
+      "A line is a whole number",
+      z.number().int("A line is a whole number.").positive("Lines count from 1."),
+    ),
     /** "quantity" | "register" with anchorKey; line and file anchors are given by filePath / line */
     anchorKind: z.enum(["revision", "file", "line", "quantity", "register"]).nullish(),
-    anchorKey: z.string().trim().min(1).max(200).nullish(),
+    anchorKey: lineText("anchorKey", { min: 1, max: 200 }).nullish(),
     /** reply to this thread (its first comment); a reply has no anchor of its own */
     parentId: dbId.nullish(),
   })

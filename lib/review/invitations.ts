@@ -6,6 +6,7 @@ import "server-only";
 import { randomBytes } from "node:crypto";
 import { and, desc, eq, gt, isNull, sql } from "drizzle-orm";
 import { z } from "zod";
+import { lineText } from "@/lib/validation/plain-text";
 import { db } from "@/db/client";
 import { invitations, users } from "@/db/schema";
 import { ApiError, isUniqueViolation } from "@/lib/api/errors";
@@ -23,12 +24,9 @@ export const MIN_PASSWORD = 10;
 export const invitationInput = z
   .object({
     email: z.string().trim().toLowerCase().email("Enter an e-mail address."),
-    name: z.string().trim().min(1, "Enter the person's name.").max(200),
+    name: lineText("The person's name", { min: 1, max: 200 }),
     role: z.enum(ROLES, { message: "Choose a role." }),
-    site: z
-      .string()
-      .trim()
-      .max(200)
+    site: lineText("Site", { max: 200 })
       .nullish()
       .transform((s) => (s ? s : null)),
   })

@@ -9,8 +9,12 @@ export function etagMatches(header: string | null, sha256: string): boolean {
   });
 }
 
-/** A file name safe in a quoted Content-Disposition: ASCII letters, digits, - and _. */
+/**
+ * The bundle's file name: the asset tag whole, except for spaces, folder
+ * separators and controls (each run becomes "-"). contentDisposition
+ * (lib/api/content-disposition.ts) adds an ASCII fallback when it needs one.
+ */
 export function bundleFileName(assetTag: string, number: number): string {
-  const base = assetTag.replace(/[^A-Za-z0-9_-]+/g, "-").replace(/^-+|-+$/g, "") || "retrofit";
+  const base = assetTag.replace(/[\s\u0000-\u001f\u007f/\\]+/g, "-").replace(/^-+|-+$/g, "") || "retrofit";
   return `clockgraft-${base}-r${number}.zip`;
 }

@@ -5,3 +5,4 @@ export * from "./stage";
 export * from "./target";
 export * from "./workspace";
 export * from "./control";
+export * from "./measurement";

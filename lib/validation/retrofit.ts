@@ -1,21 +1,19 @@
 // Asset facts of a retrofit: shared by the create/edit forms and the API.
 import { z } from "zod";
 import { formBoolean } from "./eng";
+import { lineText, paragraphText } from "./plain-text";
 
-const text = (label: string, max: number) =>
-  z
-    .string({ error: `${label} is required.` })
-    .trim()
-    .max(max, `${label} is at most ${max} characters.`);
-
-const required = (label: string, max: number) => text(label, max).min(1, `${label} is required.`);
+// Names are one line; the description may span lines (lib/validation/plain-text.ts).
+const text = (label: string, max: number) => lineText(label, { max });
+const required = (label: string, max: number) => lineText(label, { min: 1, max });
+const description = () => paragraphText("Description", { max: 2000 });
 
 export const retrofitFactsSchema = z.object({
   name: required("Name", 120),
   site: required("Site", 120),
   assetTag: required("Asset tag", 60),
   boardRef: text("Board reference", 120).default(""),
-  description: text("Description", 2000).default(""),
+  description: description().default(""),
   mainsPowered: formBoolean,
   drivesThyristor: formBoolean,
 });
@@ -29,7 +27,7 @@ export const retrofitFactsPatchSchema = z.object({
   site: required("Site", 120).optional(),
   assetTag: required("Asset tag", 60).optional(),
   boardRef: text("Board reference", 120).optional(),
-  description: text("Description", 2000).optional(),
+  description: description().optional(),
   mainsPowered: z.boolean().optional(),
   drivesThyristor: z.boolean().optional(),
 });

@@ -20,6 +20,7 @@ import { readEng } from "./eng";
 import { formText } from "./form-text";
 import { formatTolerance, readTolerance } from "./tolerance";
 import { plainMessage } from "./plain-message";
+import { measurementProblems } from "./measurement";
 
 export const STAGE_KIND_IDS = STAGE_KINDS.map((k) => k.kind) as [StageKind, ...StageKind[]];
 
@@ -97,6 +98,13 @@ export const stageSchema = z
     }
     if (Object.keys(tolerances).length > 0) out.tolerances = tolerances;
     if (bad) return z.NEVER;
+    // A measured stage is only as plausible as the devices that must make it.
+    if (input.kind === "measured") {
+      const problems = measurementProblems(out as { periodS?: number; highS?: number });
+      for (const [field, message] of Object.entries(problems))
+        ctx.addIssue({ code: "custom", message, path: [field] });
+      if (Object.keys(problems).length > 0) return z.NEVER;
+    }
     try {
       return validateStage(out);
     } catch (e) {

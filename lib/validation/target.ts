@@ -5,6 +5,7 @@ import { z } from "zod";
 import { clockChoiceProblem, listDevices, type DeviceInfo } from "@/lib/engine";
 import { engNumber, optionalEngNumber } from "./eng";
 import { formText } from "./form-text";
+import { optionalPlainNumber } from "./plain-number";
 import { plainMessage } from "./plain-message";
 
 const DEVICES = listDevices();
@@ -25,12 +26,9 @@ export const targetSchema = z
     device: z.enum(DEVICE_IDS, { error: `Choose a device: ${DEVICE_IDS.join(", ")}.` }),
     clockSource: z.string({ error: "Choose a clock source." }).trim().min(1, "Choose a clock source."),
     clockHz: engNumber("Hz", { positive: true }),
-    clockAccuracyPpm: z.preprocess(
-      blankToUndefined,
-      z.coerce
-        .number({ error: "Clock accuracy is a number in ppm." })
-        .min(0, "Must not be negative.")
-        .optional(),
+    clockAccuracyPpm: optionalPlainNumber(
+      "Clock accuracy is a number in ppm",
+      z.number().min(0, "Must not be negative."),
     ),
     mode: z.preprocess(
       blankToUndefined,
@@ -39,13 +37,9 @@ export const targetSchema = z
     timer: z.preprocess(blankToUndefined, z.string().trim().max(20).optional()),
     pin: z.preprocess(blankToUndefined, z.string().trim().max(20).optional()),
     activeLow: z.boolean().optional().default(false),
-    requiredTolerancePct: z.preprocess(
-      blankToUndefined,
-      z.coerce
-        .number({ error: "Required tolerance is a number in percent." })
-        .gt(0, "Must be greater than 0 %.")
-        .max(100, "At most 100 %.")
-        .optional(),
+    requiredTolerancePct: optionalPlainNumber(
+      "Required tolerance is a number in percent",
+      z.number().gt(0, "Must be greater than 0 %.").max(100, "At most 100 %."),
     ),
     // How the output starts (engine.md section 6). Blank = by the stage: a
     // synchronised stage follows the zero crossings, a 555 one-shot a trigger.
@@ -71,14 +65,13 @@ export const targetSchema = z
     gateMinS: optionalEngNumber("s", { positive: true }).optional(),
     gateMaxS: optionalEngNumber("s", { positive: true }).optional(),
     gateTrainPeriodS: optionalEngNumber("s", { positive: true }).optional(),
-    gateTrainPulses: z.preprocess(
-      blankToUndefined,
-      z.coerce
-        .number({ error: "Pulses in the train is a whole number." })
+    gateTrainPulses: optionalPlainNumber(
+      "Pulses in the train is a whole number",
+      z
+        .number()
         .int("Pulses in the train is a whole number.")
         .min(2, "A train has at least 2 pulses.")
-        .max(1000, "At most 1000 pulses.")
-        .optional(),
+        .max(1000, "At most 1000 pulses."),
     ),
   })
   .superRefine((t, ctx) => {

@@ -1,5 +1,7 @@
 // Bodies of the workspace API: create, update and the stateless plan request.
 import { z } from "zod";
+import { lineText, paragraphText } from "./plain-text";
+import { optionalPlainNumber } from "./plain-number";
 import { retrofitFactsPatchSchema, retrofitFactsSchema } from "./retrofit";
 import { refineControl } from "./control";
 import { stageSchema } from "./stage";
@@ -28,16 +30,12 @@ export const planBodySchema = z.object({
 });
 
 export const generateBodySchema = z
-  .object({ note: z.string().trim().max(500, "A note is at most 500 characters.").optional().default("") })
+  .object({ note: paragraphText("The note", { max: 500 }).optional().default("") })
   .optional()
   .default({ note: "" });
 
 export const tokenBodySchema = z.object({
-  name: z
-    .string({ error: "Name the token." })
-    .trim()
-    .min(1, "Name the token.")
-    .max(60, "At most 60 characters."),
+  name: lineText("The token's name", { min: 1, max: 60 }),
 });
 
 export const LIST_SORTS = ["name", "site", "assetTag", "kind", "state", "updatedAt"] as const;
@@ -67,7 +65,17 @@ export const listQuerySchema = z.object({
     .optional()
     .default("updatedAt"),
   dir: z.enum(["asc", "desc"]).optional().default("desc"),
-  page: z.coerce.number().int().min(1, "page starts at 1.").optional().default(1),
-  pageSize: z.coerce.number().int().min(1).max(100, "pageSize is at most 100.").optional().default(20),
+  page: optionalPlainNumber(
+    "page is a whole number from 1",
+    z.number().int("page is a whole number.").min(1, "page starts at 1."),
+  ).default(1),
+  pageSize: optionalPlainNumber(
+    "pageSize is a whole number from 1 to 100",
+    z
+      .number()
+      .int("pageSize is a whole number.")
+      .min(1, "pageSize starts at 1.")
+      .max(100, "pageSize is at most 100."),
+  ).default(20),
 });
 export type ListQuery = z.output<typeof listQuerySchema>;

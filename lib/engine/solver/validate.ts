@@ -54,6 +54,31 @@ export function longestPeriodS(device: DeviceSpec): number {
 /** Longest period any plan on any device can make (seconds): a stage slower than this has no target. */
 export const LONGEST_PERIOD_S = Math.max(...DEVICES.map(longestPeriodS));
 
+/**
+ * Fewest clock cycles one period can span on this device: a period has a high
+ * and a low part, each at least one clock cycle, and no timer counts shorter
+ * than its smallest divider x count x mode factor.
+ */
+export function shortestPeriodCycles(device: DeviceSpec): number {
+  let fewest = Infinity;
+  for (const t of device.timers) {
+    const isr = t.counts.isr;
+    if (isr) fewest = Math.min(fewest, t.isrDividers[0] * isr.min);
+    for (const mode of ["pwm", "toggle"] as const) {
+      const range = t.counts[mode];
+      const factors = t.modeFactors[mode];
+      if (range && factors) fewest = Math.min(fewest, t.dividers[0] * Math.min(...factors) * range.min);
+    }
+  }
+  return Math.max(2, fewest);
+}
+
+/** Shortest period any plan on any device can make (seconds), at each device's fastest clock. */
+export const SHORTEST_PERIOD_S = Math.min(...DEVICES.map((d) => shortestPeriodCycles(d) / d.maxClockHz));
+
+/** One clock cycle of the fastest clock of any device (seconds): no plan resolves a shorter time. */
+export const SHORTEST_TIME_S = 1 / Math.max(...DEVICES.map((d) => d.maxClockHz));
+
 function positive(value: unknown, field: string): number {
   if (typeof value !== "number" || !Number.isFinite(value) || value <= 0)
     throw new EngineError(

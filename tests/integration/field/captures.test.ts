@@ -95,6 +95,32 @@ describe("capture upload", () => {
     expect(zoom.body.edges.length).toBe(3);
   });
 
+  it("keeps an upload's file name whole: quotes, non-ASCII; bidi controls dropped", async () => {
+    // undici's FormData writes the name as the HTML standard's form encoding
+    // does ('"' as %22); curl escapes with a backslash. The old reader cut
+    // both at the first quote ("say ").
+    const csv = squareCsv({ periodS: 1e-3, highS: 0.25e-3, dtS: 10e-6, periods: 4 });
+    const form = new FormData();
+    form.append("file", new Blob([csv], { type: "text/csv" }), 'say "hi" Ω\u202E.csv');
+    const viaForm = await eng.fetch("/api/v1/captures", { method: "POST", body: form });
+    expect(viaForm.status).toBe(201);
+    expect(((await viaForm.json()) as { capture: { fileName: string } }).capture.fileName).toBe(
+      'say "hi" Ω.csv',
+    );
+    const raw =
+      '--b\r\nContent-Disposition: form-data; name="file"; filename="bench \\"A\\".csv"\r\n' +
+      `Content-Type: text/csv\r\n\r\n${csv}\r\n--b--\r\n`;
+    const viaCurl = await eng.fetch("/api/v1/captures", {
+      method: "POST",
+      body: raw,
+      headers: { "content-type": "multipart/form-data; boundary=b" },
+    });
+    expect(viaCurl.status).toBe(201);
+    expect(((await viaCurl.json()) as { capture: { fileName: string } }).capture.fileName).toBe(
+      'bench "A".csv',
+    );
+  });
+
   it("accepts a raw text/csv body and names the file from the header", async () => {
     const csv = squareCsv({ periodS: 2e-3, highS: 1e-3, dtS: 10e-6, periods: 4 });
     const res = await upload(eng, csv, "", { "content-type": "text/csv", "x-file-name": "scope/raw.csv" });

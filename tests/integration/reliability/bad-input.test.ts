@@ -103,6 +103,51 @@ describe.each(jsonRoutes)("JSON body of $method $pattern", (r: RouteEntry) => {
   );
 });
 
+// Numbers are read strictly (issue 15 point 8): a list, a boolean or hex text in
+// a number field used to be coerced by Number() ([16] -> 16, true -> 1,
+// "0x10" -> 16). Now each is a 400 that names the field and stores nothing.
+const COERCIBLE: unknown[] = [true, [2], "0x10"];
+describe.each(jsonRoutes)("numbers in $method $pattern are not coerced", (r: RouteEntry) => {
+  it(
+    "every number leaf x a list, a boolean, hex text: 400 naming the leaf",
+    { timeout: 300_000 },
+    async () => {
+      const req = await r.build(w, "admin");
+      const base = req.json;
+      const state = { fp: await fingerprint(w) };
+      const numeric = leafPaths(base).filter((path) =>
+        isNumericLeaf(path.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], base)),
+      );
+      for (const path of numeric) {
+        for (const bad of COERCIBLE) {
+          const res = await send(w, "admin", r.method, { ...req, json: withLeaf(base, path, bad) });
+          const what = `${r.method} ${req.path} ${path.join(".")}=${JSON.stringify(bad)}`;
+          await judge(res, what, state, true);
+          expect(res.status, `${what} -> ${res.text.slice(0, 200)}`).toBe(400);
+          const fields = (res.body as { error: { fields?: Record<string, string> } }).error.fields ?? {};
+          expect(Object.keys(fields), `${what} -> ${res.text.slice(0, 200)}`).toContain(path.join("."));
+        }
+      }
+    },
+  );
+});
+
+it("the strict-number corpus reaches number leaves (plan body: tolerance, clock, stage times)", async () => {
+  const plan = ROUTES.find((r) => r.method === "POST" && r.pattern === "/api/v1/plan")!;
+  const body = (await plan.build(w, "admin")).json;
+  const numeric = leafPaths(body).filter((p) =>
+    isNumericLeaf(p.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], body)),
+  );
+  expect(numeric.map((p) => p.join("."))).toEqual(
+    expect.arrayContaining([
+      "stage.periodS",
+      "stage.highS",
+      "targets.0.clockHz",
+      "targets.0.requiredTolerancePct",
+    ]),
+  );
+});
+
 describe.each(queryRoutes)("query of $method $pattern", (r: RouteEntry) => {
   it("every parameter x every bad value", { timeout: 300_000 }, async () => {
     const req = await r.build(w, "admin");
@@ -256,5 +301,153 @@ describe("ids past the integer column and impossible audit dates", () => {
     const res = await send(w, "admin", c.method, { path: c.path(w), json: c.json });
     await judge(res, c.what, state, true);
     expect(res.status, `${c.what}: ${res.text.slice(0, 200)}`).toBe(400);
+  });
+});
+
+describe("measurements no device can make", () => {
+  // Bounds from the devices (lib/validation/measurement.ts, checked against the
+  // planner in tests/unit/validation/measurement-bounds.test.ts): a period from
+  // two cycles of the fastest clock to the longest count at the slowest clock.
+  // 5e-324 s (the smallest double) and 1e12 s used to be stored.
+  const cases: { what: string; path: (w: World) => string; json: (w: World) => unknown; field: string }[] = [
+    {
+      what: "plan: measured stage of 5e-324 s",
+      path: () => "/api/v1/plan",
+      json: () => ({
+        stage: { kind: "measured", periodS: 5e-324, highS: 5e-324 },
+        targets: [{ device: "atmega328p", clockSource: "crystal", clockHz: "16M", mode: "pwm" }],
+      }),
+      field: "stage.periodS",
+    },
+    {
+      what: "new retrofit: measured stage of 1e12 s",
+      path: () => "/api/v1/retrofits",
+      json: (w) => ({
+        name: `Absurd ${w.tag}`,
+        site: w.site,
+        assetTag: `ABS-${w.tag}`,
+        stage: { kind: "measured", periodS: 1e12, highS: 1 },
+      }),
+      field: "stage.periodS",
+    },
+    {
+      what: "field check: period of 5e-324 s",
+      path: () => "/api/v1/field-checks",
+      json: (w) => ({
+        revisionId: w.revision.released,
+        measuredPeriodS: 5e-324,
+        measuredHighS: 2e-3,
+        signedOffBy: "A. Tester",
+      }),
+      field: "measuredPeriodS",
+    },
+    {
+      what: "field check: high time of 1e12 s",
+      path: () => "/api/v1/field-checks",
+      json: (w) => ({
+        revisionId: w.revision.released,
+        measuredPeriodS: 10e-3,
+        measuredHighS: 1e12,
+        signedOffBy: "A. Tester",
+      }),
+      field: "measuredHighS",
+    },
+  ];
+  it.each(cases)("$what", async (c) => {
+    const state = { fp: await fingerprint(w) };
+    const res = await send(w, "admin", "POST", { path: c.path(w), json: c.json(w) });
+    await judge(res, c.what, state, true);
+    expect(res.status, res.text.slice(0, 300)).toBe(400);
+    const fields = (res.body as { error: { fields?: Record<string, string> } }).error.fields ?? {};
+    expect(fields[c.field], res.text.slice(0, 300)).toMatch(/outside what any target device can make: from/);
+  });
+});
+
+describe("plain text: bidi controls anywhere, line breaks in one-line fields", () => {
+  // Unicode Standard Annex #9 explicit directional controls (U+202A..U+202E,
+  // U+2066..U+2069) display text in another order than it is stored; a line
+  // break in a name forges a second line in mail, checklists and the audit log.
+  // Leaves that are not stored text: the one-time token (looked up, 404 when
+  // unknown) and the password (any character is allowed in a secret).
+  const NOT_TEXT = new Set(["token", "password"]);
+  const isTextLeaf = (v: unknown) => typeof v === "string" && !isNumericLeaf(v);
+  it.each(jsonRoutes.map((r) => [`${r.method} ${r.pattern}`, r] as const))(
+    "%s: U+202E in every text leaf is a 400 naming the leaf",
+    { timeout: 300_000 },
+    async (_, r) => {
+      const req = await r.build(w, "admin");
+      const base = req.json;
+      const state = { fp: await fingerprint(w) };
+      for (const path of leafPaths(base)) {
+        const value = path.reduce<unknown>((o, k) => (o as Record<string | number, unknown>)[k], base);
+        if (!isTextLeaf(value) || NOT_TEXT.has(String(path[path.length - 1]))) continue;
+        const res = await send(w, "admin", r.method, {
+          ...req,
+          json: withLeaf(base, path, `${String(value)}\u202Egnp.exe`),
+        });
+        const what = `${r.method} ${req.path} ${path.join(".")}+U+202E`;
+        await judge(res, what, state, true);
+        expect(res.status, `${what} -> ${res.text.slice(0, 200)}`).toBe(400);
+        const fields = (res.body as { error: { fields?: Record<string, string> } }).error.fields ?? {};
+        expect(Object.keys(fields), `${what} -> ${res.text.slice(0, 200)}`).toContain(path.join("."));
+      }
+    },
+  );
+
+  const ONE_LINE: {
+    what: string;
+    path: (w: World) => string;
+    method: "POST" | "PATCH";
+    json: (w: World) => unknown;
+    field: string;
+  }[] = [
+    {
+      what: "retrofit name",
+      method: "POST",
+      path: () => "/api/v1/retrofits",
+      json: (w) => ({ name: "Kiln\r\nSite: forged", site: w.site, assetTag: `NL-${w.tag}` }),
+      field: "name",
+    },
+    {
+      what: "retrofit site",
+      method: "PATCH",
+      path: (w) => `/api/v1/retrofits/${w.retrofitId}`,
+      json: () => ({ site: "North\nSouth" }),
+      field: "site",
+    },
+    {
+      what: "token name",
+      method: "POST",
+      path: () => "/api/v1/tokens",
+      json: () => ({ name: "a\u2028b" }),
+      field: "name",
+    },
+    {
+      what: "invitation name",
+      method: "POST",
+      path: () => "/api/v1/invitations",
+      json: (w) => ({ email: `nl-${w.tag}@test.invalid`, name: "New\nAdmin: yes", role: "technician" }),
+      field: "name",
+    },
+    {
+      what: "field check signature",
+      method: "POST",
+      path: () => "/api/v1/field-checks",
+      json: (w) => ({
+        revisionId: w.revision.released,
+        measuredPeriodS: 10e-3,
+        measuredHighS: 2e-3,
+        signedOffBy: "A. Tester\nReleased by: chief",
+      }),
+      field: "signedOffBy",
+    },
+  ];
+  it.each(ONE_LINE)("a line break in the $what is a 400 naming it", async (c) => {
+    const state = { fp: await fingerprint(w) };
+    const res = await send(w, "admin", c.method, { path: c.path(w), json: c.json(w) });
+    await judge(res, c.what, state, true);
+    expect(res.status, res.text.slice(0, 300)).toBe(400);
+    const fields = (res.body as { error: { fields?: Record<string, string> } }).error.fields ?? {};
+    expect(fields[c.field], res.text.slice(0, 300)).toMatch(/one line/);
   });
 });

@@ -1,13 +1,13 @@
 import { z } from "zod";
+import { contentDisposition } from "@/lib/api/content-disposition";
 import { apiRoute } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
 import { unifiedPatch } from "@/lib/diff";
 import { compareRevisions, loadPair } from "@/lib/diff/load";
-import { MAX_DB_ID } from "@/lib/validation/id";
+import { dbIdText } from "@/lib/validation/id";
 
-const id = z.coerce.number().int().positive().max(MAX_DB_ID);
-const query = z.object({ a: id, b: id, format: z.enum(["json", "patch"]).default("json") });
+const query = z.object({ a: dbIdText, b: dbIdText, format: z.enum(["json", "patch"]).default("json") });
 
 // GET /api/v1/diff?a=<revId>&b=<revId>[&format=patch]: what changed from a to b.
 // JSON: { retrofitId, a, b, numbers: [{ key, what, before, after, ... }], files: [...] }.
@@ -21,7 +21,7 @@ export const GET = apiRoute(async (req) => {
     return new Response(unifiedPatch(a, b, a.files, b.files), {
       headers: {
         "content-type": "text/x-diff; charset=utf-8",
-        "content-disposition": `inline; filename="r${a.number}-r${b.number}.diff"`,
+        "content-disposition": contentDisposition(`r${a.number}-r${b.number}.diff`, "inline"),
       },
     });
   }

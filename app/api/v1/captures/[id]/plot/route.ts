@@ -3,6 +3,7 @@
 // stored file, so zooming in shows real samples rather than a stretched envelope.
 import { z } from "zod";
 import { ApiError } from "@/lib/api/errors";
+import { plainNumber } from "@/lib/validation/plain-number";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
@@ -11,7 +12,10 @@ import { getCaptureContent, loadReadableCapture } from "@/lib/field/captures";
 import type { CapturePlot } from "@/lib/field/shapes";
 
 const windowSchema = z
-  .object({ fromS: z.coerce.number().finite(), toS: z.coerce.number().finite() })
+  .object({
+    fromS: plainNumber("fromS is a time in seconds, written as a plain number"),
+    toS: plainNumber("toS is a time in seconds, written as a plain number"),
+  })
   .refine((w) => w.toS > w.fromS, { message: "toS must be later than fromS", path: ["toS"] });
 
 /** First index whose time is >= t. */

@@ -3,6 +3,7 @@
 import { eq, sql } from "drizzle-orm";
 import { z } from "zod";
 import { dbId } from "@/lib/validation/id";
+import { measurementProblems } from "@/lib/validation/measurement";
 import { db } from "@/db/client";
 import { captures, retrofits, stages } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
@@ -42,6 +43,9 @@ export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
 
   const m = capture.measurement as CaptureMeasurement;
   const stage = { kind: "measured" as const, periodS: m.periodS.mean, highS: m.highS.mean };
+  const problems = measurementProblems(stage);
+  if (Object.keys(problems).length > 0)
+    throw new ApiError("unprocessable", Object.values(problems).join(" "), problems);
   analyzeStage(stage); // a measurement the engine cannot use is a 422, not a broken stage
 
   await db.transaction(async (tx) => {

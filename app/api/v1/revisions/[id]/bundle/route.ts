@@ -1,6 +1,7 @@
 // GET /api/v1/revisions/:id/bundle: the stored zip, byte for byte. ETag is the
 // zip's sha256, so If-None-Match answers 304 without sending it again; each
 // full download is audited.
+import { contentDisposition } from "@/lib/api/content-disposition";
 import { ApiError, notFound } from "@/lib/api/errors";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { recordAudit } from "@/lib/audit";
@@ -43,7 +44,7 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
       ...common,
       "content-type": "application/zip",
       "content-length": String(revision.bundle.length),
-      "content-disposition": `attachment; filename="${name}"`,
+      "content-disposition": contentDisposition(name),
       "x-content-sha256": revision.bundleSha256,
     },
   });

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { paragraphText } from "@/lib/validation/plain-text";
 import { apiRoute, parseId, readJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { REVIEW } from "@/lib/auth/roles";
@@ -16,9 +17,9 @@ const body = z
       }
       return d;
     }),
-    note: z.string().trim().max(4000).optional(),
+    note: paragraphText("The note", { max: 4000 }).optional(),
     /** reason for releasing despite a target whose budget misses (required then) */
-    override: z.string().trim().max(2000, "override: keep the reason under 2000 characters.").optional(),
+    override: paragraphText("The override reason", { max: 2000 }).optional(),
   })
   .strict();
 

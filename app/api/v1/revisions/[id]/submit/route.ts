@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { paragraphText } from "@/lib/validation/plain-text";
 import { apiRoute, parseId, readOptionalJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { EDIT } from "@/lib/auth/roles";
@@ -6,9 +7,9 @@ import { submitRevision } from "@/lib/review/submit";
 
 const body = z
   .object({
-    note: z.string().trim().max(2000).optional(),
+    note: paragraphText("The note", { max: 2000 }).optional(),
     // Required (422 naming it) when a target is not proven in an emulator.
-    unprovenReason: z.string().trim().max(2000).optional(),
+    unprovenReason: paragraphText("The reason", { max: 2000 }).optional(),
   })
   .strict();
 

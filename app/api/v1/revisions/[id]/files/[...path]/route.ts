@@ -1,5 +1,6 @@
 // GET /api/v1/revisions/:id/files/<path>: one file as text/plain, or an image
 // (<device>/firmware/*) as application/octet-stream.
+import { contentDisposition } from "@/lib/api/content-disposition";
 import { notFound } from "@/lib/api/errors";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
@@ -22,7 +23,7 @@ export const GET = apiRoute<{ id: string; path: string[] }>(async (req, ctx) => 
     return new Response(new Uint8Array(image.content), {
       headers: {
         "content-type": "application/octet-stream",
-        "content-disposition": `attachment; filename="${path.split("/").pop()}"`,
+        "content-disposition": contentDisposition(path.split("/").pop() ?? "firmware"),
         etag: `"${image.sha256}"`,
         "x-content-sha256": image.sha256,
       },
