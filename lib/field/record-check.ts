@@ -34,6 +34,9 @@ const seconds = z
   .finite()
   .positive("Enter a time greater than zero.");
 
+/** Body limit of POST /api/v1/field-checks: room for the checklist lines' photos (6 MB decoded, base64 in JSON). */
+export const FIELD_CHECK_MAX_BYTES = 9 * 1024 * 1024;
+
 export const fieldCheckSchema = z
   .object({
     revisionId: dbId,

@@ -3,6 +3,7 @@
 // a valid request. The matrix test runs every principal against every entry;
 // the completeness test fails when app/ has a handler or page not listed here.
 import type { Role } from "@/db/schema";
+import { FIELD_CHECK_MAX_BYTES } from "@/lib/field/record-check";
 import { makeToken } from "../../helpers/users";
 import {
   makeCapture,
@@ -40,6 +41,8 @@ export type RouteEntry = {
   build: (w: World, as: Principal) => Promise<BuiltRequest>;
   /** The request carries input the bad-input corpus should mutate. */
   input?: "json" | "csv" | "query";
+  /** The route's own body limit where it is above the default 1 MiB (the oversize case goes past it). */
+  maxBodyBytes?: number;
 };
 
 const READ_ALL: Role[] = ["admin", "engineer", "reviewer"];
@@ -375,6 +378,18 @@ export const ROUTES: RouteEntry[] = [
   },
   {
     method: "GET",
+    pattern: "/api/v1/field-checks/[id]/record",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/field-checks/${w.fieldCheckId}/record` }),
+  },
+  {
+    method: "GET",
+    pattern: "/api/v1/field-checks/photos/[id]",
+    allowed: ANY,
+    build: async (w) => ({ path: `/api/v1/field-checks/photos/${w.photoId}` }),
+  },
+  {
+    method: "GET",
     pattern: "/api/v1/captures/[id]",
     allowed: ANY,
     build: async (w) => ({ path: `/api/v1/captures/${w.captureId}` }),
@@ -403,6 +418,7 @@ export const ROUTES: RouteEntry[] = [
     allowed: FIELD,
     ok: [201],
     input: "json",
+    maxBodyBytes: FIELD_CHECK_MAX_BYTES,
     build: async (w) => ({
       path: "/api/v1/field-checks",
       json: {
@@ -463,6 +479,11 @@ export const PAGES: PageEntry[] = [
     pattern: "/field/revisions/[id]",
     allowed: FIELD_VIEW,
     path: (w) => `/field/revisions/${w.revision.released}`,
+  },
+  {
+    pattern: "/field/revisions/[id]/print",
+    allowed: FIELD_VIEW,
+    path: (w) => `/field/revisions/${w.revision.released}/print`,
   },
   { pattern: "/revisions/[id]", allowed: ANY, path: (w) => `/revisions/${w.revision.released}` },
 ];

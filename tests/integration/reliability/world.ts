@@ -10,6 +10,7 @@ import {
   auditEvents,
   captures,
   comments,
+  fieldCheckPhotos,
   fieldChecks,
   invitations,
   retrofits,
@@ -25,6 +26,7 @@ import { measureCsv } from "@/lib/capture";
 import { insertCapture } from "@/lib/field/captures";
 import { generateRevision } from "@/lib/revisions/generate";
 import { signedIn, type Session } from "../../helpers/server";
+import { solidPng } from "../../helpers/png";
 import { makeToken, makeUser, TEST_PASSWORD } from "../../helpers/users";
 
 export const ROLE_LIST: Role[] = ["admin", "engineer", "reviewer", "technician"];
@@ -47,6 +49,9 @@ export type World = {
   retrofitId: number;
   revision: Record<"prepared" | "awaiting_check" | "released", number>;
   captureId: number;
+  /** A field check on the released revision, recorded by the technician, with one line's photo. */
+  fieldCheckId: number;
+  photoId: number;
 };
 
 /** ATmega328P at 16 MHz, fast PWM: a 100 Hz, 20 % measured stage is exact
@@ -140,6 +145,8 @@ export async function makeWorld(): Promise<World> {
     retrofitId: 0,
     revision: { prepared: 0, awaiting_check: 0, released: 0 },
     captureId: 0,
+    fieldCheckId: 0,
+    photoId: 0,
   };
   const rf = await makeRetrofit(world, author.id);
   world.retrofitId = rf.id;
@@ -148,6 +155,32 @@ export async function makeWorld(): Promise<World> {
   world.revision.prepared = (await makeRevision(rf.id, author.id, "prepared")).id;
 
   world.captureId = await makeCapture(rf.id, technician.id);
+  const [check] = await db
+    .insert(fieldChecks)
+    .values({
+      revisionId: world.revision.released,
+      technicianId: technician.id,
+      measuredPeriodS: 10e-3,
+      measuredHighS: 2e-3,
+      lines: [],
+      passed: true,
+      signedOffBy: "A. Tester",
+    })
+    .returning({ id: fieldChecks.id });
+  world.fieldCheckId = check.id;
+  const photo = solidPng(4, 4, [200, 120, 40]);
+  const [p] = await db
+    .insert(fieldCheckPhotos)
+    .values({
+      fieldCheckId: check.id,
+      stepId: "s1",
+      mediaType: "image/png",
+      content: photo,
+      byteSize: photo.length,
+      sha256: createHash("sha256").update(photo).digest("hex"),
+    })
+    .returning({ id: fieldCheckPhotos.id });
+  world.photoId = p.id;
   return world;
 }
 

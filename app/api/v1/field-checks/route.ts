@@ -5,10 +5,7 @@ import { apiRoute, parseId, readJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY, FIELD } from "@/lib/auth/roles";
 import { listFieldChecks } from "@/lib/field/queries";
-import { fieldCheckSchema, recordFieldCheck } from "@/lib/field/record-check";
-
-/** Room for the checklist lines' photos (6 MB decoded, base64 in JSON). */
-const FIELD_CHECK_MAX_BYTES = 9 * 1024 * 1024;
+import { FIELD_CHECK_MAX_BYTES, fieldCheckSchema, recordFieldCheck } from "@/lib/field/record-check";
 
 export const POST = apiRoute(async (req) => {
   const input = fieldCheckSchema.parse(await readJson(req, FIELD_CHECK_MAX_BYTES));
