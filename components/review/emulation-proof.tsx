@@ -17,6 +17,7 @@ export function EmulationProof({
   number,
   unprovenReason,
   headingId,
+  folded = false,
 }: {
   /** the revision's target folders, in target order */
   folders: string[];
@@ -24,6 +25,8 @@ export function EmulationProof({
   number: number;
   unprovenReason?: string | null;
   headingId: string;
+  /** Many targets (the compare page of a six-device revision): the per-target part starts folded, the verdict stays in the heading. */
+  folded?: boolean;
 }) {
   const proof = proofOf(folders, emulations);
   return (
@@ -40,44 +43,58 @@ export function EmulationProof({
           Sent for checking without full proof. The author&apos;s reason: {unprovenReason}
         </p>
       )}
-      {folders.map((folder) => {
-        const e = emulations[folder];
-        const tone = TONE[e?.verdict ?? "not-emulated"];
-        return (
-          <div key={folder} className="space-y-1" data-testid="emulation-target">
-            <h3 className="num text-sm font-semibold">{folder}/</h3>
-            <p className={`border-l-4 pl-2 text-sm ${tone}`} data-testid="emulation-verdict">
-              {verdictSentence(e)}
-            </p>
-            {e && (
-              <p className="text-xs text-ink-soft">
-                Plan on {e.planned.pin}: period {formatEng(e.planned.periodS, "s", 6)}, high{" "}
-                {formatEng(e.planned.highS, "s", 6)}
-                {e.tool && <> · {e.tool}</>}
-                {e.emulatedS !== undefined && <> · {formatEng(e.emulatedS, "s")} emulated</>}
-                {e.image && (
-                  <>
-                    {" "}
-                    · ran <span className="num">{e.image.path}</span> sha256{" "}
-                    <code className="num break-all">{e.image.sha256}</code>
-                  </>
-                )}
+      <Fold folded={folded} count={folders.length}>
+        {folders.map((folder) => {
+          const e = emulations[folder];
+          const tone = TONE[e?.verdict ?? "not-emulated"];
+          return (
+            <div key={folder} className="space-y-1" data-testid="emulation-target">
+              <h3 className="num text-sm font-semibold">{folder}/</h3>
+              <p className={`border-l-4 pl-2 text-sm ${tone}`} data-testid="emulation-verdict">
+                {verdictSentence(e)}
               </p>
-            )}
-            {e && (
-              <EmulationChart
-                planned={e.planned}
-                edges={e.edges}
-                label={
-                  e.edges
-                    ? `${folder}: emulated pin ${e.planned.pin} (solid) under the planned waveform (dashed), from its first rising edge`
-                    : `${folder}: planned waveform only; the image was not run`
-                }
-              />
-            )}
-          </div>
-        );
-      })}
+              {e && (
+                <p className="text-xs text-ink-soft">
+                  Plan on {e.planned.pin}: period {formatEng(e.planned.periodS, "s", 6)}, high{" "}
+                  {formatEng(e.planned.highS, "s", 6)}
+                  {e.tool && <> · {e.tool}</>}
+                  {e.emulatedS !== undefined && <> · {formatEng(e.emulatedS, "s")} emulated</>}
+                  {e.image && (
+                    <>
+                      {" "}
+                      · ran <span className="num">{e.image.path}</span> sha256{" "}
+                      <code className="num break-all">{e.image.sha256}</code>
+                    </>
+                  )}
+                </p>
+              )}
+              {e && (
+                <EmulationChart
+                  planned={e.planned}
+                  edges={e.edges}
+                  label={
+                    e.edges
+                      ? `${folder}: emulated pin ${e.planned.pin} (solid) under the planned waveform (dashed), from its first rising edge`
+                      : `${folder}: planned waveform only; the image was not run`
+                  }
+                />
+              )}
+            </div>
+          );
+        })}
+      </Fold>
     </section>
+  );
+}
+
+function Fold({ folded, count, children }: { folded: boolean; count: number; children: React.ReactNode }) {
+  if (!folded) return <>{children}</>;
+  return (
+    <details className="space-y-3">
+      <summary className="cursor-pointer text-sm text-ink-soft">
+        Each of the {count} targets: verdict, plan and pin output
+      </summary>
+      {children}
+    </details>
   );
 }

@@ -200,6 +200,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
                   folders={emu.folders}
                   emulations={emu.emulations}
                   unprovenReason={emu.unprovenReason}
+                  folded={emu.folders.length > 2}
                 />
               ) : rev.number > 0 ? (
                 <p key={rev.id} className="panel text-sm text-ink-soft">
