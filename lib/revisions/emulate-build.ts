@@ -6,20 +6,15 @@
 import { sha256Hex, type BundleFile, type BundleSpec } from "@/lib/bundle";
 import { targetFolders } from "@/lib/bundle/folders";
 import { planTarget, type TimerPlan } from "@/lib/engine";
-import { emulateTarget } from "@/lib/firmware/emulate";
+import { emulateTarget, runImageOf } from "@/lib/firmware/emulate";
 import { emulationInputOf } from "@/lib/firmware/emulate/plan-input";
 import type { RevisionEmulations } from "./emulations";
 
-/** The image each emulator runs (the first that exists): what the approval's image sha256 names. */
-const RUN_IMAGES = ["firmware.hex", "firmware.elf"];
-
+/** The image the device's emulator runs: what the approval's image sha256 names. */
 function imageOf(files: BundleFile[], folder: string, device: string) {
-  const names = device === "rp2040" ? ["firmware.elf", "firmware.hex"] : RUN_IMAGES;
-  for (const n of names) {
-    const f = files.find((x) => x.path === `${folder}/firmware/${n}`);
-    if (f) return { path: f.path, sha256: sha256Hex(f.content) };
-  }
-  return null;
+  const inner = runImageOf(device);
+  const f = inner ? files.find((x) => x.path === `${folder}/${inner}`) : undefined;
+  return f ? { path: f.path, sha256: sha256Hex(f.content) } : null;
 }
 
 export async function emulateBuilt(

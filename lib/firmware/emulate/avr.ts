@@ -30,6 +30,9 @@ function simavrTool(): Promise<string> {
   return toolName;
 }
 
+/** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
+export const AVR_IMAGE = "firmware/firmware.hex";
+
 /** Why this input cannot run here, or null. */
 function refusal(input: EmulationInput): EmulationResult | null {
   const core = SIMAVR_CORES[input.device];
@@ -41,8 +44,8 @@ function refusal(input: EmulationInput): EmulationResult | null {
   if (!input.clockHz) return notEmulated("No CPU clock given for the simavr run.");
   if (!/^P[A-D][0-7]$/.test(input.planned.pin))
     return notEmulated(`Output pin ${input.planned.pin} is not an AVR port pin the harness can trace.`);
-  if (!input.files.some((f) => f.path === `${input.folder}/firmware/firmware.hex`))
-    return notEmulated(`The target has no ${input.folder}/firmware/firmware.hex to run.`);
+  if (!input.files.some((f) => f.path === `${input.folder}/${AVR_IMAGE}`))
+    return notEmulated(`The target has no ${input.folder}/${AVR_IMAGE} to run.`);
   return null;
 }
 
@@ -61,7 +64,7 @@ export const emulateAvr: DeviceEmulator = async (input) => {
   } catch (e) {
     return notEmulated(`Not run: ${(e as Error).message.split("\n")[0]}`, tool);
   }
-  const hex = input.files.find((f) => f.path === `${input.folder}/firmware/firmware.hex`)!;
+  const hex = input.files.find((f) => f.path === `${input.folder}/${AVR_IMAGE}`)!;
   const dir = await mkdtemp(path.join(tmpdir(), "cg-emu-avr-"));
   const timeoutMs = input.timeoutMs ?? DEFAULT_TIMEOUT_MS;
   try {

@@ -28,6 +28,8 @@ import {
   sampleTimerAsync,
 } from "./harness/mspdebug-sim";
 
+/** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
+export const MSP430G2553_IMAGE = "firmware/firmware.elf";
 const KINDS = ["periodic"] as const;
 /** Simulator steps before the set-up is read: start-up plus the LFXT1 fault-flag wait (about 15000 cycles). */
 const SETTLE_STEPS = 60_000;
@@ -41,9 +43,9 @@ const CCR0_SLOT = 9;
 export const emulateMsp430g2553: DeviceEmulator = async (input: EmulationInput): Promise<EmulationResult> => {
   const refused = commonRefusal(input, "MSP430G2553", KINDS);
   if (refused) return refused;
-  const elf = fileOf(input, "firmware/firmware.elf");
+  const elf = fileOf(input, MSP430G2553_IMAGE);
   if (elf === null)
-    return notEmulated(`The target has no ${input.folder}/firmware/firmware.elf image to run.`);
+    return notEmulated(`The target has no ${input.folder}/${MSP430G2553_IMAGE} image to run.`);
   const pin = /^P1\.([0-7])$/.exec(input.planned.pin);
   if (!pin)
     return notEmulated(`Output pin ${input.planned.pin} is not a P1 pin the simulator's gpio device shows.`);

@@ -36,14 +36,15 @@ const SETTLE_CYCLES = 20_000;
 export const PIC_MAX_STEPS = 12_000;
 /** Instruction cycles an interrupt plan may run. */
 export const PIC_MAX_CYCLES = 4_000_000;
+/** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
+export const PIC12F1840_IMAGE = "firmware/firmware.hex";
 const IMAGE = "firmware.hex";
 
 export const emulatePic12f1840: DeviceEmulator = async (input: EmulationInput): Promise<EmulationResult> => {
   const refused = commonRefusal(input, "PIC12F1840", KINDS);
   if (refused) return refused;
-  const hex = fileOf(input, "firmware/firmware.hex");
-  if (hex === null)
-    return notEmulated(`The target has no ${input.folder}/firmware/firmware.hex image to run.`);
+  const hex = fileOf(input, PIC12F1840_IMAGE);
+  if (hex === null) return notEmulated(`The target has no ${input.folder}/${PIC12F1840_IMAGE} image to run.`);
   const pin = /^RA([0-5])$/.exec(input.planned.pin);
   if (!pin) return notEmulated(`Output pin ${input.planned.pin} is not a PORTA pin of the PIC12F1840.`);
   const bit = Number(pin[1]);

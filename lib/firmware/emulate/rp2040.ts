@@ -15,6 +15,8 @@ import { DEFAULT_TIMEOUT_MS, emulatorsOff, notEmulated, runLengthS } from "./swi
 import type { DeviceEmulator, EmulationInput, EmulationResult } from "./types";
 
 /** Emulated time the XOSC and PLL start-up may take before the first edge (generous, as the image tests allow). */
+/** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
+export const RP2040_IMAGE = "firmware/firmware.elf";
 const START_UP_S = 0.2;
 const FLASH_BASE = 0x10000000;
 const PWM_BASE = 0x40050000;
@@ -51,8 +53,8 @@ function refusal(input: EmulationInput): EmulationResult | null {
     );
   if (gpioOf(input.planned.pin) === null)
     return notEmulated(`Output pin ${input.planned.pin} is not an RP2040 GPIO.`);
-  if (!input.files.some((f) => f.path === `${input.folder}/firmware/firmware.elf`))
-    return notEmulated(`The target has no ${input.folder}/firmware/firmware.elf to run.`);
+  if (!input.files.some((f) => f.path === `${input.folder}/${RP2040_IMAGE}`))
+    return notEmulated(`The target has no ${input.folder}/${RP2040_IMAGE} to run.`);
   return null;
 }
 
@@ -86,7 +88,7 @@ export const emulateRp2040: DeviceEmulator = async (input) => {
   } catch (e) {
     return notEmulated(`Not run: rp2040js did not load: ${(e as Error).message}`, name);
   }
-  const elf = input.files.find((f) => f.path === `${input.folder}/firmware/firmware.elf`)!;
+  const elf = input.files.find((f) => f.path === `${input.folder}/${RP2040_IMAGE}`)!;
   const gpio = gpioOf(input.planned.pin)!;
   let flash: Uint8Array;
   try {

@@ -25,14 +25,15 @@ import { harnessPython, runStm32Harness, unicornVersion, type RunOptions } from 
 export const STM32_MAX_INSTRUCTIONS = 200_000;
 /** Handler calls for an interrupt plan: two whole output periods and one more call. */
 export const STM32_MAX_ISR_CALLS = 4001;
+/** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
+export const STM32G031_IMAGE = "firmware/firmware.elf";
 const KINDS = ["periodic"] as const;
 
 export const emulateStm32g031: DeviceEmulator = async (input: EmulationInput): Promise<EmulationResult> => {
   const refused = commonRefusal(input, "STM32G031", KINDS);
   if (refused) return refused;
-  const elf = fileOf(input, "firmware/firmware.elf");
-  if (elf === null)
-    return notEmulated(`The target has no ${input.folder}/firmware/firmware.elf image to run.`);
+  const elf = fileOf(input, STM32G031_IMAGE);
+  if (elf === null) return notEmulated(`The target has no ${input.folder}/${STM32G031_IMAGE} image to run.`);
   const t = timerForPin(input.planned.pin);
   if (!t)
     return notEmulated(
