@@ -125,7 +125,10 @@ describe("MSP430G2553 wrapper: not emulated, never faked", () => {
     const { input } = await targetImage(PWM);
     const r = await emulateMsp430g2553({ ...input, timeoutMs: 5 });
     expect(r.verdict).toBe("not-emulated");
-    expect(r.reason).toMatch(/The simulator run did not finish: the .* run took longer than \d+ ms/);
+    // Stopped by the cap, or (seen once under heavy load) its output cut short: either way not judged.
+    expect(r.reason).toMatch(
+      /The simulator run did not finish: the (.* run took longer than \d+ ms|simulator's output ended after)/,
+    );
     expect(r.periodS).toBeUndefined();
   });
 });

@@ -196,7 +196,16 @@ export async function sampleTimerAsync(
   o: SimOptions,
   timeoutMs: number,
 ): Promise<{ samples: TimerSample[]; io: IoWrite[]; resets: number }> {
-  return parseSamples(await mspdebugAsync(elf, sampleCommands(settle, stepCycles, samples, o), timeoutMs));
+  const out = parseSamples(
+    await mspdebugAsync(elf, sampleCommands(settle, stepCycles, samples, o), timeoutMs),
+  );
+  // One sample after the settle steps and one per step: fewer means the run ended early (seen under heavy
+  // load with exit status 0), and the wrapper must say so rather than read a sample that is not there.
+  if (out.samples.length < samples + 1)
+    throw new SimFailure(
+      `the simulator's output ended after ${out.samples.length} of ${samples + 1} timer samples`,
+    );
+  return out;
 }
 
 function sampleCommands(settle: number, stepCycles: number, samples: number, o: SimOptions): string[] {
