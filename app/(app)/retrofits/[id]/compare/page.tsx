@@ -225,14 +225,14 @@ export default async function ComparePage({ params, searchParams }: Props) {
           ))}
           {canComment && <AnchorCommentForm revisionId={b.id} anchors={anchors} />}
         </section>
-      </CommentAnchorProvider>
 
-      <section aria-labelledby="numbers-h">
-        <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
-          Numbers that changed
-        </h2>
-        <NumbersTable rows={cmp.numbers} a={a.number} b={b.number} />
-      </section>
+        <section aria-labelledby="numbers-h">
+          <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
+            Numbers that changed
+          </h2>
+          <NumbersTable rows={cmp.numbers} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
+      </CommentAnchorProvider>
 
       {!filesReady && (
         <section aria-labelledby="files-h" className="space-y-2">
