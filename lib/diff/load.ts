@@ -9,7 +9,7 @@ import type { AuthUser } from "@/lib/auth/guard";
 import { assertCanReadRevision } from "@/lib/revisions/access";
 import { compareSnapshots } from "./index";
 import type { BuildState } from "@/lib/revisions/build-state";
-import type { RevisionComparison, RevisionRef, RevisionSnapshot } from "./types";
+import type { RevisionComparison, RevisionRef, RevisionSnapshot, UnbuiltSide } from "./types";
 
 /** A revision as the comparison reads it, with its build state: files exist only once it is built. */
 export type Loaded = RevisionRef &
@@ -83,13 +83,35 @@ export async function loadPair(user: AuthUser, aId: number, bId: number): Promis
   return { a, b };
 }
 
+/** The sides of a pair whose build is not done (the "nothing" side counts as built). */
+export function unbuiltSides(a: Loaded, b: Loaded): UnbuiltSide[] {
+  return [a, b]
+    .filter((r) => r.id !== NOTHING_ID && r.buildState !== "ready")
+    .map((r) => ({ id: r.id, number: r.number, buildState: r.buildState, buildError: r.buildError }));
+}
+
+/** Plain words for why the files of a pair cannot be compared yet. */
+export function unbuiltMessage(sides: UnbuiltSide[]): string {
+  const parts = sides.map((s) =>
+    s.buildState === "building" ? `r${s.number} is still building` : `the build of r${s.number} failed`,
+  );
+  return `No file text to compare yet: ${parts.join("; ")}. The numbers compare from the plans.`;
+}
+
+/**
+ * The comparison the API answers. While a side is unbuilt its files do not
+ * exist yet, so the file part is empty and `unbuilt` says why (instead of
+ * listing every file of the other side as gone or new).
+ */
 export async function compareRevisions(
   user: AuthUser,
   aId: number,
   bId: number,
 ): Promise<RevisionComparison> {
   const { a, b } = await loadPair(user, aId, bId);
-  return compareSnapshots(a.retrofitId, a, b);
+  const unbuilt = unbuiltSides(a, b);
+  const cmp = compareSnapshots(a.retrofitId, a, b);
+  return unbuilt.length === 0 ? { ...cmp, unbuilt } : { ...cmp, files: [], unbuilt };
 }
 
 export type RevisionChoice = { id: number; number: number; state: string; supersededAt: Date | null };

@@ -38,12 +38,18 @@ export type FileDiff = {
 
 export type RevisionRef = { id: number; number: number; state: string };
 
+/** A side of a comparison whose build is not done: it has its plan (numbers) but no files yet. */
+export type UnbuiltSide = { id: number; number: number; buildState: string; buildError: string | null };
+
 export type RevisionComparison = {
   retrofitId: number;
   a: RevisionRef;
   b: RevisionRef;
   numbers: NumberChange[];
+  /** Empty while a side is unbuilt (see `unbuilt`): its files are not there to compare yet. */
   files: FileDiff[];
+  /** The sides still building or failed; the file text is compared once this is empty. */
+  unbuilt?: UnbuiltSide[];
 };
 
 /** What the comparison reads from a revision row. */

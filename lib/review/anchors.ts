@@ -75,6 +75,18 @@ export function revisionAnchors(
   return out;
 }
 
+/**
+ * The anchor a row of the "numbers that changed" table (lib/diff/numbers.ts)
+ * can carry a comment on: its target quantities and registers keep their key
+ * ("target1.periodS"), its registers read "targetN.registers.X" where anchors
+ * say "targetN.register.X". Null when the row is not an anchor of `anchors`
+ * (stage values, pins, errors).
+ */
+export function anchorKeyOfNumber(numberKey: string, anchorKeys: readonly string[]): string | null {
+  const key = numberKey.replace(/^(target\d+)\.registers\./, "$1.register.");
+  return anchorKeys.includes(key) ? key : null;
+}
+
 export type CarryMark = "same" | "changed" | "gone";
 
 /** How a comment written with `text` on anchor `key` reads in a revision with these anchors. */

@@ -1,5 +1,5 @@
-// The Comment buttons on the rows of the compare page's board and register
-// tables: each opens the anchored comment form with its own quantity or
+// The Comment buttons on the rows of the compare page's board, register and
+// changed-number tables: each opens the anchored comment form with its own quantity or
 // register chosen, and the saved comment shows up anchored there. The anchors
 // are the plan's own (lib/review/anchors.ts): target1.highS for the high time,
 // target1.register.OCR1A for the compare register of the ATmega328P's Timer1
@@ -74,6 +74,21 @@ describe("comment buttons on board and register rows", () => {
     expect(await onReg.textContent()).toContain("Target 1 OCR1A");
     // Each comment sits on its own anchor: the first one did not move.
     expect(await onHigh.getAttribute("data-anchor")).toBe("target1.highS");
+
+    // A row of the numbers that changed: the target's period (an anchor too).
+    const numbers = rev.page.getByRole("table", { name: "Numbers that changed" });
+    await numbers
+      .locator("tr[data-key='target1.periodS']")
+      .getByRole("button", { name: "Comment on target 1 period" })
+      .click();
+    await expect.poll(() => about.inputValue()).toBe("target1.periodS");
+    await text.fill("Period rounded the right way?");
+    await rev.page.getByRole("button", { name: "Save comment" }).click();
+    const onPeriod = thread(rev.page, "Period rounded the right way?");
+    await onPeriod.waitFor(SLOW);
+    expect(await onPeriod.getAttribute("data-anchor")).toBe("target1.periodS");
+    // Stage rows are not anchors: no button there.
+    expect(await numbers.locator("tr[data-key='stage.kind'] button").count()).toBe(0);
     await rev.context.close();
   }, 300_000);
 });

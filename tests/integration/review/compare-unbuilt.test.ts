@@ -94,3 +94,50 @@ describe("compare page, revision not built", { timeout: 120_000 }, () => {
     expect(text).toContain("r2 is still building");
   });
 });
+
+// The diff API for the same pairs: the numbers compare, the files wait, and
+// the answer says which side is unbuilt (not every file listed as gone).
+describe("diff API, revision not built", { timeout: 120_000 }, () => {
+  it("answers the numbers with no files and names the building side", async () => {
+    const res = await reviewer.fetch(`/api/v1/diff?a=${ids.ready}&b=${ids.building}`);
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as {
+      numbers: { key: string; before: string; after: string }[];
+      files: unknown[];
+      unbuilt: { id: number; number: number; buildState: string }[];
+    };
+    expect(body.files).toEqual([]);
+    expect(body.unbuilt).toEqual([{ id: ids.building, number: 2, buildState: "building", buildError: null }]);
+    expect(body.numbers.find((n) => n.key === "stage.rb")).toMatchObject({
+      before: "10 kΩ",
+      after: "4.7 kΩ",
+    });
+  });
+
+  it("names a failed side with its reason", async () => {
+    const res = await reviewer.fetch(`/api/v1/diff?a=${ids.ready}&b=${ids.failed}`);
+    const body = (await res.json()) as {
+      files: unknown[];
+      unbuilt: { buildState: string; buildError: string }[];
+    };
+    expect(body.files).toEqual([]);
+    expect(body.unbuilt).toEqual([expect.objectContaining({ buildState: "failed", buildError: REASON })]);
+  });
+
+  it("refuses a patch while a side is unbuilt (409 saying which)", async () => {
+    const res = await reviewer.fetch(`/api/v1/diff?a=${ids.ready}&b=${ids.building}&format=patch`);
+    expect(res.status).toBe(409);
+    const body = (await res.json()) as { error: { message: string } };
+    expect(body.error.message).toContain("r2 is still building");
+  });
+
+  it("compares files once both sides are built: unbuilt is empty", async () => {
+    // The built revision against itself: every file there, each unchanged.
+    const res = await reviewer.fetch(`/api/v1/diff?a=${ids.ready}&b=${ids.ready}`);
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { files: { status: string }[]; unbuilt: unknown[] };
+    expect(body.unbuilt).toEqual([]);
+    expect(body.files.length).toBeGreaterThan(0);
+    expect(body.files.every((f) => f.status === "unchanged")).toBe(true);
+  });
+});

@@ -13,6 +13,7 @@ import { toThreadView } from "@/lib/review/thread-view";
 import { fileAnchor } from "@/lib/diff/anchor";
 import { highlightLines } from "@/lib/highlight/shiki";
 import { NumbersTable } from "@/components/diff/numbers-table";
+import { EmulationOverlay } from "@/components/diff/emulation-overlay";
 import { BoardTable } from "@/components/diff/board-table";
 import { boardChanges } from "@/lib/diff/board";
 import { RegisterTable } from "@/components/diff/register-table";
@@ -187,6 +188,14 @@ export default async function ComparePage({ params, searchParams }: Props) {
           <h2 id="emulated-h" className="text-lg font-semibold">
             Emulated output beside the plan
           </h2>
+          {emuA && emuA.buildState === "ready" && emuB && emuB.buildState === "ready" && (
+            <EmulationOverlay
+              folders={emuB.folders}
+              older={{ number: a.number, emulations: emuA.emulations }}
+              newer={{ number: b.number, emulations: emuB.emulations }}
+              folded={emuB.folders.length > 2}
+            />
+          )}
           <div className="grid gap-4 lg:grid-cols-2">
             {[
               { rev: a, emu: emuA },
@@ -225,14 +234,14 @@ export default async function ComparePage({ params, searchParams }: Props) {
           ))}
           {canComment && <AnchorCommentForm revisionId={b.id} anchors={anchors} />}
         </section>
-      </CommentAnchorProvider>
 
-      <section aria-labelledby="numbers-h">
-        <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
-          Numbers that changed
-        </h2>
-        <NumbersTable rows={cmp.numbers} a={a.number} b={b.number} />
-      </section>
+        <section aria-labelledby="numbers-h">
+          <h2 id="numbers-h" className="mb-2 text-lg font-semibold">
+            Numbers that changed
+          </h2>
+          <NumbersTable rows={cmp.numbers} a={a.number} b={b.number} anchorKeys={anchorKeys} />
+        </section>
+      </CommentAnchorProvider>
 
       {!filesReady && (
         <section aria-labelledby="files-h" className="space-y-2">
