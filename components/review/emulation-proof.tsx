@@ -1,6 +1,8 @@
 // Per target: the emulator's verdict on the built image in plain words
 // ("Agrees ...", "Differs ...", "Not proven: <reason>"), the emulated pin
 // output drawn under the planned waveform, the tool and the image sha256 it ran.
+// A triggered or zero-cross run also names the driven input and the measured
+// delay and pulse; its plan is drawn as one pulse per driven input edge.
 import { EmulationChart } from "@/components/charts/emulation-chart";
 import { formatEng } from "@/lib/engine";
 import { PROOF_WORDS, proofOf, verdictSentence, type RevisionEmulations } from "@/lib/revisions/emulations";
@@ -68,9 +70,17 @@ export function EmulationProof({
                   )}
                 </p>
               )}
+              {e?.trigger && (
+                <p className="text-xs text-ink-soft" data-testid="emulation-trigger">
+                  Input {e.trigger.input} driven with {e.trigger.edge === "both" ? "" : `${e.trigger.edge} `}
+                  edges every {formatEng(e.trigger.spacingS, "s", 6)}
+                  {e.delayS !== undefined && <> · measured delay {formatEng(e.delayS, "s", 6)}</>}
+                  {e.widthS !== undefined && <> · pulse {formatEng(e.widthS, "s", 6)}</>}
+                </p>
+              )}
               {e && (
                 <EmulationChart
-                  planned={e.planned}
+                  planned={e.trigger ? { ...e.planned, periodS: e.trigger.spacingS } : e.planned}
                   edges={e.edges}
                   label={
                     e.edges

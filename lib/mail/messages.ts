@@ -22,11 +22,16 @@ export function reviewRequestedMail(o: {
   author: Person;
   reviewers: Person[];
   note: string;
+  /** Set when a target was not proven in the emulator: the author's reason (proof-gate.ts). */
+  unprovenReason?: string | null;
 }): OutgoingMail[] {
   const subject = `Please check: ${label(o.retrofit, o.revision)}`;
   const body = [
     `${o.author.name} sent ${label(o.retrofit, o.revision)} at ${o.retrofit.site} for checking.`,
     o.note ? `\nNote: ${o.note}\n` : "",
+    o.unprovenReason
+      ? `\nNot every target was proven in the emulator. The author's reason: ${o.unprovenReason}\n`
+      : "",
     `Compare with the earlier revision: ${base()}/retrofits/${o.retrofit.id}/compare?b=${o.revision.id}`,
     `Release or return it here: ${base()}/revisions/${o.revision.id}/review`,
   ].join("\n");

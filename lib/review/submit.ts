@@ -63,7 +63,10 @@ export async function submitRevision(
       tx,
     );
     const reviewers = await activeReviewers(tx, revision.createdBy);
-    await enqueueMail(reviewRequestedMail({ revision, retrofit, author, reviewers, note }), tx);
+    await enqueueMail(
+      reviewRequestedMail({ revision, retrofit, author, reviewers, note, unprovenReason }),
+      tx,
+    );
     return { id: revisionId, number: revision.number, state: "awaiting_check" as const, submittedAt: now };
   });
   return result;

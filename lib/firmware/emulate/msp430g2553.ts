@@ -5,7 +5,15 @@
 // bytes, so an image that reads its calibration can run) and no Timer_A
 // output unit: interrupt plans are measured from the simulated times of the
 // handler calls and the P1 levels they write; PWM plans from the counter's
-// wrap (TAR samples) and TACCR1. The reason says which. Server-only.
+// wrap (TAR samples) and TACCR1. The reason says which.
+// Triggered and zero-cross plans: the gpio device drives P1.3 and raises the
+// PORT1 interrupt (vector slot 2, SLAS735); the tracer stamps each change and
+// each P1OUT write with the MCLK count, and judge-trigger.ts judges the
+// pulses (one cycle of resolution). The changes are placed by simulator steps
+// (the idle loop's JMP is 2 cycles a step, family guide SLAU144), so the edge
+// times used are the stamps the simulator printed, not the schedule's.
+// Server-only.
+import { driveSchedule, judgeTriggered, type DriveSchedule } from "./judge-trigger";
 import type { DeviceEmulator, EmulationInput, EmulationResult } from "./types";
 import {
   commonRefusal,
@@ -25,12 +33,20 @@ import {
   mspdebugVersion,
   periodsFromSamples,
   runToBreaksAsync,
+  runWithInputsAsync,
   sampleTimerAsync,
+  type InputChange,
 } from "./harness/mspdebug-sim";
 
 /** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
 export const MSP430G2553_IMAGE = "firmware/firmware.elf";
-const KINDS = ["periodic"] as const;
+const KINDS = ["periodic", "triggered", "zero-cross"] as const;
+/** Steps from reset to the idle loop of a triggered image (DCO calibration, set-up: about 130 cycles). */
+const TRIGGER_SETTLE_STEPS = 300;
+/** PORT1 interrupt: vector slot 2 (SLAS735 interrupt vector table). */
+const PORT1_SLOT = 2;
+/** P1OUT address (SLAS735 peripheral file map). */
+const P1OUT = 0x21;
 /** Simulator steps before the set-up is read: start-up plus the LFXT1 fault-flag wait (about 15000 cycles). */
 const SETTLE_STEPS = 60_000;
 /** Simulated SMCLK cycles one image may take (about 10 million per second of wall time seen here). */
@@ -59,6 +75,7 @@ export const emulateMsp430g2553: DeviceEmulator = async (input: EmulationInput):
   const started = Date.now();
   const left = () => Math.max(1, timeoutMs - (Date.now() - started));
   const sim = { calibration: true, watchdog: true };
+  if (input.kind !== "periodic") return emulateTriggered(input, elf, bit, tool, left);
 
   return withTempFiles({ "firmware.elf": elf }, async (dir) => {
     const file = `${dir}/firmware.elf`;
@@ -200,3 +217,62 @@ export const emulateMsp430g2553: DeviceEmulator = async (input: EmulationInput):
     }
   });
 };
+
+/** A triggered or zero-cross image with P1.x driven by the simulator's gpio device. */
+async function emulateTriggered(
+  input: EmulationInput,
+  elf: Uint8Array | string,
+  bit: number,
+  tool: string,
+  left: () => number,
+): Promise<EmulationResult> {
+  const inPin = /^P1\.([0-7])$/.exec(input.trigger?.input ?? "");
+  if (!inPin) return notEmulated(`The ${input.kind} plan names no P1 input pin to drive.`, tool);
+  const clockHz = input.clockHz ?? 0;
+  if (!(clockHz > 0)) return notEmulated("No CPU clock given for the simulator run.", tool);
+  const budgetS = MSP430_MAX_SIM_CYCLES / clockHz;
+  const drive = driveSchedule(input, 0, budgetS);
+  if (!("halfS" in drive)) return { ...drive, tool };
+  const pin = Number(inPin[1]);
+  const halfSteps = Math.round((drive.halfS * clockHz) / 2);
+  const n = Math.floor((drive.lengthS - drive.firstS) / drive.halfS) + 1;
+  // Idle high (the pull-up) from the first step, before the image enables the port interrupt.
+  const changes: InputChange[] = [{ steps: 1, pin, level: 1 }];
+  for (let k = 0; k < n; k++)
+    changes.push({ steps: k === 0 ? TRIGGER_SETTLE_STEPS : halfSteps, pin, level: k % 2 === 0 ? 0 : 1 });
+  const tail = Math.round(((drive.lengthS - drive.firstS - (n - 1) * drive.halfS) * clockHz) / 2);
+  return withTempFiles({ "firmware.elf": elf }, async (dir) => {
+    try {
+      const r = await runWithInputsAsync(
+        `${dir}/firmware.elf`,
+        changes,
+        Math.max(tail, 1),
+        { calibration: true, watchdog: true, p1Irq: PORT1_SLOT },
+        left(),
+      );
+      const clocks = msp430Clocks(r.io, defineValue(textOf(input, "src/timing.h"), "TIMING_CLOCK_HZ"));
+      const hz = clocks.smclkHz;
+      if (!hz)
+        return differsWithout(
+          `The image's clock set-up gives no known clock: ${clocks.problems.join("; ")}.`,
+          tool,
+        );
+      const ins = r.changeAt.slice(1).map((at, k) => ({ t: at / hz, level: (k % 2 === 0 ? 0 : 1) as 0 | 1 }));
+      const mask = 1 << bit;
+      const outs = r.io
+        .filter((w) => w.addr === P1OUT && w.width === "b")
+        .map((w) => ({ t: w.at / hz, level: (w.value & mask ? 1 : 0) as 0 | 1 }));
+      const endS = Math.max(ins[ins.length - 1]?.t ?? 0, outs[outs.length - 1]?.t ?? 0) + tail * (2 / hz);
+      const schedule: DriveSchedule = { ...drive, firstS: ins[0]?.t ?? 0 };
+      const j = judgeTriggered(input, ins, outs, { tool, emulatedS: endS, stepS: 1 / hz, schedule });
+      return {
+        ...j,
+        reason: `${j.reason} mspdebug's gpio drove ${input.trigger!.input}; SMCLK from the ${clocks.smclkFrom}.`,
+      };
+    } catch (e) {
+      if (e instanceof SimFailure)
+        return notEmulated(`The simulator run did not finish: ${e.message}.`, tool);
+      throw e;
+    }
+  });
+}

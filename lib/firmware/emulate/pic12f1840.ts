@@ -6,7 +6,11 @@
 // time from OSCCON, so the clock is decoded from the image's configuration
 // words and the OSCCON it runs with (DS40001441 Registers 4-1, 4-2, 5-1);
 // a crystal's frequency is a board fact the bundle states in src/timing.h.
+// Triggered and zero-cross plans: a gpsim stimulus drives the input pin (RA1)
+// as judge-trigger.ts schedules it (idle high from the first cycle) and the
+// pulses are the handler's LATA writes, one instruction cycle of resolution.
 // Server-only.
+import { driveSchedule, inputChanges, judgeTriggered } from "./judge-trigger";
 import type { DeviceEmulator, EmulationInput, EmulationResult } from "./types";
 import {
   commonRefusal,
@@ -23,13 +27,16 @@ import {
   configWords,
   gpsimVersion,
   latchWritesAsync,
+  pinStimulus,
   pinTiming,
   registersAtAsync,
   tracePinAsync,
 } from "./harness/gpsim";
 import { decodeConfig2, systemClockHz } from "./harness/pic12f1840-tables";
 
-const KINDS = ["periodic"] as const;
+const KINDS = ["periodic", "triggered", "zero-cross"] as const;
+/** Time the image is given to start (crystal start-up, set-up) before the first input change. */
+const TRIGGER_START_UP_S = 5e-3;
 /** Instruction cycles before the set-up is read: past the oscillator wait and Timer2's first period. */
 const SETTLE_CYCLES = 20_000;
 /** Pin samples (one `step` each) a PWM trace may take. */
@@ -82,6 +89,28 @@ export const emulatePic12f1840: DeviceEmulator = async (input: EmulationInput): 
       if (!(hz > 0)) return differsWithout("The image's oscillator set-up gives no known clock.", tool);
       const tcy = 4 / hz;
       const clock = `${hz} Hz from CONFIG1 0x${config1.toString(16)} and OSCCON 0x${regs.OSCCON.toString(16)}`;
+      if (input.kind !== "periodic") {
+        // Timer2 rests until the first edge starts it, so its run bit is not checked here.
+        const inPin = input.trigger?.input ?? "";
+        if (!/^RA[0-5]$/.test(inPin))
+          return notEmulated(`The ${input.kind} plan names no PORTA input pin to drive.`, tool);
+        const drive = driveSchedule(input, Math.max(TRIGGER_START_UP_S, 2000 * tcy), PIC_MAX_CYCLES * tcy);
+        if (!("halfS" in drive)) return { ...drive, tool };
+        const ins = inputChanges(drive).map((e) => ({ cycle: Math.round(e.t / tcy), level: e.level }));
+        const cycles = Math.ceil(drive.lengthS / tcy);
+        // Idle high (the pull-up) from cycle 1, before the image enables interrupt-on-change.
+        const stim = pinStimulus(inPin, [{ cycle: 1, level: 1 }, ...ins]);
+        const writes = await latchWritesAsync(dir, cycles, IMAGE, left(), stim);
+        const mask = 1 << bit;
+        const outs = writes.map((w) => ({ t: w.cycle * tcy, level: (w.value & mask ? 1 : 0) as 0 | 1 }));
+        const r = judgeTriggered(
+          input,
+          ins.map((e) => ({ t: e.cycle * tcy, level: e.level })),
+          outs,
+          { tool, emulatedS: cycles * tcy, stepS: tcy, schedule: drive },
+        );
+        return { ...r, reason: `${r.reason} gpsim drove ${inPin}; clock ${clock}.` };
+      }
       if ((regs.T2CON & 4) === 0)
         return differsWithout(
           `Timer2 is not running (T2CON 0x${regs.T2CON.toString(16)}, TMR2ON = 0): no output.`,

@@ -4,20 +4,25 @@
 // against the plan (judge.ts). rp2040js 1.4.1 drives edge-aligned PWM and
 // GPIO writes onto the pin but not phase-correct PWM: such an image answers
 // not-emulated, with the PWM registers it left read back for the reviewer.
-// Free-running plans only. Server-only.
+// Triggered and zero-cross plans: the input GPIO is held high from reset and
+// then driven (GPIOPin.setInputValue from a clock alarm) as judge-trigger.ts
+// schedules it; the output's edges are judged as pulses. Server-only.
 import { readFile } from "node:fs/promises";
 import { createRequire } from "node:module";
 import path from "node:path";
 import { formatEng } from "@/lib/engine/units";
 import { elfFlashContent } from "./harness/image-readers";
 import { judgeEdges, MIN_PERIODS } from "./judge";
-import { DEFAULT_TIMEOUT_MS, emulatorsOff, notEmulated, runLengthS } from "./switches";
+import { driveSchedule, inputChanges, judgeTriggered } from "./judge-trigger";
+import { DEFAULT_TIMEOUT_MS, emulatorsOff, MAX_EMULATED_S, notEmulated, runLengthS } from "./switches";
 import type { DeviceEmulator, EmulationInput, EmulationResult } from "./types";
 
 /** Emulated time the XOSC and PLL start-up may take before the first edge (generous, as the image tests allow). */
 /** The image this wrapper runs, inside the target folder (index.ts names it in the stored result). */
 export const RP2040_IMAGE = "firmware/firmware.elf";
 const START_UP_S = 0.2;
+/** XOSC, PLL and set-up before the first input change of a triggered plan (the firmware tests use 20 ms). */
+const TRIGGER_START_UP_S = 0.05;
 const FLASH_BASE = 0x10000000;
 const PWM_BASE = 0x40050000;
 
@@ -47,10 +52,10 @@ function gpioOf(pin: string): number | null {
 
 function refusal(input: EmulationInput): EmulationResult | null {
   if (input.device !== "rp2040") return notEmulated(`rp2040js runs RP2040 images, not ${input.device}.`);
-  if (input.kind !== "periodic")
-    return notEmulated(
-      `The emulator run covers free-running plans; a ${input.kind} plan needs its input driven, which is not wired in the product yet.`,
-    );
+  if (!["periodic", "triggered", "zero-cross"].includes(input.kind))
+    return notEmulated(`rp2040js runs free-running, triggered and zero-cross plans, not ${input.kind}.`);
+  if (input.kind !== "periodic" && gpioOf(input.trigger?.input ?? "") === null)
+    return notEmulated(`The ${input.kind} plan names no RP2040 input GPIO to drive.`);
   if (gpioOf(input.planned.pin) === null)
     return notEmulated(`Output pin ${input.planned.pin} is not an RP2040 GPIO.`);
   if (!input.files.some((f) => f.path === `${input.folder}/${RP2040_IMAGE}`))
@@ -80,8 +85,12 @@ export const emulateRp2040: DeviceEmulator = async (input) => {
   if (off) return off;
   const name = await rp2040jsTool();
   if (!name) return notEmulated("Not run: the rp2040js package is not installed on this deployment.");
-  const lengthS = runLengthS(input.planned.periodS, MIN_PERIODS, START_UP_S);
+  const drive = input.kind === "periodic" ? null : driveSchedule(input, TRIGGER_START_UP_S, MAX_EMULATED_S);
+  if (drive && !("halfS" in drive)) return { ...drive, tool: name };
+  const lengthS = drive ? drive.lengthS : runLengthS(input.planned.periodS, MIN_PERIODS, START_UP_S);
   if (typeof lengthS !== "number") return lengthS;
+  const ins = drive ? inputChanges(drive) : [];
+  const inGpio = drive ? gpioOf(input.trigger!.input)! : -1;
   let boot: Boot;
   try {
     boot = await import("./harness/rp2040-boot");
@@ -104,10 +113,25 @@ export const emulateRp2040: DeviceEmulator = async (input) => {
   try {
     run = boot.bootAndRun(flash, {
       gpio,
-      edgesWanted: 2 * (MIN_PERIODS + 3),
+      edgesWanted: drive ? Number.MAX_SAFE_INTEGER : 2 * (MIN_PERIODS + 3),
       maxNs: lengthS * 1e9,
       maxInstructions: 200_000_000,
       maxWallMs: timeoutMs,
+      ...(drive
+        ? {
+            setup: (rp) => {
+              // Idle high (the pull-up) from reset, then the schedule's changes.
+              rp.gpio[inGpio].setInputValue(true);
+              let i = 0;
+              const alarm = rp.clock.createAlarm(() => {
+                rp.gpio[inGpio].setInputValue(ins[i].level === 1);
+                i++;
+                if (i < ins.length) alarm.schedule((ins[i].t - ins[i - 1].t) * 1e9);
+              });
+              alarm.schedule(ins[0].t * 1e9);
+            },
+          }
+        : {}),
     });
   } catch (e) {
     // The ROM would refuse this image: that is the image's fault, not a missing tool.
@@ -124,6 +148,14 @@ export const emulateRp2040: DeviceEmulator = async (input) => {
   if (phase) return notEmulated(phase, name);
   const edges = run.edges.map((e) => ({ t: e.ns / 1e9, level: e.high ? (1 as const) : (0 as const) }));
   const emulatedS = (run.rp.clock as unknown as { nanos: number }).nanos / 1e9;
+  if (drive)
+    // GPIO writes and PWM events land at instruction boundaries: one clk_sys cycle.
+    return judgeTriggered(input, ins, edges, {
+      tool: name,
+      emulatedS,
+      stepS: 1 / run.clkSysHz,
+      schedule: drive,
+    });
   // PWM edges come from rp2040js's timer alarms at exact times (float rounding
   // only); GPIO writes land at instruction boundaries, covered by an interrupt
   // plan's jitter (its latency bound).

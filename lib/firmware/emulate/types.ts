@@ -5,6 +5,24 @@
 // fakes a result: a missing tool or a plan kind it cannot drive answers
 // "not-emulated" with a plain reason.
 import type { BundleFile } from "@/lib/bundle/types";
+import type { InputEdge } from "@/lib/engine/plan-types";
+
+/** Triggered and zero-cross plans: the input the emulator drives and the pulse it must see. */
+export interface TriggerDrive {
+  /** Input pin as the datasheet names it, e.g. "PD2". */
+  input: string;
+  edge: InputEdge;
+  /** Planned delay from the input edge to the pulse (the plan's counted delay), seconds. */
+  delayS: number;
+  /** Planned pulse width, seconds. */
+  widthS: number;
+  /** Stated worst-case input edge to timer start (interrupt response + handler), seconds. */
+  latencyS: number;
+  /** One timer count, seconds (the prescaler's phase). */
+  countS: number;
+  /** The pulse is the pin going low. */
+  activeLow: boolean;
+}
 
 export type EmulationVerdict = "agrees" | "differs" | "not-emulated";
 
@@ -30,6 +48,8 @@ export interface EmulationInput {
   clockHz?: number;
   /** Wall-clock cap for the emulator run. */
   timeoutMs?: number;
+  /** Kinds "triggered" and "zero-cross" only: the input to drive. */
+  trigger?: TriggerDrive;
 }
 
 export interface EmulationResult {
@@ -45,6 +65,16 @@ export interface EmulationResult {
   edges?: { t: number; level: 0 | 1 }[];
   /** Emulated time covered, in seconds. */
   emulatedS?: number;
+  /** Triggered and zero-cross runs: mean measured delay from the input edge and pulse width (highS repeats the width). */
+  delayS?: number;
+  widthS?: number;
+  /** Triggered and zero-cross runs: the input as driven (its first changes) and the time between selected edges. */
+  trigger?: {
+    input: string;
+    edge: InputEdge;
+    spacingS: number;
+    inputEdges: { t: number; level: 0 | 1 }[];
+  };
 }
 
 export type DeviceEmulator = (input: EmulationInput) => Promise<EmulationResult>;

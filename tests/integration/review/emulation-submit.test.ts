@@ -2,11 +2,12 @@
 // image (revisions.emulations) and the submit rule follows it: proven goes
 // through, not proven needs unprovenReason (422 naming it). Real generator,
 // real PostgreSQL, simavr from Debian (libsimavr-dev).
-import { eq } from "drizzle-orm";
+import { and, eq, like } from "drizzle-orm";
 import { afterEach, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { revisionImages } from "@/db/schema";
+import { mailOutbox, revisionImages } from "@/db/schema";
 import { proofGate } from "@/lib/review/proof-gate";
+import { submitRevision } from "@/lib/review/submit";
 import type { RevisionEmulations } from "@/lib/revisions/emulations";
 import { makeUser } from "../../helpers/users";
 import { generate, makeRetrofit, stateOf } from "./fixtures";
@@ -46,6 +47,17 @@ describe("emulation stored with the revision, and the submit rule", () => {
       expect(err).toMatchObject({ status: 422, fields: { unprovenReason: expect.any(String) } });
     }
     expect(proofGate(row, "Bench-checked on a scope, see note")).toBe("Bench-checked on a scope, see note");
+    // Submitted with the reason: the reviewers' mail carries it (lib/mail/messages.ts).
+    const reviewer = await makeUser("reviewer");
+    const reason = `Bench-checked on a scope, run ${rev.id}`;
+    await submitRevision({ ...u, via: "token" }, rev.id, "", reason);
+    expect((await stateOf(rev.id)).unprovenReason).toBe(reason);
+    const mails = await db
+      .select()
+      .from(mailOutbox)
+      .where(and(eq(mailOutbox.toAddress, reviewer.email), like(mailOutbox.body, `%${reason}%`)));
+    expect(mails).toHaveLength(1);
+    expect(mails[0].body).toContain(`The author's reason: ${reason}`);
   });
 
   it("a target that differs is refused with 409", () => {

@@ -115,11 +115,11 @@ describe("MSP430G2553 wrapper: not emulated, never faked", () => {
     expect(r.periodS).toBeUndefined();
   });
 
-  it("a zero-cross plan kind is not driven", async () => {
+  it("a zero-cross plan kind without an input pin to drive is not run", async () => {
     const { input } = await targetImage(PWM);
     const r = await emulateMsp430g2553({ ...input, kind: "zero-cross" });
     expect(r.verdict).toBe("not-emulated");
-    expect(r.reason).toMatch(/periodic plans only/);
+    expect(r.reason).toMatch(/names no P1 input pin/);
   });
   it("a run past the wall-clock budget is stopped and not judged", async () => {
     const { input } = await targetImage(PWM);

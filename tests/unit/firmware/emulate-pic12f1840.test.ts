@@ -119,10 +119,11 @@ describe("PIC12F1840 wrapper: not emulated, never faked", () => {
     expect(r.periodS).toBeUndefined();
   });
 
-  it("a triggered plan kind is not driven", async () => {
+  it("a triggered plan kind without an input pin to drive is not run", async () => {
     const { input } = await targetImage(PWM);
     const r = await emulatePic12f1840({ ...input, kind: "triggered" });
     expect(r.verdict).toBe("not-emulated");
+    expect(r.reason).toMatch(/names no PORTA input pin/);
   });
   it("a run past the wall-clock budget is stopped and not judged", async () => {
     const { input } = await targetImage(PWM);

@@ -129,11 +129,18 @@ describe("STM32G031 wrapper: not emulated, never faked", () => {
     expect(r.periodS).toBeUndefined();
   });
 
-  it("a triggered plan kind is not driven", async () => {
+  it("a triggered plan kind without an input to drive is not run", async () => {
     const { input } = await targetImage(PWM);
     const r = await emulateStm32g031({ ...input, kind: "triggered" });
     expect(r.verdict).toBe("not-emulated");
-    expect(r.reason).toMatch(/periodic plans only; this plan is "triggered"/);
+    expect(r.reason).toMatch(/names no port A input to drive/);
+  });
+
+  it("a plan kind no wrapper drives is not run", async () => {
+    const { input } = await targetImage(PWM);
+    const r = await emulateStm32g031({ ...input, kind: "burst" });
+    expect(r.verdict).toBe("not-emulated");
+    expect(r.reason).toMatch(/this plan is "burst"/);
   });
 
   it("a run past the wall-clock budget is stopped and not judged", async () => {

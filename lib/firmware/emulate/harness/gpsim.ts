@@ -174,9 +174,10 @@ export async function latchWritesAsync(
   cycles: number,
   image: string,
   timeoutMs: number,
+  setup: string[] = [],
 ): Promise<LatchWrite[]> {
   const log = path.join(dir, "lata.log");
-  await gpsimAsync(dir, latchCommands(log, cycles), image, timeoutMs);
+  await gpsimAsync(dir, [...setup, ...latchCommands(log, cycles)], image, timeoutMs);
   return parseLatch(await readFile(log, "utf8"));
 }
 

@@ -326,12 +326,36 @@ export function runWithInputs(
   changes: InputChange[],
   tailSteps: number,
   o: SimOptions = {},
-): { changeAt: number[]; io: IoWrite[]; irqs: { at: number; slot: number }[] } {
+): InputsRun {
+  return inputsRunOf(mspdebug(elf, inputCommands(changes, tailSteps, o), 120_000), changes);
+}
+
+/** The product's run of runWithInputs: a plain SimFailure on the time cap or a failed run. */
+export async function runWithInputsAsync(
+  elf: string,
+  changes: InputChange[],
+  tailSteps: number,
+  o: SimOptions,
+  timeoutMs: number,
+): Promise<InputsRun> {
+  return inputsRunOf(await mspdebugAsync(elf, inputCommands(changes, tailSteps, o), timeoutMs), changes);
+}
+
+export interface InputsRun {
+  changeAt: number[];
+  io: IoWrite[];
+  irqs: { at: number; slot: number }[];
+}
+
+function inputCommands(changes: InputChange[], tailSteps: number, o: SimOptions): string[] {
   const cmds = [...devices(o)];
   for (const c of changes)
     cmds.push(`step ${c.steps}`, "simio info tr", `simio config p1 set ${c.pin} ${c.level}`);
   cmds.push(`step ${tailSteps}`, "simio info tr");
-  const out = mspdebug(elf, cmds, 120_000);
+  return cmds;
+}
+
+function inputsRunOf(out: string, changes: InputChange[]): InputsRun {
   const mclk = [...out.matchAll(/MCLK:\s+(\d+)/g)].map((m) => Number(m[1]));
   if (mclk.length !== changes.length + 1)
     throw new Error(`mspdebug printed ${mclk.length} clock readings for ${changes.length + 1}`);

@@ -85,15 +85,16 @@ describe("AVR emulator wrapper (simavr)", () => {
   it("a period beyond the emulation budget is not emulated, with the reason", async () => {
     const { plan, files } = await built(PWM_328P);
     const input = inputFor(plan, files);
+    // (3 + 2.5) x 1.5 s = 8.25 s emulated; the budget is 120 M cycles = 7.5 s at 16 MHz.
     const r = await emulateTarget({ ...input, planned: { ...input.planned, periodS: 1.5 } });
     expect(r.verdict).toBe("not-emulated");
-    expect(r.reason).toMatch(/emulator budget is 2 s/);
+    expect(r.reason).toMatch(/needs 8\.25 s of emulated time; the emulator budget is 7\.5 s/);
   });
 
-  it("a triggered plan is not emulated (kind not covered)", async () => {
+  it("a kind the wrapper cannot drive is not emulated, with the reason", async () => {
     const { plan, files } = await built(PWM_328P);
-    const r = await emulateTarget({ ...inputFor(plan, files), kind: "triggered" });
+    const r = await emulateTarget({ ...inputFor(plan, files), kind: "burst" });
     expect(r).toMatchObject({ verdict: "not-emulated" });
-    expect(r.reason).toMatch(/triggered plan needs its input driven/);
+    expect(r.reason).toMatch(/not burst/);
   });
 });

@@ -14,17 +14,18 @@ export async function built(request: BundleTargetRequest) {
   return { plan, files };
 }
 
-/** The folder's sources with `edit` applied to src/main.c (must change something), images rebuilt. */
+/** The folder's sources with `edit` applied to `file` (default src/main.c; must change something), images rebuilt. */
 export async function withFault(
   files: BundleFile[],
   folder: string,
   device: string,
-  edit: (mainC: string) => string,
+  edit: (source: string) => string,
+  file = "src/main.c",
 ): Promise<BundleFile[]> {
   const sources = files
     .filter((f) => !f.path.includes("/firmware/"))
     .map((f) => {
-      if (f.path !== `${folder}/src/main.c`) return f;
+      if (f.path !== `${folder}/${file}`) return f;
       const after = edit(textOf(f));
       if (after === textOf(f)) throw new Error("the planted fault changed nothing");
       return { ...f, content: after };
