@@ -42,9 +42,15 @@ export function EmulationOverlay({
   const body = rows.map(({ folder, a, b }) => {
     const both = a?.edges?.length && b?.edges?.length;
     const words = both
-      ? [change("Period", a.periodS, b.periodS), change("high time", a.highS, b.highS)]
+      ? [
+          change("Period", a.periodS, b.periodS),
+          change("high time", a.highS, b.highS),
+          // triggered and zero-cross targets: delay from the input edge and pulse width
+          change("Delay from the input edge", a.delayS, b.delayS),
+          change("pulse", a.widthS, b.widthS),
+        ]
           .filter(Boolean)
-          .join("; ")
+          .join("; ") || "Both ran; no timing figure was stored to compare."
       : !a
         ? `r${older.number} had no emulated ${folder}/ target to overlay.`
         : `Not overlaid: ${!a.edges?.length ? `r${older.number}` : `r${newer.number}`} has no emulated pin edges for ${folder}/.`;
