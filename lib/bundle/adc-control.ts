@@ -34,6 +34,7 @@ import {
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
+import { TRIM_DEVICES, type TrimmerSummary } from "./trim-control";
 
 /** Table entries over the travel: 64 steps of a 10-bit ADC are 16 counts each, room for the hysteresis. */
 export const KEPT_STEPS = 64;
@@ -162,7 +163,7 @@ export interface KeptControl {
   wiring: { role: string; pin: string; packagePin: number }[];
   lines: ControlCheckLine[];
   /** plan.json entry */
-  summary: PotSummary | SelectorSummary;
+  summary: PotSummary | SelectorSummary | TrimmerSummary;
 }
 
 export type ControlOnTarget = { kept: true; control: KeptControl } | { kept: false; note: string } | null;
@@ -181,6 +182,8 @@ export function controlOnTarget(
 ): ControlOnTarget {
   const c = spec.control;
   if (!c) return null;
+  // a trimmer on these devices is the calibration constant: build.ts asks trimOnTarget (trim-control.ts)
+  if (c.kind === "trimmer" && TRIM_DEVICES.has(request.device)) return null;
   if (c.kind === "selector" && SELECTOR_DEVICES[request.device])
     return selectorOnTarget(spec, request, index, c);
   const dev = ADC_DEVICES[request.device];
