@@ -116,7 +116,7 @@ export function buildBundleSourcesWith(
     const adjust = controlOnTarget(spec, spec.targets[i], i);
     const trim =
       spec.control?.kind === "trimmer" && TRIM_DEVICES.has(plan.device)
-        ? trimOnTarget(spec, plan, view.writes, i, entry.view)
+        ? trimOnTarget(spec, plan, view.writes, i, entry.view, view.extra)
         : null;
     const kept = adjust?.kept ? adjust.control : (trim?.kept ?? null);
     // the ADC firmware drives the table plan's timer and pin: the pin map and checks must name the same
@@ -147,7 +147,7 @@ export function buildBundleSourcesWith(
       request: spec.targets[i],
       writes: trim ? trim.writes : view.writes,
       pin: view.pin,
-      x: view.extra,
+      x: trim ? trim.extra : view.extra,
       trigger: TRIGGER_VIEWS[plan.device]?.(plan) ?? null,
       triggerDoc: triggerDoc(plan),
       soft: { wide: plan.softwareDivider > 65535 },
@@ -176,7 +176,18 @@ export function buildBundleSourcesWith(
       adcNote: adjust && !adjust.kept ? adjust.note : "",
       // a kept trimmer: the calibration constant in timing.h (common/trim-constant.h.hbs)
       trim: trim
-        ? { ...trim.range, controlText: trim.controlText, lines: trim.kept.lines, titles: trim.kept.titles }
+        ? {
+            ...trim.range,
+            controlText: trim.controlText,
+            lines: trim.kept.lines,
+            titles: trim.kept.titles,
+            file: trim.kept.summary.kind === "trimmer" ? trim.kept.summary.file : "src/timing.h",
+            ownFile: trim.kept.files.length > 0,
+            fileName: (trim.kept.files[0]?.path ?? "").replace(/^src\//, ""),
+            quarter: trim.range.highPerCount === 4,
+            // the high-time arithmetic's width: XC8 is held to 32 bits, the products here stay below 2^32
+            lsuffix: plan.device === "pic12f1840" ? "UL" : "ULL",
+          }
         : false,
     };
     for (const [out, tpl] of Object.entries(entry.files)) {

@@ -19,7 +19,8 @@ export interface TrimRange {
   field: string;
   /** one timer count of the plan, seconds: the period per unit of the constant */
   countS: number;
-  /** the constant's range (trimmer ends, in counts; min <= stored <= max) */
+  highPerCount: number;
+  /** the constant's range (trimmer ends, in counts; min <= stored <= max); highCounts in 1/highPerCount counts */
   min: TrimPoint;
   stored: TrimPoint;
   max: TrimPoint;
@@ -66,7 +67,13 @@ export interface TrimPlan {
   highCounts: number;
 }
 
-export function buildTrimRange(stageInput: Stage, controlInput: unknown, plan: TrimPlan): TrimRange {
+export function buildTrimRange(
+  stageInput: Stage,
+  controlInput: unknown,
+  plan: TrimPlan,
+  /** high-time steps per count (4 for the PIC12F1840's quarter-count duty, else 1); highCounts are in these steps */
+  highPerCount = 1,
+): TrimRange {
   const stage = validateStage(stageInput);
   const control = validateControl(stage, controlInput);
   if (control.kind !== "trimmer")
@@ -88,14 +95,15 @@ export function buildTrimRange(stageInput: Stage, controlInput: unknown, plan: T
   });
   const point = (periodS: number, highS: number): TrimPoint => {
     const periodCounts = Math.round(periodS / countS);
-    return { periodCounts, highCounts: Math.min(periodCounts - 1, Math.max(1, Math.round(highS / countS))) };
+    const high = Math.round((highS / countS) * highPerCount);
+    return { periodCounts, highCounts: Math.min((periodCounts - 1) * highPerCount, Math.max(1, high)) };
   };
   const [p0, p1] = ends.map((a) => point(a.periodS, a.highS));
   const [lo, hi, loS, hiS] =
     p0.periodCounts <= p1.periodCounts
       ? [p0, p1, ends[0].periodS, ends[1].periodS]
       : [p1, p0, ends[1].periodS, ends[0].periodS];
-  const stored = { periodCounts: plan.periodCounts, highCounts: plan.highCounts };
+  const stored = { periodCounts: plan.periodCounts, highCounts: Math.round(plan.highCounts * highPerCount) };
   const value = (stage as unknown as Record<string, number>)[control.field];
   if (
     !(value >= control.seriesR && value <= control.seriesR + control.trackR) ||
@@ -110,6 +118,7 @@ export function buildTrimRange(stageInput: Stage, controlInput: unknown, plan: T
   return {
     field: control.field,
     countS,
+    highPerCount,
     min: lo,
     stored,
     max: hi,

@@ -40,9 +40,13 @@ describe("kept trimmer in the bundle", () => {
     );
     expect(c).toMatch(/\| T3 \| Measure the new board's period/);
     expect(c).not.toMatch(/\| P1 \|/);
-    // the PIC12F1840 firmware is assembly: the trimmer is not carried over there, and it says so
-    expect(text("pic12f1840/CHECKLIST.md")).toMatch(/trimmer on rb is not carried over/);
-    expect(text("pic12f1840/src/timing.h")).not.toContain("TRIM_PERIOD_COUNTS");
+    // the PIC12F1840: one #define line in src/trim_constant.inc, included by main.asm (gpasm) and timing.h (XC8)
+    expect(text("pic12f1840/CHECKLIST.md")).toMatch(/write it in src\/trim_constant\.inc/);
+    expect(text("pic12f1840/src/trim_constant.inc")).toBe("#define TRIM_PERIOD_COUNTS 182\n");
+    expect(text("pic12f1840/src/main.asm")).toContain('#include "trim_constant.inc"');
+    expect(text("pic12f1840/src/main.asm")).toContain("movlw   (TRIM_PERIOD_COUNTS - 1)");
+    expect(text("pic12f1840/src/timing.h")).toContain('#include "trim_constant.inc"');
+    expect(text("pic12f1840/src/main.c")).toContain("PR2 = (TRIM_PERIOD_COUNTS - 1);");
   });
 
   it("plan.json names the constant, its file and range per target", () => {

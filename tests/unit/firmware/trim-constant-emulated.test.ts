@@ -11,8 +11,10 @@
 // (RM0444 general-purpose timers), MSP430G2553 ID*(TACCR0+1)/f (SLAU144
 // Timer_A up mode). The STM32G031 wrapper computes its edges from the
 // registers (the unicorn harness has no counting timer), as it says.
-// Planted fault (kept as a negative case): main.c writes the stored TOP as a
-// number, ignoring the constant: the emulator must see the stored period.
+// PIC12F1840 (gpasm image in gpsim): period (PR2+1)*4*Tosc*prescale, duty
+// CCPR1L:DC1B quarter counts (DS40001441, CCP PWM).
+// Planted fault (kept as a negative case): main.c / main.asm writes the stored
+// TOP as a number, ignoring the constant: the emulator must see the stored period.
 // Bad input: a constant outside the trimmer's range stops the build with the
 // header's own message.
 import { describe, expect, it } from "vitest";
@@ -44,27 +46,33 @@ function edit(folder: string, file: string, from: string, to: string) {
 async function runWith(folder: string, n: number, plantIgnore = false) {
   const t = planJson.targets.find((x) => x.folder === folder)!;
   const summary = t.control as TrimmerSummary;
+  // the technician's edit: the one #define line in the file the checklist names
+  const u = summary.file === "src/timing.h" ? "u" : "";
   let files = edit(
     folder,
-    "src/timing.h",
-    `#define TRIM_PERIOD_COUNTS ${summary.storedCounts}u`,
-    `#define TRIM_PERIOD_COUNTS ${n}u`,
+    summary.file,
+    `#define TRIM_PERIOD_COUNTS ${summary.storedCounts}${u}`,
+    `#define TRIM_PERIOD_COUNTS ${n}${u}`,
   );
   if (plantIgnore) {
-    const withFault = edit(folder, "src/main.c", "(TRIM_PERIOD_COUNTS - 1u)", `${summary.storedCounts - 1}u`);
-    files = files.map((f) =>
-      f.path.endsWith("/src/main.c") ? withFault.find((g) => g.path === f.path)! : f,
-    );
+    const [main, top] =
+      folder === "pic12f1840"
+        ? ["src/main.asm", "(TRIM_PERIOD_COUNTS - 1)"]
+        : ["src/main.c", "(TRIM_PERIOD_COUNTS - 1u)"];
+    const withFault = edit(folder, main, top, `${summary.storedCounts - 1}`);
+    files = files.map((f) => (f.path.endsWith(`/${main}`) ? withFault.find((g) => g.path === f.path)! : f));
   }
   const images = await buildTargetImages(files, folder, t.plan.device);
-  const range = buildTrimRange(spec.stage, spec.control, t.plan);
+  const range = buildTrimRange(spec.stage, spec.control, t.plan, folder === "pic12f1840" ? 4 : 1);
+  // high in 1/highPerCount counts (PIC12F1840: quarter counts, CCPR1L:DC1B)
   const h = trimHighCounts(range, n);
-  const plan = { ...t.plan, periodS: n * range.countS, highS: h * range.countS } as unknown as TimerPlan;
+  const highS = (h / range.highPerCount) * range.countS;
+  const plan = { ...t.plan, periodS: n * range.countS, highS } as unknown as TimerPlan;
   const input = emulationInputOf(plan, folder, [...files, ...images], 120_000);
   return { result: await emulateTarget(input), range, n, h };
 }
 
-const FOLDERS = ["atmega328p", "attiny85", "rp2040", "stm32g031", "msp430g2553"];
+const FOLDERS = ["atmega328p", "attiny85", "rp2040", "stm32g031", "msp430g2553", "pic12f1840"];
 
 describe("kept trimmer: the calibration constant sets the emulated period", () => {
   for (const folder of FOLDERS) {
@@ -85,13 +93,14 @@ describe("kept trimmer: the calibration constant sets the emulated period", () =
     }, 240_000);
   }
 
-  it("planted fault: main.c with the stored TOP (constant ignored) is caught", async () => {
-    const summary = planJson.targets.find((x) => x.folder === "atmega328p")!.control as TrimmerSummary;
-    const { result } = await runWith("atmega328p", summary.maxCounts - 11, true);
-    expect(result.verdict, result.reason).toBe("differs");
-  }, 120_000);
+  for (const folder of ["atmega328p", "pic12f1840"])
+    it(`planted fault (${folder}): the stored TOP written as a number (constant ignored) is caught`, async () => {
+      const summary = planJson.targets.find((x) => x.folder === folder)!.control as TrimmerSummary;
+      const { result } = await runWith(folder, summary.maxCounts - 11, true);
+      expect(result.verdict, result.reason).toBe("differs");
+    }, 120_000);
 
-  it("a constant outside the trimmer's range stops the build with the header's message", async () => {
+  it("a constant outside the trimmer's range stops the build (avr-gcc #error, gpasm error)", async () => {
     const summary = planJson.targets.find((x) => x.folder === "atmega328p")!.control as TrimmerSummary;
     const files = edit(
       "atmega328p",
@@ -100,6 +109,16 @@ describe("kept trimmer: the calibration constant sets the emulated period", () =
       `#define TRIM_PERIOD_COUNTS ${summary.maxCounts + 1}u`,
     );
     await expect(buildTargetImages(files, "atmega328p", "atmega328p")).rejects.toThrow(
+      /outside the trimmer's range/,
+    );
+    const pic = planJson.targets.find((x) => x.folder === "pic12f1840")!.control as TrimmerSummary;
+    const picFiles = edit(
+      "pic12f1840",
+      pic.file,
+      `#define TRIM_PERIOD_COUNTS ${pic.storedCounts}`,
+      `#define TRIM_PERIOD_COUNTS ${pic.minCounts - 1}`,
+    );
+    await expect(buildTargetImages(picFiles, "pic12f1840", "pic12f1840")).rejects.toThrow(
       /outside the trimmer's range/,
     );
   }, 120_000);

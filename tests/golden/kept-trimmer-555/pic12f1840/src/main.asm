@@ -11,6 +11,25 @@
     #include <p12f1840.inc>
     errorlevel -302                 ; every access below is preceded by BANKSEL
 
+; Calibration constant of the old board's trimmer (trimmer as rb, 4700 ohm track + 8200 ohm in series): the period in
+; Timer2 counts (PR2 + 1), one count = 8.000000 us, set on site in src/trim_constant.inc (CHECKLIST.md
+; T1..T3). It may take 151..232, the old stage's period with the trimmer at either end.
+    #include "trim_constant.inc"
+    if (TRIM_PERIOD_COUNTS < 151) || (TRIM_PERIOD_COUNTS > 232)
+    error "TRIM_PERIOD_COUNTS lies outside the trimmer's range (151..232)"
+    endif
+; The duty in quarter counts (CCPR1L:DC1B) follows the old stage's law through three points
+; (trimmer start, stored value, trimmer end), linear between them, rounded half up.
+    if TRIM_PERIOD_COUNTS == 182
+TRIM_HIGH_COUNTS set 381
+    else
+    if TRIM_PERIOD_COUNTS < 182
+TRIM_HIGH_COUNTS set (319 * (182 - TRIM_PERIOD_COUNTS) + 381 * (TRIM_PERIOD_COUNTS - 151) + (182 - 151) / 2) / (182 - 151)
+    else
+TRIM_HIGH_COUNTS set (381 * (232 - TRIM_PERIOD_COUNTS) + 482 * (TRIM_PERIOD_COUNTS - 182) + (232 - 182) / 2) / (232 - 182)
+    endif
+    endif
+
 ; Configuration words (datasheet Register 4-1 CONFIG1, 4-2 CONFIG2).
 ; INTOSC: internal oscillator, RA4 and RA5 free. Watchdog off (nothing here services it), power-up timer on,
 ; MCLR as reset (10 kOhm pull-up on pin 4), brown-out reset on at the high trip
@@ -51,17 +70,17 @@ wait_1:
     banksel APFCON
     movlw   0x00
     movwf   APFCON
-    ; PR2 = periodCounts - 1; period = (PR2+1)*4*Tosc*prescale
+    ; PR2 = periodCounts - 1; period = (PR2+1)*4*Tosc*prescale (the calibration constant)
     banksel PR2
-    movlw   181
+    movlw   (TRIM_PERIOD_COUNTS - 1)
     movwf   PR2
-    ; PWM setup 3: DC1B = 1, CCP1M = 1100 (PWM, active high)
+    ; PWM setup 3: DC1B = 1, CCP1M = 1100 (PWM, active high) (DC1B follows the constant)
     banksel CCP1CON
-    movlw   0x1C
+    movlw   (((TRIM_HIGH_COUNTS & 3) << 4) | 0x0C)
     movwf   CCP1CON
-    ; PWM setup 4: CCPR1L:DC1B = 381 (highCounts*4); pulse = 381*Tosc*prescale
+    ; PWM setup 4: CCPR1L:DC1B = 381 (highCounts*4); pulse = 381*Tosc*prescale (follows the calibration constant)
     banksel CCPR1L
-    movlw   95
+    movlw   (TRIM_HIGH_COUNTS >> 2)
     movwf   CCPR1L
     ; PWM setup 5: clear TMR2IF before Timer2 starts
     banksel PIR1

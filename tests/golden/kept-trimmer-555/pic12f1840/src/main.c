@@ -30,12 +30,12 @@ int main(void)
   TRISA = 0x3F;
   /* CCP1SEL = 0: CCP1 on RA2 -> 0x00 */
   APFCON = 0x00;
-  /* PR2 = periodCounts - 1; period = (PR2+1)*4*Tosc*prescale -> 0xB5 */
-  PR2 = 181;
-  /* PWM setup 3: DC1B = 1, CCP1M = 1100 (PWM, active high) -> 0x1C */
-  CCP1CON = 0x1C;
-  /* PWM setup 4: CCPR1L:DC1B = 381 (highCounts*4); pulse = 381*Tosc*prescale -> 0x5F */
-  CCPR1L = 95;
+  /* PR2 = periodCounts - 1; period = (PR2+1)*4*Tosc*prescale (the calibration constant) -> 0xB5 */
+  PR2 = (TRIM_PERIOD_COUNTS - 1);
+  /* PWM setup 3: DC1B = 1, CCP1M = 1100 (PWM, active high) (DC1B follows the constant) -> 0x1C */
+  CCP1CON = (((TRIM_HIGH_COUNTS & 3) << 4) | 0x0C);
+  /* PWM setup 4: CCPR1L:DC1B = 381 (highCounts*4); pulse = 381*Tosc*prescale (follows the calibration constant) -> 0x5F */
+  CCPR1L = (TRIM_HIGH_COUNTS >> 2);
   /* PWM setup 5: clear TMR2IF before Timer2 starts */
   PIR1bits.TMR2IF = 0;
   /* TMR2ON = 1, T2CKPS = 2 (prescale 1:16), postscale 1:1 -> 0x06 */
