@@ -32,6 +32,7 @@ import {
   SELECTOR_DEBOUNCE_MS,
 } from "./selector-avr";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
+import { renderRp2040Selector, rp2040SelectorWiring } from "./selector-rp2040";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
 import { TRIM_DEVICES, type TrimmerSummary } from "./trim-control";
@@ -248,7 +249,7 @@ export function controlOnTarget(
 type SelectorControl = Extract<StageControl, { kind: "selector" }>;
 
 interface SelectorDevice {
-  timer: string;
+  timer?: string;
   wiring: (table: SelectorTable, valueText: (v: number) => string) => KeptControl["wiring"];
   part: (
     table: SelectorTable,
@@ -272,6 +273,16 @@ const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
     wiring: attiny85SelectorWiring,
     part: (table, startIndex, controlText) => [
       { path: "src/main.c", content: renderAttiny85Selector({ table, startIndex, controlText }) },
+    ],
+  },
+  rp2040: {
+    wiring: rp2040SelectorWiring,
+    // a header main.c includes (main.c.hbs, `selector`)
+    part: (table, startIndex, controlText) => [
+      {
+        path: "src/selector_control.h",
+        content: renderRp2040Selector({ table, startIndex, controlText }),
+      },
     ],
   },
 };

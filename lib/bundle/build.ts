@@ -174,6 +174,8 @@ export function buildBundleSourcesWith(
             }
           : false,
       adcNote: adjust && !adjust.kept ? adjust.note : "",
+      // a kept selector as a header main.c includes (RP2040, STM32G031, MSP430G2553)
+      selector: kept?.files.some((f) => f.path === "src/selector_control.h") ?? false,
       // a kept trimmer: the calibration constant in timing.h (common/trim-constant.h.hbs)
       trim: trim
         ? {

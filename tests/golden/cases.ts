@@ -103,7 +103,8 @@ export const GOLDEN_CASES: GoldenCase[] = [
     },
   },
   {
-    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4) and the ATtiny85 (PB0, PB2, PB3)
+    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4), the ATtiny85 (PB0, PB2, PB3)
+    // and the RP2040 (GPIO2..GPIO4)
     name: "kept-selector-555",
     spec: {
       retrofit: retrofit(false),
@@ -113,6 +114,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
       targets: [
         { device: "atmega328p", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER1" },
         { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
+        { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
       ],
     },
   },
