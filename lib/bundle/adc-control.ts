@@ -33,6 +33,7 @@ import {
 } from "./selector-avr";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import { renderRp2040Selector, rp2040SelectorWiring } from "./selector-rp2040";
+import { msp430g2553SelectorWiring, renderMsp430g2553Selector } from "./selector-msp430g2553";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
 import { TRIM_DEVICES, type TrimmerSummary } from "./trim-control";
@@ -273,6 +274,15 @@ const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
     wiring: attiny85SelectorWiring,
     part: (table, startIndex, controlText) => [
       { path: "src/main.c", content: renderAttiny85Selector({ table, startIndex, controlText }) },
+    ],
+  },
+  msp430g2553: {
+    wiring: msp430g2553SelectorWiring,
+    part: (table, startIndex, controlText) => [
+      {
+        path: "src/selector_control.h",
+        content: renderMsp430g2553Selector({ table, startIndex, controlText }),
+      },
     ],
   },
   rp2040: {
