@@ -33,6 +33,7 @@ import {
 } from "./selector-avr";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import { renderRp2040Selector, rp2040SelectorWiring } from "./selector-rp2040";
+import { renderStm32g031Selector, stm32g031SelectorWiring } from "./selector-stm32g031";
 import { msp430g2553SelectorWiring, renderMsp430g2553Selector } from "./selector-msp430g2553";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
@@ -282,6 +283,15 @@ const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
       {
         path: "src/selector_control.h",
         content: renderMsp430g2553Selector({ table, startIndex, controlText }),
+      },
+    ],
+  },
+  stm32g031: {
+    wiring: stm32g031SelectorWiring,
+    part: (table, startIndex, controlText) => [
+      {
+        path: "src/selector_control.h",
+        content: renderStm32g031Selector({ table, startIndex, controlText }),
       },
     ],
   },

@@ -104,7 +104,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
   },
   {
     // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4), the ATtiny85 (PB0, PB2, PB3)
-    // the RP2040 (GPIO2..GPIO4) and the MSP430G2553 (P2.0..P2.2)
+    // the RP2040 (GPIO2..GPIO4), the MSP430G2553 (P2.0..P2.2) and the STM32G031 (PA5..PA7)
     name: "kept-selector-555",
     spec: {
       retrofit: retrofit(false),
@@ -116,6 +116,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
         { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
         { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
         { device: "msp430g2553", clockHz: 1e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "stm32g031", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
       ],
     },
   },

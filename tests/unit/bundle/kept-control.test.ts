@@ -54,8 +54,8 @@ describe("kept rate pot in the bundle", () => {
       ...spec,
       control: { kind: "selector", field: "c", values: [100e-9, 220e-9] },
     });
-    // the STM32G031 reads no selector (the MSP430G2553 and RP2040 do, selector-*-sim/emulator tests)
-    const cl = String(trim.find((f) => f.path === "stm32g031/CHECKLIST.md")!.content);
+    // the PIC12F1840 reads no selector (the other five do, tests/unit/firmware/selector-*)
+    const cl = String(trim.find((f) => f.path === "pic12f1840/CHECKLIST.md")!.content);
     expect(cl).toMatch(/is not carried over by this firmware/);
     expect(trim.some((f) => f.path.endsWith("adc_control.h"))).toBe(false);
   });
