@@ -32,8 +32,12 @@ import {
   SELECTOR_DEBOUNCE_MS,
 } from "./selector-avr";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
+import { renderRp2040Selector, rp2040SelectorWiring } from "./selector-rp2040";
+import { renderStm32g031Selector, stm32g031SelectorWiring } from "./selector-stm32g031";
+import { msp430g2553SelectorWiring, renderMsp430g2553Selector } from "./selector-msp430g2553";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
+import { TRIM_DEVICES, type TrimmerSummary } from "./trim-control";
 
 /** Table entries over the travel: 64 steps of a 10-bit ADC are 16 counts each, room for the hysteresis. */
 export const KEPT_STEPS = 64;
@@ -162,7 +166,7 @@ export interface KeptControl {
   wiring: { role: string; pin: string; packagePin: number }[];
   lines: ControlCheckLine[];
   /** plan.json entry */
-  summary: PotSummary | SelectorSummary;
+  summary: PotSummary | SelectorSummary | TrimmerSummary;
 }
 
 export type ControlOnTarget = { kept: true; control: KeptControl } | { kept: false; note: string } | null;
@@ -181,6 +185,8 @@ export function controlOnTarget(
 ): ControlOnTarget {
   const c = spec.control;
   if (!c) return null;
+  // a trimmer on these devices is the calibration constant: build.ts asks trimOnTarget (trim-control.ts)
+  if (c.kind === "trimmer" && TRIM_DEVICES.has(request.device)) return null;
   if (c.kind === "selector" && SELECTOR_DEVICES[request.device])
     return selectorOnTarget(spec, request, index, c);
   const dev = ADC_DEVICES[request.device];
@@ -245,7 +251,7 @@ export function controlOnTarget(
 type SelectorControl = Extract<StageControl, { kind: "selector" }>;
 
 interface SelectorDevice {
-  timer: string;
+  timer?: string;
   wiring: (table: SelectorTable, valueText: (v: number) => string) => KeptControl["wiring"];
   part: (
     table: SelectorTable,
@@ -269,6 +275,34 @@ const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
     wiring: attiny85SelectorWiring,
     part: (table, startIndex, controlText) => [
       { path: "src/main.c", content: renderAttiny85Selector({ table, startIndex, controlText }) },
+    ],
+  },
+  msp430g2553: {
+    wiring: msp430g2553SelectorWiring,
+    part: (table, startIndex, controlText) => [
+      {
+        path: "src/selector_control.h",
+        content: renderMsp430g2553Selector({ table, startIndex, controlText }),
+      },
+    ],
+  },
+  stm32g031: {
+    wiring: stm32g031SelectorWiring,
+    part: (table, startIndex, controlText) => [
+      {
+        path: "src/selector_control.h",
+        content: renderStm32g031Selector({ table, startIndex, controlText }),
+      },
+    ],
+  },
+  rp2040: {
+    wiring: rp2040SelectorWiring,
+    // a header main.c includes (main.c.hbs, `selector`)
+    part: (table, startIndex, controlText) => [
+      {
+        path: "src/selector_control.h",
+        content: renderRp2040Selector({ table, startIndex, controlText }),
+      },
     ],
   },
 };

@@ -2,6 +2,7 @@
 // Nothing here reads the clock, a random source or object key order.
 import { analyzeStage, ENGINE_VERSION, EngineError, isEngineError, planTarget } from "@/lib/engine";
 import { controlOnTarget } from "./adc-control";
+import { TRIM_DEVICES, trimOnTarget } from "./trim-control";
 import { buildRefusal } from "./buildable";
 import { DEVICES } from "./devices";
 import { targetFolders } from "./folders";
@@ -113,7 +114,11 @@ export function buildBundleSourcesWith(
       requiredRelative: typeof pct === "number" && pct > 0 ? pct / 100 : undefined,
     });
     const adjust = controlOnTarget(spec, spec.targets[i], i);
-    const kept = adjust?.kept ? adjust.control : null;
+    const trim =
+      spec.control?.kind === "trimmer" && TRIM_DEVICES.has(plan.device)
+        ? trimOnTarget(spec, plan, view.writes, i, entry.view, view.extra)
+        : null;
+    const kept = adjust?.kept ? adjust.control : (trim?.kept ?? null);
     // the ADC firmware drives the table plan's timer and pin: the pin map and checks must name the same
     const tp = kept?.table.plan;
     if (tp && (plan.mode !== "pwm" || plan.modeFactor !== tp.modeFactor || plan.pin.port !== tp.pin.port))
@@ -140,9 +145,9 @@ export function buildBundleSourcesWith(
       targetNumber: i + 1,
       plan: { ...plan, notes: plan.notes ?? [], jitterS: plan.jitterS ?? 0 },
       request: spec.targets[i],
-      writes: view.writes,
+      writes: trim ? trim.writes : view.writes,
       pin: view.pin,
-      x: view.extra,
+      x: trim ? trim.extra : view.extra,
       trigger: TRIGGER_VIEWS[plan.device]?.(plan) ?? null,
       triggerDoc: triggerDoc(plan),
       soft: { wide: plan.softwareDivider > 65535 },
@@ -158,16 +163,34 @@ export function buildBundleSourcesWith(
       flashing: view.flashing ?? [],
       limitsEnd: limits.length + 3,
       // the stage's control on this target: kept (ADC firmware), or not kept with the reason
-      adc: kept
+      adc:
+        kept && !trim
+          ? {
+              wiring: kept.wiring,
+              lines: kept.lines,
+              summary: kept.summary,
+              steps: kept.count,
+              titles: kept.titles,
+            }
+          : false,
+      adcNote: adjust && !adjust.kept ? adjust.note : "",
+      // a kept selector as a header main.c includes (RP2040, STM32G031, MSP430G2553)
+      selector: kept?.files.some((f) => f.path === "src/selector_control.h") ?? false,
+      // a kept trimmer: the calibration constant in timing.h (common/trim-constant.h.hbs)
+      trim: trim
         ? {
-            wiring: kept.wiring,
-            lines: kept.lines,
-            summary: kept.summary,
-            steps: kept.count,
-            titles: kept.titles,
+            ...trim.range,
+            controlText: trim.controlText,
+            lines: trim.kept.lines,
+            titles: trim.kept.titles,
+            file: trim.kept.summary.kind === "trimmer" ? trim.kept.summary.file : "src/timing.h",
+            ownFile: trim.kept.files.length > 0,
+            fileName: (trim.kept.files[0]?.path ?? "").replace(/^src\//, ""),
+            quarter: trim.range.highPerCount === 4,
+            // the high-time arithmetic's width: XC8 is held to 32 bits, the products here stay below 2^32
+            lsuffix: plan.device === "pic12f1840" ? "UL" : "ULL",
           }
         : false,
-      adcNote: adjust && !adjust.kept ? adjust.note : "",
     };
     for (const [out, tpl] of Object.entries(entry.files)) {
       if (kept?.files.some((f) => f.path === out)) continue;

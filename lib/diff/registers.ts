@@ -3,6 +3,7 @@
 // bundle's own device views (lib/bundle/devices.ts) run on the stored plans,
 // the same functions whose `writes` the templates print into main.c, so the
 // table cannot show a number the firmware does not write.
+import { TRIM_DEVICES } from "@/lib/bundle/trim-control";
 import { DEVICES } from "@/lib/bundle/devices";
 import { TRIGGER_VIEWS } from "@/lib/bundle/build";
 import { avrTriggerView } from "@/lib/bundle/trigger-avr";
@@ -97,6 +98,8 @@ function runtimeNote(rev: Partial<Pick<RevisionSnapshot, "spec">>, i: number): s
   const spec = obj(rev.spec) as unknown as BundleSpec;
   const request = Array.isArray(spec.targets) ? spec.targets[i] : undefined;
   if (!spec.control || !request) return null;
+  if (spec.control.kind === "trimmer" && TRIM_DEVICES.has(request.device))
+    return "TOP and compare follow the trimmer's calibration constant TRIM_PERIOD_COUNTS (src/timing.h), set on site; shown are the values of the stored setting";
   try {
     const on = controlOnTarget(spec, request, i);
     if (!on?.kept) return null;

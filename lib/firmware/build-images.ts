@@ -32,8 +32,11 @@ export function firstErrorLine(output: string): string {
     .split(/\r?\n/)
     .map((l) => l.trim())
     .filter(Boolean);
+  const isError = (l: string) => /\b(error|Error|ERROR|undefined reference|No rule)\b/.test(l);
+  // make's own "*** [...] Error 1" comes last on stderr; the tool's message (gpasm prints to stdout) first
   return (
-    lines.find((l) => /\b(error|Error|ERROR|undefined reference|No rule)\b/.test(l)) ??
+    lines.find((l) => isError(l) && !/^make(\[\d+\])?: \*\*\*.*Error \d+$/.test(l)) ??
+    lines.find(isError) ??
     lines[0] ??
     "no output"
   );

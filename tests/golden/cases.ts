@@ -85,7 +85,26 @@ export const GOLDEN_CASES: GoldenCase[] = [
     },
   },
   {
-    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4) and the ATtiny85 (PB0, PB2, PB3)
+    // the old 555's Rb is a trimmer (demo values): the constant TRIM_PERIOD_COUNTS on five devices, a note on the PIC12F1840
+    name: "kept-trimmer-555",
+    spec: {
+      retrofit: retrofit(false),
+      revision: 1,
+      stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
+      control: { kind: "trimmer", field: "rb", seriesR: 8.2e3, trackR: 4.7e3 },
+      targets: [
+        { device: "atmega328p", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER1" },
+        { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
+        { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "stm32g031", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "msp430g2553", clockHz: 1e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "pic12f1840", clockHz: 8e6, clockSource: "hfintosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER2" },
+      ],
+    },
+  },
+  {
+    // a selector switch of timing capacitors kept on the ATmega328P (inputs PD2..PD4), the ATtiny85 (PB0, PB2, PB3)
+    // the RP2040 (GPIO2..GPIO4), the MSP430G2553 (P2.0..P2.2) and the STM32G031 (PA5..PA7)
     name: "kept-selector-555",
     spec: {
       retrofit: retrofit(false),
@@ -95,6 +114,9 @@ export const GOLDEN_CASES: GoldenCase[] = [
       targets: [
         { device: "atmega328p", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER1" },
         { device: "attiny85", clockHz: 8e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER0" },
+        { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "msp430g2553", clockHz: 1e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "stm32g031", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
       ],
     },
   },

@@ -10,3 +10,5 @@ export { buildSelectorTable } from "./selector";
 export type { SelectorTable, SelectorPosition } from "./selector";
 export { commonDividerPlan } from "./adc-table";
 export type { TablePlanRequest } from "./adc-table";
+export { buildTrimRange, trimHighCounts } from "./trim";
+export type { TrimRange, TrimPoint, TrimPlan } from "./trim";

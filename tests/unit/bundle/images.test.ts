@@ -111,6 +111,13 @@ describe("bundle images", () => {
     expect(firstErrorLine(out)).toBe("src/main.c:3:5: error: expected expression");
   });
 
+  it("firstErrorLine picks gpasm's error (stdout) over make's line (stderr, read first)", () => {
+    // gpasm message format "file:line:Error[nnn] text" as gputils 1.5 prints it (seen in this build)
+    const out =
+      "make: *** [Makefile:12: build/firmware.hex] Error 1\n\nsrc/main.asm:19:Error[101]   ERROR: (TRIM_PERIOD_COUNTS lies outside)\n";
+    expect(firstErrorLine(out)).toBe("src/main.asm:19:Error[101]   ERROR: (TRIM_PERIOD_COUNTS lies outside)");
+  });
+
   it("buildBundleFiles refuses an unplannable target before any compiler runs", async () => {
     const bad = spec([{ device: "atmega328p", clockHz: 16e6, periodS: -1, highS: 0.001 }]);
     await expect(buildBundleFiles(bad)).rejects.toMatchObject({ field: "targets.0" });

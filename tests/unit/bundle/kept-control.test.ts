@@ -54,7 +54,8 @@ describe("kept rate pot in the bundle", () => {
       ...spec,
       control: { kind: "selector", field: "c", values: [100e-9, 220e-9] },
     });
-    const cl = String(trim.find((f) => f.path === "msp430g2553/CHECKLIST.md")!.content);
+    // the PIC12F1840 reads no selector (the other five do, tests/unit/firmware/selector-*)
+    const cl = String(trim.find((f) => f.path === "pic12f1840/CHECKLIST.md")!.content);
     expect(cl).toMatch(/is not carried over by this firmware/);
     expect(trim.some((f) => f.path.endsWith("adc_control.h"))).toBe(false);
   });

@@ -83,6 +83,9 @@ describe("registerChanges", () => {
           if (/rate pot's ADC firmware/.test(t.note)) {
             // the ADC program rewrites TOP and compare from its step table while running
             expect(srcOf(/\bADC/).length).toBeGreaterThan(0);
+          } else if (/trimmer's calibration constant/.test(t.note)) {
+            // the fixed firmware with TOP and compare written from TRIM_PERIOD_COUNTS
+            expect(srcOf(/\(TRIM_PERIOD_COUNTS - 1u?\)/).length).toBeGreaterThan(0);
           } else if (/selector switch firmware/.test(t.note)) {
             expect(srcOf(/selector|position/i).length).toBeGreaterThan(0);
           } else {

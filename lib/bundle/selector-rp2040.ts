@@ -1,0 +1,82 @@
+// RP2040 firmware part that keeps the old stage's selector switch: one input
+// per position on GPIO2..GPIO7 (pad pull-up, the switch's common contact to
+// ground, so the selected position reads low), debounced on SysTick, and the
+// engine's selector table (buildSelectorTable) as PWM TOP/CC per position.
+// Rendered from templates/rp2040/selector-control.h.hbs. Facts: RP2040
+// datasheet, PADS_BANK0 (IE, PUE, PDE, SCHMITT), IO_BANK0 (FUNCSEL 5 = SIO),
+// SIO GPIO_IN, PWM (TOP and CC double buffered). QFN-56 package pins from memory.
+import type { SelectorTable } from "@/lib/engine";
+import { render } from "./render";
+import { SELECTOR_DEBOUNCE_MS } from "./selector-avr";
+
+/** Input pins in position order: GPIO2..GPIO7 (QFN-56 pins 4..9; from memory). */
+const RP2040_SELECTOR_PINS = [
+  { gpio: 2, packagePin: 4 },
+  { gpio: 3, packagePin: 5 },
+  { gpio: 4, packagePin: 6 },
+  { gpio: 5, packagePin: 7 },
+  { gpio: 6, packagePin: 8 },
+  { gpio: 7, packagePin: 9 },
+] as const;
+
+type WiringLine = { role: string; pin: string; packagePin: number };
+
+export function rp2040SelectorWiring(table: SelectorTable, valueText: (v: number) => string): WiringLine[] {
+  return [
+    ...table.positions.map((p, i) => ({
+      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, pad pull-up`,
+      pin: `GPIO${RP2040_SELECTOR_PINS[i].gpio}`,
+      packagePin: RP2040_SELECTOR_PINS[i].packagePin,
+    })),
+    { role: "switch common contact to ground", pin: "GND", packagePin: 57 },
+  ];
+}
+
+export function renderRp2040Selector({
+  table,
+  startIndex,
+  controlText,
+}: {
+  table: SelectorTable;
+  startIndex: number;
+  controlText: string;
+}): string {
+  const plan = table.plan;
+  if (plan.device !== "rp2040" || plan.mode !== "pwm" || plan.modeFactor !== 1)
+    throw new Error("The selector part runs on RP2040 edge-aligned PWM plans.");
+  const n = table.positions.length;
+  if (n < 2 || n > RP2040_SELECTOR_PINS.length)
+    throw new Error(
+      `control.values: the RP2040 part reads 2 to ${RP2040_SELECTOR_PINS.length} positions (GPIO2..GPIO7).`,
+    );
+  const gpio = plan.pin.gpio ?? Number(/\d+/.exec(plan.pin.port)?.[0]);
+  const pins = RP2040_SELECTOR_PINS.slice(0, n);
+  if (pins.some((p) => p.gpio === gpio)) throw new Error(`targets: GPIO${gpio} is a selector input.`);
+  const div16 = Math.round(plan.divider * 16);
+  if (Math.abs(div16 - plan.divider * 16) > 1e-9 || div16 < 16 || div16 > 4095)
+    throw new Error(`divider ${plan.divider}: the PWM DIV register takes 1..255 in 1/16 steps.`);
+  for (const p of table.positions)
+    if (p.periodCounts > 65536)
+      throw new Error(`control: position ${p.position} needs more than 65536 counts.`);
+  return render("rp2040/selector-control.h.hbs", {
+    controlText,
+    debounceMs: SELECTOR_DEBOUNCE_MS,
+    noContactRule: table.noContactRule,
+    startIndex,
+    slice: (gpio >> 1) & 7,
+    channelB: (gpio & 1) === 1,
+    divider: plan.divider,
+    divInt: Math.floor(div16 / 16),
+    divFrac: div16 % 16,
+    mask: `0x${pins
+      .reduce((m, p) => m | (1 << p.gpio), 0)
+      .toString(16)
+      .toUpperCase()}`,
+    positions: table.positions.map((p, i) => ({
+      position: p.position,
+      gpio: pins[i].gpio,
+      top: p.periodCounts - 1,
+      compare: p.highCounts,
+    })),
+  });
+}

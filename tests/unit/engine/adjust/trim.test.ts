@@ -1,0 +1,70 @@
+// A trimmer's calibration constant: its range is the old stage's period with
+// the trimmer at either end, in counts of the target's timer, and the high
+// time follows the stage's law. Old stage: 555 astable, T = ln2*(Ra + 2*Rb)*C,
+// high = ln2*(Ra + Rb)*C (NE555 datasheet, TI SLFS022). One count of
+// ATmega328P Timer1 at divider 1 is 1/16 MHz (DS40002061, Timer/Counter1).
+import { describe, expect, it } from "vitest";
+import { buildTrimRange, planTarget, trimHighCounts, type Stage } from "@/lib/engine";
+import { expectEngineError } from "../expect-engine-error";
+
+const stage: Stage = { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 };
+const trimmer = { kind: "trimmer", field: "rb", seriesR: 8.2e3, trackR: 4.7e3 } as const;
+const LN2 = Math.log(2);
+const period = (rb: number) => LN2 * (1e3 + 2 * rb) * 100e-9;
+const high = (rb: number) => LN2 * (1e3 + rb) * 100e-9;
+const plan = planTarget({
+  device: "atmega328p",
+  clockHz: 16e6,
+  periodS: period(10e3),
+  highS: high(10e3),
+  mode: "pwm",
+  timer: "TIMER1",
+});
+const range = buildTrimRange(stage, trimmer, plan);
+const count = 1 / 16e6;
+
+describe("trimmer calibration range", () => {
+  it("runs from Rb = seriesR to seriesR + trackR in timer counts (NE555 formula)", () => {
+    expect(plan.divider).toBe(1);
+    expect(range.countS).toBeCloseTo(count, 15);
+    // the engine's 555 model may add the discharge's own small terms: within one count of the formula
+    expect(Math.abs(range.min.periodCounts - period(8.2e3) / count)).toBeLessThanOrEqual(1);
+    expect(Math.abs(range.max.periodCounts - period(12.9e3) / count)).toBeLessThanOrEqual(1);
+    expect(Math.abs(range.min.highCounts - high(8.2e3) / count)).toBeLessThanOrEqual(1);
+    expect(Math.abs(range.max.highCounts - high(12.9e3) / count)).toBeLessThanOrEqual(1);
+    expect(range.stored).toEqual({ periodCounts: plan.periodCounts, highCounts: plan.highCounts });
+  });
+
+  it("the high time of any constant follows the 555's law within one count", () => {
+    // 555: Rb = (T/(ln2 C) - Ra)/2, so high = ln2*C*(Ra + Rb) is linear in T
+    for (const n of [
+      range.min.periodCounts + 1,
+      21000,
+      range.stored.periodCounts,
+      27000,
+      range.max.periodCounts,
+    ]) {
+      const rb = ((n * count) / (LN2 * 100e-9) - 1e3) / 2;
+      expect(Math.abs(trimHighCounts(range, n) - high(rb) / count), `n = ${n}`).toBeLessThanOrEqual(1);
+    }
+    expect(trimHighCounts(range, range.stored.periodCounts)).toBe(plan.highCounts);
+  });
+
+  it("refuses a stored value outside the trimmer, a pot, and a plan that is not hardware PWM", () => {
+    expectEngineError(
+      () => buildTrimRange({ ...stage, rb: 20e3 }, trimmer, plan),
+      "invalid-request",
+      "stage.rb",
+    );
+    expectEngineError(
+      () => buildTrimRange(stage, { ...trimmer, kind: "pot", taper: "linear" }, plan),
+      "invalid-request",
+      "control.kind",
+    );
+    expectEngineError(
+      () => buildTrimRange(stage, trimmer, { ...plan, mode: "isr" }),
+      "invalid-request",
+      "mode",
+    );
+  });
+});
