@@ -1,4 +1,3 @@
-import "server-only";
 // The stored multi-resolution form of a capture (table capture_levels), made
 // once at upload, so a zoomed plot reads only the window it shows and never
 // parses the file again.
@@ -16,6 +15,7 @@ import "server-only";
 // entries. Work and memory per request are bounded by
 // (MAX_WINDOW_ENTRIES + 4 * CAPTURE_BLOCK) entries whatever the capture's size.
 // Floats are stored in the host's byte order (little-endian on every host we run on).
+// No "server-only" mark: the benchmark (scripts/bench/capture-plot.ts) runs it too.
 import { and, asc, eq, gte, lte, sql } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
 import { captureLevels } from "@/db/schema";
