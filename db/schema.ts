@@ -12,6 +12,7 @@ import {
   jsonb,
   pgEnum,
   pgTable,
+  primaryKey,
   serial,
   text,
   timestamp,
@@ -127,6 +128,30 @@ export const captures = pgTable("captures", {
   measurement: jsonb("measurement").notNull(),
   createdAt: createdAt(),
 });
+
+// A capture parsed once at upload into blocks of a min/max pyramid
+// (lib/field/capture-levels.ts): level 0 holds the samples (t, v as float64
+// pairs), level k >= 1 entries (t of the first sample, min, max) of
+// CAPTURE_FAN^k samples each. A zoomed plot reads only the blocks of one
+// level that overlap its window. Deleted with the capture.
+export const captureLevels = pgTable(
+  "capture_levels",
+  {
+    captureId: integer("capture_id")
+      .notNull()
+      .references(() => captures.id, { onDelete: "cascade" }),
+    level: integer("level").notNull(),
+    block: integer("block").notNull(),
+    /** Index within the level of the block's first entry. */
+    firstIndex: integer("first_index").notNull(),
+    entries: integer("entries").notNull(),
+    /** Time of the block's first and last entry (s). */
+    startS: doublePrecision("start_s").notNull(),
+    endS: doublePrecision("end_s").notNull(),
+    data: bytea("data").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.captureId, t.level, t.block] })],
+);
 
 export const revisions = pgTable(
   "revisions",

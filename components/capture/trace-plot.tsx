@@ -1,7 +1,7 @@
 "use client";
 // The decimated trace (min/max envelope per pixel column) with the state
 // levels, the 50 % reference level and the detected edges. Drag across the
-// plot to zoom: the server re-reads that window of the stored file, so a zoom
+// plot to zoom: the server reads that window from the levels stored at upload, so a zoom
 // shows the real samples, not a stretched envelope.
 import { useEffect, useRef, useState } from "react";
 import useSWR from "swr";

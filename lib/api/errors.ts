@@ -12,6 +12,7 @@ export type ApiErrorCode =
   | "method_not_allowed"
   | "conflict"
   | "payload_too_large"
+  | "unsupported_media_type"
   | "unprocessable"
   | "too_many_requests"
   | "unavailable"
@@ -25,6 +26,7 @@ const STATUS: Record<ApiErrorCode, number> = {
   method_not_allowed: 405,
   conflict: 409,
   payload_too_large: 413,
+  unsupported_media_type: 415,
   unprocessable: 422,
   too_many_requests: 429,
   unavailable: 503,

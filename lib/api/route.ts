@@ -22,6 +22,12 @@ export function apiRoute<P = Record<string, string>>(
   };
 }
 
+/** A JSON answer that carries a secret (a new API token, an invitation link):
+ *  no browser, proxy or back-button cache may keep it (RFC 9111 section 5.2.2.5). */
+export function secretJson(body: unknown, init: { status: number }): Response {
+  return Response.json(body, { status: init.status, headers: { "cache-control": "no-store" } });
+}
+
 const MAX_JSON_BYTES = 1024 * 1024;
 
 async function readBodyText(req: Request, maxBytes: number): Promise<string> {

@@ -30,7 +30,7 @@ function hasBody(req: Request): boolean {
   return req.headers.has("transfer-encoding") || (length !== null && length !== "0");
 }
 
-/** Throws 403 (wrong or missing origin) or 400 (not a JSON body) for a forged cookie mutation. */
+/** Throws 403 (wrong or missing origin) or 415 (not a JSON body, RFC 9110 section 15.5.16) for a forged cookie mutation. */
 export function checkCookieMutation(
   req: Request,
   bodyTypes: readonly BodyType[] = ["application/json"],
@@ -66,7 +66,7 @@ export function checkCookieMutation(
   if (type === null && !hasBody(req)) return;
   if (!type || !(bodyTypes as readonly string[]).includes(type))
     throw new ApiError(
-      "bad_request",
+      "unsupported_media_type",
       `Content-Type must be ${bodyTypes.join(" or ")} for this request, got ${type ?? "none"}.`,
       { "content-type": `Send ${bodyTypes.join(" or ")}.` },
     );

@@ -1,10 +1,14 @@
 import "server-only";
 // Capture queries. Content bytes are selected only where they are needed
 // (re-reading a window of the trace), never for lists.
-import { and, desc, eq, inArray, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, type SQL } from "drizzle-orm";
 import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
-import { captures, retrofits, users } from "@/db/schema";
+import { captures, fieldChecks, retrofits, stages, users } from "@/db/schema";
+import { recordAudit } from "@/lib/audit";
+import { parseCapture, type CaptureTrace } from "@/lib/capture";
+import { buildLevels, storeLevels } from "./capture-levels";
+import { checkCaptureQuota } from "./capture-quotas";
 import type { AuthUser } from "@/lib/auth/guard";
 import { READ_ALL } from "@/lib/auth/roles";
 import type { CaptureMeasurement } from "@/lib/capture";
@@ -54,6 +58,18 @@ function toView(r: CaptureRow): CaptureView {
   };
 }
 
+/** The samples of stored content, for captures whose levels were not made at upload. */
+export async function traceOf(content: Buffer): Promise<Pick<CaptureTrace, "t" | "v">> {
+  return parseCapture(
+    (async function* () {
+      yield content;
+    })(),
+    { maxBytes: content.length + 1 },
+  );
+}
+
+/** Stores a capture with its levels in one transaction, within the quotas
+ *  (lib/field/capture-quotas.ts). Without `trace` the content is parsed here. */
 export async function insertCapture(input: {
   retrofitId: number | null;
   uploadedBy: number;
@@ -61,12 +77,22 @@ export async function insertCapture(input: {
   content: Buffer;
   sha256: string;
   measurement: CaptureMeasurement;
+  trace?: Pick<CaptureTrace, "t" | "v">;
 }) {
-  const [row] = await db
-    .insert(captures)
-    .values({ ...input, byteSize: input.content.length })
-    .returning({ id: captures.id });
-  return row.id;
+  const { trace: given, ...fields } = input;
+  const trace = given ?? (await traceOf(input.content));
+  return db.transaction(async (tx) => {
+    await checkCaptureQuota(
+      { uploadedBy: input.uploadedBy, retrofitId: input.retrofitId, bytes: input.content.length },
+      tx,
+    );
+    const [row] = await tx
+      .insert(captures)
+      .values({ ...fields, byteSize: input.content.length })
+      .returning({ id: captures.id });
+    await storeLevels(tx, buildLevels(row.id, trace.t, trace.v));
+    return row.id;
+  });
 }
 
 export async function getCaptureRow({ id }: { id: number }) {
@@ -145,4 +171,82 @@ export async function loadReadableCapture({ id, user }: { id: number; user: Auth
   if (!row || !(await canReadCapture({ user, row })))
     throw new ApiError("not_found", "Capture was not found.");
   return row;
+}
+
+/** Deletes a capture for its uploader or an admin, when no field check cites it.
+ *  Under the capture's row lock; a stage made from it keeps its values and loses
+ *  the link. Audited in the same transaction. */
+export async function deleteCapture({ id, user }: { id: number; user: AuthUser }) {
+  const row = await loadReadableCapture({ id, user });
+  if (user.role !== "admin" && row.uploadedBy !== user.id)
+    throw new ApiError(
+      "forbidden",
+      `Only ${row.uploaderName}, who uploaded it, or an admin may delete this capture.`,
+    );
+  try {
+    return await db.transaction(async (tx) => {
+      const [locked] = await tx
+        .select({ id: captures.id })
+        .from(captures)
+        .where(eq(captures.id, id))
+        .for("update");
+      if (!locked) throw new ApiError("not_found", "Capture was not found.");
+      const citing = await tx
+        .select({ id: fieldChecks.id })
+        .from(fieldChecks)
+        .where(eq(fieldChecks.captureId, id))
+        .orderBy(asc(fieldChecks.id));
+      if (citing.length > 0) throw citedBy(citing.map((c) => c.id));
+      const unlinked = await tx
+        .update(stages)
+        .set({ captureId: null })
+        .where(eq(stages.captureId, id))
+        .returning({ retrofitId: stages.retrofitId });
+      await tx.delete(captures).where(eq(captures.id, id));
+      await recordAudit(
+        {
+          actorId: user.id,
+          action: "capture.delete",
+          subjectType: "capture",
+          subjectId: id,
+          details: {
+            fileName: row.fileName,
+            byteSize: row.byteSize,
+            sha256: row.sha256,
+            retrofitId: row.retrofitId,
+            uploadedBy: row.uploadedBy,
+            stagesUnlinked: unlinked.map((s) => s.retrofitId),
+          },
+        },
+        tx,
+      );
+      return { id, fileName: row.fileName };
+    });
+  } catch (e) {
+    // A field check citing it committed between the check and the delete (SQLSTATE 23503).
+    if (
+      (e as { code?: string; cause?: { code?: string } }).code === "23503" ||
+      (e as { cause?: { code?: string } }).cause?.code === "23503"
+    ) {
+      const citing = await db
+        .select({ id: fieldChecks.id })
+        .from(fieldChecks)
+        .where(eq(fieldChecks.captureId, id));
+      throw citedBy(citing.map((c) => c.id));
+    }
+    throw e;
+  }
+}
+
+function citedBy(ids: number[]): ApiError {
+  const list =
+    ids
+      .slice(0, 10)
+      .map((i) => `#${i}`)
+      .join(", ") + (ids.length > 10 ? ` and ${ids.length - 10} more` : "");
+  return new ApiError(
+    "conflict",
+    `This capture is the evidence of field check${ids.length === 1 ? "" : "s"} ${list}; it is kept as long as they cite it.`,
+    { fieldChecks: ids.join(",") },
+  );
 }

@@ -16,6 +16,7 @@ import { assertCanReadRevision } from "@/lib/revisions/access";
 import { createHash } from "node:crypto";
 import { targetFolders } from "@/lib/bundle/folders";
 import { loadReadableCapture } from "./captures";
+import { lockLiveRetrofit } from "@/lib/retrofits/live-lock";
 import { judgeSteps, stepInputSchema } from "./record-steps";
 import { judgeCheck, requiredRelativeOf, revisionPlans } from "./judge";
 import {
@@ -97,6 +98,9 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
   let highS = input.measuredHighS;
   if (input.captureId !== undefined) {
     const capture = await loadReadableCapture({ id: input.captureId, user });
+    // Evidence of another retrofit answers like a missing capture (no oracle).
+    if (capture.retrofitId !== null && capture.retrofitId !== retrofit.id)
+      throw new ApiError("not_found", "Capture was not found.");
     const m = capture.measurement as CaptureMeasurement;
     periodS ??= m.periodS.mean;
     highS ??= m.highS.mean;
@@ -153,6 +157,7 @@ export async function recordFieldCheck(user: AuthUser, input: FieldCheckInput): 
 
   const author = passed ? null : await getUserEmail({ id: revision.createdBy });
   const id = await db.transaction(async (tx) => {
+    await lockLiveRetrofit(tx, retrofit.id, `record a field check of r${revision.number}`);
     const row = await insertFieldCheck(
       {
         revisionId: revision.id,

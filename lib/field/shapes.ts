@@ -85,7 +85,9 @@ export type CapturePlot = {
   points: PlotPoint[];
   edges: CaptureEdge[];
   edgesTotal: number;
-  window: { fromS: number; toS: number } | null;
+  /** samplesPerEntry: samples folded per stored level entry (1 = the samples);
+   *  each point spans from its tS to the next point's tS, the last one to untilS (null: the record's end). */
+  window: { fromS: number; toS: number; samplesPerEntry: number; untilS: number | null } | null;
 };
 
 export type FieldBundle = {

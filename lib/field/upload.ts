@@ -5,7 +5,13 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { ApiError } from "@/lib/api/errors";
 import { cleanLine } from "@/lib/validation/plain-text";
-import { CaptureError, measureCsv, type CaptureMeasurement } from "@/lib/capture";
+import {
+  CaptureError,
+  measureTrace,
+  parseCapture,
+  type CaptureMeasurement,
+  type CaptureTrace,
+} from "@/lib/capture";
 import { boundaryOf, multipartFile } from "./multipart";
 
 /** Room for the form's own headers and delimiters around the file. */
@@ -61,6 +67,8 @@ export type MeasuredUpload = {
   content: Buffer;
   sha256: string;
   measurement: CaptureMeasurement;
+  /** The parsed samples, kept so the stored levels are made from this one parse. */
+  trace: Pick<CaptureTrace, "t" | "v">;
 };
 
 /** The name as sent, without folders, line breaks, controls or bidi controls; quotes are kept. */
@@ -108,8 +116,10 @@ export async function readCaptureUpload(req: Request, maxBytes: number): Promise
     }
   }
   let measurement: CaptureMeasurement;
+  let trace: CaptureTrace;
   try {
-    measurement = await measureCsv(tee(), { maxBytes });
+    trace = await parseCapture(tee(), { maxBytes });
+    measurement = measureTrace(trace);
   } catch (e) {
     if (e instanceof CaptureError) {
       if (e.code === "too-large") throw tooLarge(maxBytes, e.line);
@@ -128,5 +138,5 @@ export async function readCaptureUpload(req: Request, maxBytes: number): Promise
       ? found.fileName
       : (req.headers.get("x-file-name") ?? new URL(req.url).searchParams.get("name")),
   );
-  return { fileName, content: store.bytes(), sha256: hash.digest("hex"), measurement };
+  return { fileName, content: store.bytes(), sha256: hash.digest("hex"), measurement, trace };
 }

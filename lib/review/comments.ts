@@ -22,6 +22,7 @@ import { optionalPlainNumber } from "@/lib/validation/plain-number";
 import { lineText, paragraphText } from "@/lib/validation/plain-text";
 import { carryLine, carryMark, revisionAnchors, type AnchorKind, type CarryMark } from "./anchors";
 import { loadRevisionForReview } from "./load";
+import { lockLiveRetrofit } from "@/lib/retrofits/live-lock";
 
 export const COMMENT_ROLES = READ_ALL;
 
@@ -235,7 +236,8 @@ export async function addComment(user: AuthUser, revisionId: number, input: Comm
   if (!COMMENT_ROLES.includes(user.role))
     throw new ApiError("forbidden", `The ${user.role} role may not comment.`);
   return db.transaction(async (tx) => {
-    const { revision } = await loadRevisionForReview(revisionId, tx);
+    const { revision, retrofit } = await loadRevisionForReview(revisionId, tx);
+    await lockLiveRetrofit(tx, retrofit.id, `comment on r${revision.number}`);
     const filePath = input.parentId ? null : (input.filePath ?? null);
     const line = filePath ? (input.line ?? null) : null;
     let anchorKind: AnchorKind = line ? "line" : filePath ? "file" : "revision";
@@ -333,7 +335,12 @@ export async function setResolved(user: AuthUser, commentId: number, resolved: b
       .where(eq(comments.id, commentId))
       .for("update");
     if (!c) throw new ApiError("not_found", "No such comment.");
-    await loadRevisionForReview(c.revisionId, tx);
+    const { revision, retrofit } = await loadRevisionForReview(c.revisionId, tx);
+    await lockLiveRetrofit(
+      tx,
+      retrofit.id,
+      `${resolved ? "resolve" : "reopen"} threads of r${revision.number}`,
+    );
     if (c.parentId)
       throw new ApiError("unprocessable", "A reply is resolved with its thread.", {
         resolved: `Resolve thread ${c.parentId} instead.`,

@@ -7,13 +7,14 @@
 import "server-only";
 import { and, desc, eq, gt, inArray, isNull, lt, ne, sql } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
-import { retrofits, reviews, revisions, users } from "@/db/schema";
+import { reviews, revisions, users } from "@/db/schema";
 import { ApiError } from "@/lib/api/errors";
 import { recordAudit } from "@/lib/audit";
 import type { AuthUser } from "@/lib/auth/guard";
 import { releasedMail, decisionMail } from "@/lib/mail/messages";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { loadRevisionForReview } from "./load";
+import { lockLiveRetrofit } from "@/lib/retrofits/live-lock";
 import { techniciansOfSite } from "./recipients";
 import { releaseOverride, type Override } from "./budget-miss";
 import { decideRefusal, type Decision } from "./states";
@@ -31,8 +32,9 @@ export async function decideRevision(
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = decideRefusal(user, revision);
     if (refusal) throw refusal;
-    // Decisions on one retrofit queue up here, so superseding sees every release.
-    await tx.select({ id: retrofits.id }).from(retrofits).where(eq(retrofits.id, retrofit.id)).for("update");
+    // Decisions on one retrofit queue up here, so superseding sees every release;
+    // an archived retrofit takes no decision.
+    await lockLiveRetrofit(tx, retrofit.id, `${decision} r${revision.number}`);
     let override: Override | null = null;
     if (decision === "release") {
       const stale = await newerCandidate(tx, retrofit.id, revision.number);

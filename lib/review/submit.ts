@@ -18,6 +18,7 @@ import { submitRefusal } from "./states";
 import { REVIEW_ACTIONS, STATE_WORDS } from "./words";
 import { buildRefusal } from "./build-gate";
 import { proofGate } from "./proof-gate";
+import { lockLiveRetrofit } from "@/lib/retrofits/live-lock";
 
 export async function submitRevision(
   user: AuthUser,
@@ -29,6 +30,7 @@ export async function submitRevision(
     const { revision, retrofit, author } = await loadRevisionForReview(revisionId, tx);
     const refusal = submitRefusal(user, revision);
     if (refusal) throw refusal;
+    await lockLiveRetrofit(tx, retrofit.id, `submit r${revision.number}`);
     const unbuilt = buildRefusal(revision);
     if (unbuilt) throw unbuilt;
     const unprovenReason = proofGate(revision, unprovenReasonInput);

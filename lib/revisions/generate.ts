@@ -106,6 +106,7 @@ function planInputs({ retrofit, stageRow, targetRows }: SourceRows): Inputs {
     throw new ApiError(
       "conflict",
       "This retrofit is archived; archived retrofits keep their revisions but get no new ones.",
+      { state: "archived" },
     );
   }
   if (!stageRow)

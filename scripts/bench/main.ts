@@ -1,5 +1,5 @@
 // Runs the benchmark parts in turn, prints the table and writes
-// bench-results.json. Parts: solver, adversarial, engine, bundle, capture, pages, api, queue.
+// bench-results.json. Parts: solver, adversarial, engine, bundle, capture, capture-plot, pages, api, queue.
 //   npx tsx scripts/bench/main.ts [--only=solver,engine]
 // The api, pages and queue parts need the production server and build that
 // scripts/bench.sh starts (BENCH_BASE_URL, NEXT_DIST_DIR).
@@ -17,6 +17,7 @@ const PARTS: Record<string, () => Promise<Part>> = {
   bundle: async () => (await import("./bundle")).bundlePart,
   images: async () => (await import("./images")).imagesPart,
   capture: async () => (await import("./capture")).capturePart,
+  "capture-plot": async () => (await import("./capture-plot")).capturePlotPart,
   pages: async () => (await import("./pages")).pagesPart,
   api: async () => (await import("./api")).apiPart,
   queue: async () => (await import("./queue")).queuePart,

@@ -227,14 +227,14 @@ describe("ids in bodies", () => {
     expect(await fingerprint(w)).toBe(before);
   });
 
-  it("a capture cannot become the stage of a retrofit it does not belong to", async () => {
+  it("a capture cannot become the stage of a retrofit it does not belong to (404 like a missing capture)", async () => {
     const rf = await makeRetrofit(w, w.author.id);
     await refused(
       "engineer",
       "POST",
       `/api/v1/captures/${other.captureId}/use-as-stage`,
       { retrofitId: rf.id },
-      [409],
+      [404],
     );
   });
 

@@ -395,6 +395,15 @@ export const ROUTES: RouteEntry[] = [
     build: async (w) => ({ path: `/api/v1/captures/${w.captureId}` }),
   },
   {
+    // The uploader (here the technician) or an admin; roles that can read it get 403.
+    method: "DELETE",
+    pattern: "/api/v1/captures/[id]",
+    allowed: FIELD,
+    build: async (w) => ({
+      path: `/api/v1/captures/${await makeCapture(w.retrofitId, w.actors.technician.id, "to-delete.csv")}`,
+    }),
+  },
+  {
     method: "GET",
     pattern: "/api/v1/captures/[id]/plot",
     allowed: ANY,

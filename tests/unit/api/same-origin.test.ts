@@ -31,10 +31,12 @@ describe("cookie mutations", () => {
     ).toBe("forbidden");
     expect(refusal(req({ cookie: COOKIE, "content-type": "application/json" }))).toBe("forbidden");
   });
-  it("refuses a same-origin request whose body is not JSON", () => {
-    expect(
-      refusal(req({ cookie: COOKIE, "sec-fetch-site": "same-origin", "content-type": "text/plain" })),
-    ).toBe("bad_request");
+  it("refuses a same-origin request whose body is not JSON with 415 (RFC 9110 section 15.5.16)", () => {
+    for (const type of ["text/plain", "application/x-www-form-urlencoded", "multipart/form-data; boundary=x"])
+      expect(refusal(req({ cookie: COOKIE, "sec-fetch-site": "same-origin", "content-type": type }))).toBe(
+        "unsupported_media_type",
+      );
+    expect(new ApiError("unsupported_media_type", "x").status).toBe(415);
   });
   it("accepts our own pages' JSON, bearer tokens, signed-out requests and reads", () => {
     expect(

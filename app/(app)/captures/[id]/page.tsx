@@ -1,8 +1,10 @@
 // One capture: file facts, the measurement, the zoomable trace and, for
-// engineers, turning it into the retrofit's measured stage.
+// engineers, turning it into the retrofit's measured stage; for its uploader
+// or an admin, deleting it.
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { DeleteCapture } from "@/components/capture/delete-capture";
 import { MeasurementTable } from "@/components/capture/measurement-table";
 import { TracePlot } from "@/components/capture/trace-plot";
 import { UseAsStage } from "@/components/capture/use-as-stage";
@@ -46,6 +48,11 @@ export default async function CapturePage({ params }: { params: Promise<{ id: st
       {EDIT.includes(user.role) && (
         <section className="panel">
           <UseAsStage captureId={c.id} retrofitId={c.retrofitId} />
+        </section>
+      )}
+      {(user.role === "admin" || c.uploadedBy.id === user.id) && (
+        <section className="panel">
+          <DeleteCapture captureId={c.id} fileName={c.fileName} />
         </section>
       )}
     </div>

@@ -10,6 +10,7 @@ import { env } from "@/lib/env";
 import { getCaptureRow, insertCapture, listCaptures, captureView } from "@/lib/field/captures";
 import { getRetrofit, technicianSeesRetrofit } from "@/lib/field/queries";
 import { readCaptureUpload } from "@/lib/field/upload";
+import { checkCaptureQuota } from "@/lib/field/capture-quotas";
 
 function retrofitParam(req: Request): number | null {
   const raw = new URL(req.url).searchParams.get("retrofitId");
@@ -26,6 +27,16 @@ export const POST = apiRoute(
         retrofit && (user.role !== "technician" || (await technicianSeesRetrofit({ user, retrofitId })));
       if (!visible) throw new ApiError("not_found", "Retrofit was not found.");
     }
+    // Refused before the body is read when the quota is already used up
+    // (checked again, under a lock, when the capture is stored).
+    // A raw body's length is the file's; a form's also counts its own parts.
+    const declared = Number(req.headers.get("content-length") ?? "0");
+    const raw = !/^multipart\//i.test(req.headers.get("content-type") ?? "");
+    await checkCaptureQuota({
+      uploadedBy: user.id,
+      retrofitId,
+      bytes: raw && Number.isFinite(declared) ? declared : 0,
+    });
     const upload = await readCaptureUpload(req, env().CAPTURE_MAX_BYTES);
     const id = await insertCapture({
       retrofitId,
@@ -34,6 +45,7 @@ export const POST = apiRoute(
       content: upload.content,
       sha256: upload.sha256,
       measurement: upload.measurement,
+      trace: upload.trace,
     });
     await recordAudit({
       actorId: user.id,

@@ -1,4 +1,4 @@
-import { apiRoute, readJson } from "@/lib/api/route";
+import { apiRoute, readJson, secretJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ADMIN } from "@/lib/auth/roles";
 import { createInvitation, invitationInput, pendingInvitations } from "@/lib/review/invitations";
@@ -16,5 +16,5 @@ export const POST = apiRoute(async (req) => {
   const admin = await requireUser({ roles: ADMIN, req });
   const { invitation, token } = await createInvitation(admin, body);
   const link = `${new URL(req.url).origin}/invite/${token}`;
-  return Response.json({ invitation, link }, { status: 201 });
+  return secretJson({ invitation, link }, { status: 201 });
 });

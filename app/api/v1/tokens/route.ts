@@ -1,6 +1,6 @@
 // GET: the caller's API tokens (prefix only). POST: a new token; the secret is
 // in this one answer and never again.
-import { apiRoute, readJson } from "@/lib/api/route";
+import { apiRoute, readJson, secretJson } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
 import { createToken, listTokensByUser } from "@/lib/retrofits/tokens";
@@ -15,5 +15,5 @@ export const POST = apiRoute(async (req) => {
   const body = tokenBodySchema.parse(await readJson(req));
   const user = await requireUser({ roles: ANY, req });
   const token = await createToken({ userId: user.id, name: body.name });
-  return Response.json({ token }, { status: 201 });
+  return secretJson({ token }, { status: 201 });
 });

@@ -1,14 +1,18 @@
 // GET the display trace of a capture: the stored min/max envelope of the whole
-// record, or with ?fromS=&toS= a fresh envelope of that window re-read from the
-// stored file, so zooming in shows real samples rather than a stretched envelope.
+// record, or with ?fromS=&toS= the envelope of that window read from the
+// capture's stored levels (lib/field/capture-levels.ts), so zooming in shows
+// real samples without parsing the file again. A capture stored before the
+// levels existed gets them on its first zoom (parsed once, then stored).
 import { z } from "zod";
 import { ApiError } from "@/lib/api/errors";
 import { plainNumber } from "@/lib/validation/plain-number";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
-import { decimateEnvelope, parseCapture, PLOT_POINTS, type CaptureMeasurement } from "@/lib/capture";
-import { getCaptureContent, loadReadableCapture } from "@/lib/field/captures";
+import type { CaptureMeasurement } from "@/lib/capture";
+import { db } from "@/db/client";
+import { getCaptureContent, loadReadableCapture, traceOf } from "@/lib/field/captures";
+import { buildLevels, hasLevels, readWindow, storeLevels } from "@/lib/field/capture-levels";
 import type { CapturePlot } from "@/lib/field/shapes";
 
 const windowSchema = z
@@ -18,16 +22,12 @@ const windowSchema = z
   })
   .refine((w) => w.toS > w.fromS, { message: "toS must be later than fromS", path: ["toS"] });
 
-/** First index whose time is >= t. */
-function lowerBound(t: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = t.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (t[mid] < x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
+async function ensureLevels(id: number): Promise<void> {
+  if (await hasLevels(id)) return;
+  const content = await getCaptureContent({ id });
+  if (!content) throw new ApiError("not_found", "Capture was not found.");
+  const trace = await traceOf(content);
+  await db.transaction((tx) => storeLevels(tx, buildLevels(id, trace.t, trace.v)));
 }
 
 export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
@@ -41,20 +41,18 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
 
   let points = m.plot;
   let edges = m.edges;
+  let window: CapturePlot["window"] = null;
   if (wanted) {
-    const content = await getCaptureContent({ id });
-    if (!content) throw new ApiError("not_found", "Capture was not found.");
-    const trace = await parseCapture(
-      (async function* () {
-        yield content;
-      })(),
-      { maxBytes: content.length + 1 },
-    );
-    // One sample either side so the window's ends are drawn.
-    const from = Math.max(0, lowerBound(trace.t, wanted.fromS) - 1);
-    const to = Math.min(trace.t.length, lowerBound(trace.t, wanted.toS) + 1);
-    points = decimateEnvelope(trace.t, trace.v, PLOT_POINTS, from, to);
+    await ensureLevels(id);
+    const read = await readWindow(id, wanted.fromS, wanted.toS);
+    points = read.points;
     edges = m.edges.filter((e) => e.tS >= wanted.fromS && e.tS <= wanted.toS);
+    window = {
+      fromS: wanted.fromS,
+      toS: wanted.toS,
+      samplesPerEntry: read.samplesPerEntry,
+      untilS: read.untilS,
+    };
   }
   const body: CapturePlot = {
     captureId: id,
@@ -66,7 +64,7 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
     points,
     edges,
     edgesTotal: m.edgesTotal,
-    window: wanted ? { fromS: wanted.fromS, toS: wanted.toS } : null,
+    window,
   };
   return Response.json(body);
 });

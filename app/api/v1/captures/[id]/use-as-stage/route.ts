@@ -15,6 +15,7 @@ import type { CaptureMeasurement } from "@/lib/capture";
 import { analyzeStage } from "@/lib/engine";
 import { loadReadableCapture } from "@/lib/field/captures";
 import { getRetrofit } from "@/lib/field/queries";
+import { lockLiveRetrofit } from "@/lib/retrofits/live-lock";
 
 const bodySchema = z.object({ retrofitId: dbId.optional() }).strict();
 
@@ -31,15 +32,11 @@ export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
     });
   }
   if (capture.retrofitId !== null && capture.retrofitId !== retrofitId) {
-    throw new ApiError(
-      "conflict",
-      `This capture belongs to retrofit ${capture.retrofitId}; upload it again for another one.`,
-    );
+    // Another retrofit's capture answers like a missing one (no oracle).
+    throw new ApiError("not_found", "Capture was not found.");
   }
   const retrofit = await getRetrofit({ id: retrofitId });
   if (!retrofit) throw new ApiError("not_found", "Retrofit was not found.");
-  if (retrofit.archivedAt)
-    throw new ApiError("conflict", "The retrofit is archived; restore it before changing its stage.");
 
   const m = capture.measurement as CaptureMeasurement;
   const stage = { kind: "measured" as const, periodS: m.periodS.mean, highS: m.highS.mean };
@@ -49,6 +46,7 @@ export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   analyzeStage(stage); // a measurement the engine cannot use is a 422, not a broken stage
 
   await db.transaction(async (tx) => {
+    await lockLiveRetrofit(tx, retrofitId, "change its stage");
     const [previous] = await tx
       .select({ kind: stages.kind })
       .from(stages)
