@@ -130,7 +130,7 @@ function whole(args: string[]) {
     ? args
     : existsSync(dir)
       ? readdirSync(dir)
-          .filter((f) => f.endsWith(".json") && !/incremental|^picks-|^all-mutants|^sampled-/.test(f))
+          .filter((f) => f.endsWith(".json") && !/incremental|^picks-|^all-mutants|^sampled-|^rerun-/.test(f))
           .map((f) => path.join(dir, f))
       : [];
   if (reports.length === 0) {
