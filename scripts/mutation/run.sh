@@ -4,7 +4,11 @@
 # reports/mutation/<folder>.json; the score table is printed at the end.
 #   bash scripts/mutation/run.sh                    all five folders (long: see DEVELOPERS.md)
 #   bash scripts/mutation/run.sh lib/engine/solver  one folder
-#   bash scripts/mutation/run.sh --sample           the sampled set CI can afford
+#   bash scripts/mutation/run.sh --sample           the small file set (see DEVELOPERS.md for its time)
+#   bash scripts/mutation/run.sh --sampled lib/bundle [size=40] [seed=14]
+#       a seeded uniform random sample of the folder's mutants (scripts/mutation/sample.ts);
+#       report: npx tsx scripts/mutation/report.ts --sampled
+#   bash scripts/mutation/run.sh --rerun lib/bundle  the sampled run's survivors again, after new tests
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 FOLDERS=(lib/engine/solver lib/engine/devices lib/engine lib/bundle lib/capture)
@@ -15,6 +19,47 @@ SAMPLE="lib/engine/solver/high-time.ts,lib/engine/devices/msp430g2553.ts,lib/cap
 if [[ "${1:-}" == "--sample" ]]; then
   MUTATE_FILES="$SAMPLE" MUTATE_NAME=sample npx stryker run
   npx tsx scripts/mutation/report.ts reports/mutation/sample.json
+  exit 0
+fi
+# The judging tests of a sampled run: the folder's own unit tests, without the
+# ones that start an external tool per run (compilers, emulators, ngspice).
+# Many mutants are "static" to Stryker (reached while a test file loads), and
+# each static mutant reruns the whole set, so the set must be the fast one. A
+# mutant the narrow set kills, the whole suite kills too: the figure is a
+# lower bound. MUTATE_TESTS set by the caller wins.
+sampled_tests() {
+  case "$1" in
+    lib/engine/solver) echo "tests/unit/engine/solver/**/*.test.ts" ;;
+    lib/engine/devices)
+      echo "tests/unit/engine/devices/**/*.test.ts,tests/unit/engine/solver/independent-reference.test.ts,tests/unit/engine/solver/datasheet-examples.test.ts" ;;
+    lib/bundle)
+      local b=tests/unit/bundle
+      echo "$b/registers.test.ts,$b/golden.test.ts,$b/determinism.test.ts,$b/limits.test.ts,$b/adc-clock.test.ts,$b/avr-fuses.test.ts,$b/kept-control.test.ts,$b/triggered-refusal.test.ts" ;;
+    lib/capture) echo "tests/unit/capture/*.test.ts" ;;
+    lib/engine)
+      echo "tests/unit/engine/stages/**/*.test.ts,tests/unit/engine/tolerance/**/*.test.ts,tests/unit/engine/units/**/*.test.ts,tests/unit/engine/adjust/**/*.test.ts" ;;
+    *) echo "unknown folder: $1" >&2; exit 2 ;;
+  esac
+}
+if [[ "${1:-}" == "--sampled" || "${1:-}" == "--rerun" ]]; then
+  mode="$1" folder="${2:?name a folder, e.g. lib/engine/solver}"
+  name="${folder//\//-}"
+  if [[ "$mode" == "--sampled" ]]; then
+    npx tsx scripts/mutation/list-mutants.ts
+    npx tsx scripts/mutation/sample.ts "$folder" "${3:-40}" "${4:-14}"
+    picks="reports/mutation/picks-$name.json" out="sampled-$name"
+  else
+    npx tsx scripts/mutation/survivor-picks.ts "$folder"
+    picks="reports/mutation/picks-rerun-$name.json" out="rerun-$name"
+  fi
+  # its own temporary folder, so a sampled run can go beside another run
+  MUTATE_TESTS="${MUTATE_TESTS:-$(sampled_tests "$folder")}" \
+    MUTATE_PICKS="$picks" MUTATE_NAME="$out" npx stryker run --tempDirName ".stryker-tmp-$out"
+  if [[ "$mode" == "--rerun" ]]; then
+    npx tsx scripts/mutation/report.ts --sampled reports/mutation/rerun-*.json
+  else
+    npx tsx scripts/mutation/report.ts --sampled
+  fi
   exit 0
 fi
 if [[ $# -gt 0 ]]; then FOLDERS=("$@"); fi

@@ -28,6 +28,28 @@ describe("bad plan requests", () => {
     refuse({ device: "msp430g2553", clockHz: 25e6 }, "clock-out-of-range", "clockHz");
   });
 
+  it("an unknown clock source lists the device's options", () => {
+    const msg = refuse({ clockSource: "quartz" }, "invalid-request", "clockSource").message;
+    for (const id of ["crystal", "rc8m", "rc8m-cal", "rc128k", "external"]) expect(msg).toContain(id);
+  });
+
+  it("a frequency the internal oscillator cannot make names the two nearest it makes", () => {
+    // PIC12F1840 datasheet (DS40001441), OSCCON IRCF<3:0>: 1111 = 16 MHz, 1110 = 8 MHz
+    // (HFINTOSC and its postscaler); 15 MHz lies between them.
+    const msg = refuse(
+      { device: "pic12f1840", clockSource: "hfintosc", clockHz: 15e6 },
+      "clock-out-of-range",
+      "clockHz",
+    ).message;
+    expect(msg).toContain("nearest it makes: 8000000 Hz, 16000000 Hz");
+  });
+
+  it("clock accuracy: a finite number >= 0, and a given one is the plan's", () => {
+    for (const v of [-1, NaN, Infinity, "50"])
+      refuse({ clockAccuracyPpm: v }, "invalid-request", "clockAccuracyPpm");
+    expect(planTarget({ ...ok, clockAccuracyPpm: 30 }).clockAccuracyPpm).toBe(30);
+  });
+
   it("NaN, Infinity, zero and negative numbers", () => {
     for (const v of [NaN, Infinity, -Infinity, 0, -1, "1e-3", undefined])
       refuse({ periodS: v }, "invalid-request", "periodS");
