@@ -5,7 +5,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { ApiError } from "@/lib/api/errors";
 import { cleanLine } from "@/lib/validation/plain-text";
-import { CaptureError, measureCsv, type CaptureMeasurement } from "@/lib/capture";
+import { CaptureError, measureCsv, type CaptureMeasurement, type CaptureOptions } from "@/lib/capture";
 import { boundaryOf, multipartFile } from "./multipart";
 
 /** Room for the form's own headers and delimiters around the file. */
@@ -63,6 +63,12 @@ export type MeasuredUpload = {
   measurement: CaptureMeasurement;
 };
 
+/** A channel or probe the file cannot have: 422 naming the form field. */
+export function choiceError(e: CaptureError): ApiError {
+  const text = `${e.message.charAt(0).toUpperCase()}${e.message.slice(1)}.`;
+  return new ApiError("unprocessable", text, { [/probe/.test(e.message) ? "probe" : "channel"]: text });
+}
+
 /** The name as sent, without folders, line breaks, controls or bidi controls; quotes are kept. */
 export function cleanName(raw: string | null | undefined): string {
   const base = (raw ?? "").split(/[\\/]/).pop() ?? "";
@@ -72,7 +78,11 @@ export function cleanName(raw: string | null | undefined): string {
 
 /** Measures and collects an upload: multipart/form-data (part "file") or a raw
  *  text body. Throws ApiError 413/422/400; nothing is stored here. */
-export async function readCaptureUpload(req: Request, maxBytes: number): Promise<MeasuredUpload> {
+export async function readCaptureUpload(
+  req: Request,
+  maxBytes: number,
+  options: CaptureOptions = {},
+): Promise<MeasuredUpload> {
   const type = req.headers.get("content-type") ?? "";
   const multipart = /^multipart\/form-data/i.test(type);
   const declared = Number(req.headers.get("content-length") ?? NaN);
@@ -109,10 +119,11 @@ export async function readCaptureUpload(req: Request, maxBytes: number): Promise
   }
   let measurement: CaptureMeasurement;
   try {
-    measurement = await measureCsv(tee(), { maxBytes });
+    measurement = await measureCsv(tee(), { ...options, maxBytes });
   } catch (e) {
     if (e instanceof CaptureError) {
       if (e.code === "too-large") throw tooLarge(maxBytes, e.line);
+      if (e.code === "bad-choice") throw choiceError(e);
       throw new ApiError(
         "unprocessable",
         `${e.message.replace(/\.$/, "")}. Check the export settings (CSV or TSV, time and voltage columns).`,

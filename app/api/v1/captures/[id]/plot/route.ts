@@ -7,7 +7,14 @@ import { plainNumber } from "@/lib/validation/plain-number";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
-import { decimateEnvelope, parseCapture, PLOT_POINTS, type CaptureMeasurement } from "@/lib/capture";
+import {
+  choiceOf,
+  choiceOptions,
+  decimateEnvelope,
+  parseCapture,
+  PLOT_POINTS,
+  type CaptureMeasurement,
+} from "@/lib/capture";
 import { getCaptureContent, loadReadableCapture } from "@/lib/field/captures";
 import type { CapturePlot } from "@/lib/field/shapes";
 
@@ -48,7 +55,8 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
       (async function* () {
         yield content;
       })(),
-      { maxBytes: content.length + 1 },
+      // The channel and probe the measurement was made with.
+      { ...choiceOptions(choiceOf(m)), maxBytes: content.length + 1 },
     );
     // One sample either side so the window's ends are drawn.
     const from = Math.max(0, lowerBound(trace.t, wanted.fromS) - 1);
