@@ -5,7 +5,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { MeasureAgain } from "@/components/capture/measure-again";
 import { MeasurementTable } from "@/components/capture/measurement-table";
-import { TracePlot } from "@/components/capture/trace-plot";
+import { LazyTracePlot as TracePlot } from "@/components/capture/lazy-trace-plot";
 import { UseAsStage } from "@/components/capture/use-as-stage";
 import { CopySha } from "@/components/field/copy-sha";
 import { NotAllowed } from "@/components/ui/not-allowed";
