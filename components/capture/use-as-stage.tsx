@@ -16,7 +16,9 @@ export function UseAsStage({ captureId, retrofitId, choices }: Props) {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [done, setDone] = useState<Stage | null>(null);
-  const label = (r: StageRetrofit) => `${r.assetTag} · ${r.name} (${r.site}) #${r.id}`;
+  const label = (r: StageRetrofit) => `${r.assetTag} · ${r.name}`;
+  // Grouped by site, so each option stays short enough for a phone.
+  const sites = [...new Set(choices.map((r) => r.site))];
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -56,15 +58,21 @@ export function UseAsStage({ captureId, retrofitId, choices }: Props) {
         </label>
         <select
           id="stage-retrofit"
-          className="input w-auto max-w-full"
+          className="input max-w-full"
           value={target}
           onChange={(e) => setTarget(e.target.value)}
         >
           {retrofitId === null && <option value="">Choose a retrofit…</option>}
-          {choices.map((r) => (
-            <option key={r.id} value={String(r.id)}>
-              {label(r)}
-            </option>
+          {sites.map((site) => (
+            <optgroup key={site} label={site}>
+              {choices
+                .filter((r) => r.site === site)
+                .map((r) => (
+                  <option key={r.id} value={String(r.id)}>
+                    {label(r)}
+                  </option>
+                ))}
+            </optgroup>
           ))}
         </select>
       </div>

@@ -86,7 +86,7 @@ describe("ramp capture in the browser", () => {
     const picker = page.getByLabel("Retrofit", { exact: true });
     await picker.waitFor();
     await picker.selectOption({
-      label: `${chosen.assetTag} · ${chosen.name} (${chosen.site}) #${chosen.id}`,
+      label: `${chosen.assetTag} · ${chosen.name}`,
     });
     await page.getByRole("button", { name: "Use as measured stage" }).click();
     await page
