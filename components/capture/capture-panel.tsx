@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useSWRConfig } from "swr";
 import type { CaptureView } from "@/lib/field/shapes";
 import { MeasurementTable } from "./measurement-table";
-import { TracePlot } from "./trace-plot";
+import { LazyTracePlot as TracePlot } from "./lazy-trace-plot";
 import { UploadForm } from "./upload-form";
 
 export function CapturePanel({ retrofitId, listKey }: { retrofitId?: number; listKey?: string }) {

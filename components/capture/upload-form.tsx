@@ -3,6 +3,7 @@
 // upload progress; the server measures while the bytes arrive.
 import { useRef, useState } from "react";
 import type { CaptureView } from "@/lib/field/shapes";
+import { ChannelProbeFields } from "./channel-probe-fields";
 
 type Props = { retrofitId?: number; onUploaded: (capture: CaptureView) => void };
 
@@ -11,6 +12,8 @@ export function UploadForm({ retrofitId, onUploaded }: Props) {
   const [progress, setProgress] = useState<number | null>(null);
   const [phase, setPhase] = useState<"idle" | "sending" | "measuring">("idle");
   const [error, setError] = useState<string | null>(null);
+  const [channel, setChannel] = useState("1");
+  const [probe, setProbe] = useState("1");
 
   function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -25,7 +28,9 @@ export function UploadForm({ retrofitId, onUploaded }: Props) {
     const form = new FormData();
     form.append("file", file, file.name);
     const xhr = new XMLHttpRequest();
-    xhr.open("POST", `/api/v1/captures${retrofitId ? `?retrofitId=${retrofitId}` : ""}`);
+    const query = new URLSearchParams({ channel, probe });
+    if (retrofitId) query.set("retrofitId", String(retrofitId));
+    xhr.open("POST", `/api/v1/captures?${query.toString()}`);
     xhr.setRequestHeader("accept", "application/json");
     xhr.upload.onprogress = (ev) => {
       if (ev.lengthComputable) setProgress(ev.loaded / ev.total);
@@ -72,6 +77,15 @@ export function UploadForm({ retrofitId, onUploaded }: Props) {
           disabled={busy}
         />
       </div>
+      <ChannelProbeFields
+        idPrefix="upload"
+        channel={channel}
+        probe={probe}
+        channels={null}
+        disabled={busy}
+        onChannel={setChannel}
+        onProbe={setProbe}
+      />
       <div className="flex flex-wrap items-center gap-3">
         <button type="submit" className="btn-primary" disabled={busy}>
           {phase === "sending" ? "Uploading…" : phase === "measuring" ? "Measuring…" : "Upload and measure"}

@@ -48,7 +48,7 @@ export function TargetStartFields({ i, errors }: { i: number; errors: RowErrors 
   }
 
   return (
-    <div className="grid gap-3 sm:col-span-3 sm:grid-cols-3">
+    <div className="col-span-full grid grid-cols-[repeat(auto-fill,minmax(15rem,1fr))] gap-3">
       <div>
         <label className="field-label" htmlFor={id("start")}>
           Output starts
@@ -107,7 +107,7 @@ export function TargetStartFields({ i, errors }: { i: number; errors: RowErrors 
         </>
       )}
       {start === "zero-cross" && (
-        <div className="rounded border border-paper-line p-2 sm:col-span-3">
+        <div className="rounded border border-paper-line p-2 col-span-full">
           <p className="text-sm font-semibold">Delay from a wanted load power or firing angle</p>
           <div className="mt-1 flex flex-wrap items-end gap-2">
             <select

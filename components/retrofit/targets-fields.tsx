@@ -58,7 +58,7 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                 </button>
               )}
             </div>
-            <div className="grid gap-3 sm:grid-cols-3">
+            <div className="grid grid-cols-[repeat(auto-fill,minmax(15rem,1fr))] gap-3">
               <div>
                 <label className="field-label" htmlFor={`target-${i}-device`}>
                   Device
@@ -173,7 +173,7 @@ export function TargetsFields({ disabled }: { disabled: boolean }) {
                 />
                 {msg("requiredTolerancePct")}
               </div>
-              <div className="flex items-center gap-2 sm:col-span-3">
+              <div className="col-span-full flex items-center gap-2">
                 <input
                   type="checkbox"
                   className="h-4 w-4 accent-accent"

@@ -4,8 +4,8 @@
 
 import { CaptureError } from "./errors";
 import { type Delimiter, isNumberish, numericFieldCount, splitFields } from "./fields";
-import { readHeader } from "./header-metadata";
-import type { CaptureColumn, CaptureWarning, HeaderEntry } from "./types";
+import { MAX_PROBE, readHeader } from "./header-metadata";
+import type { CaptureColumn, CaptureScaling, CaptureWarning, HeaderEntry } from "./types";
 import { isKnownUnit, splitNameUnit, timeScale, voltScale } from "./units";
 
 export interface Layout {
@@ -20,6 +20,10 @@ export interface Layout {
   /** -1 when times come from the sample interval. */
   timeIndex: number;
   measuredIndex: number;
+  /** Measured value = raw × measuredScale + measuredOffset (volts at the probe tip). */
+  measuredScale: number;
+  measuredOffset: number;
+  scaling: CaptureScaling;
   sampleIntervalS: number | null;
   startS: number;
   header: HeaderEntry[];
@@ -101,7 +105,23 @@ function steps(values: number[], interval: number): boolean {
 
 const TIME_NAME = /^(time|t|x)$|^time\b/i;
 
-export function detectLayout(lines: string[], voltageColumn: number): Layout {
+export interface LayoutChoice {
+  voltageColumn: number;
+  probeAttenuation?: number;
+}
+
+export function detectLayout(lines: string[], choice: LayoutChoice): Layout {
+  const { voltageColumn, probeAttenuation } = choice;
+  if (
+    probeAttenuation !== undefined &&
+    !(Number.isFinite(probeAttenuation) && probeAttenuation >= 1 && probeAttenuation <= MAX_PROBE)
+  ) {
+    throw new CaptureError(
+      "bad-choice",
+      null,
+      `probe attenuation ${probeAttenuation} is not a factor from 1 to ${MAX_PROBE} (1x, 10x, 100x)`,
+    );
+  }
   if (nextNonBlank(lines, 0) === -1) {
     throw new CaptureError("empty", Math.max(1, lines.length), "the file is empty");
   }
@@ -146,11 +166,14 @@ export function detectLayout(lines: string[], voltageColumn: number): Layout {
 
   const columns: CaptureColumn[] = [];
   const scales: number[] = [];
+  const headerUnit = info.vertical.unit;
+  const ownUnits: string[] = [];
   let timeIndex = -1;
   for (let c = 0; c < k; c++) {
     const split = names ? splitNameUnit(names[c]) : { name: `column ${c + 1}`, unit: "" };
     const unit = units ? units[c] || split.unit : split.unit;
     const name = split.name || `column ${c + 1}`;
+    ownUnits.push(unit);
     const ts = timeScale(unit);
     const vs = voltScale(unit);
     if (timeIndex === -1 && (ts !== undefined || (unit === "" && TIME_NAME.test(name)))) {
@@ -158,8 +181,10 @@ export function detectLayout(lines: string[], voltageColumn: number): Layout {
       columns.push({ name, unit, role: "time" });
       scales.push(ts ?? 1);
     } else if (vs !== undefined || (unit === "" && !TIME_NAME.test(name))) {
-      columns.push({ name, unit, role: "voltage" });
-      scales.push(vs ?? 1);
+      // A column without its own unit takes the header's vertical unit.
+      const applied = vs === undefined && headerUnit !== null ? headerUnit : unit;
+      columns.push({ name, unit: applied, role: "voltage" });
+      scales.push(voltScale(applied) ?? 1);
     } else {
       columns.push({ name, unit, role: "other" });
       scales.push(1);
@@ -218,8 +243,31 @@ export function detectLayout(lines: string[], voltageColumn: number): Layout {
     );
   }
   if (!Number.isInteger(voltageColumn) || voltageColumn < 0 || voltageColumn >= candidates.length) {
-    throw new RangeError(`voltageColumn ${voltageColumn} out of range: the capture has ${candidates.length}`);
+    const names = candidates.map((i, n) => `${n + 1} "${columns[i].name}"`).join(", ");
+    throw new CaptureError(
+      "bad-choice",
+      null,
+      `there is no channel ${voltageColumn + 1}: the capture has ${candidates.length} voltage column(s) (${names})`,
+    );
   }
+  const measuredIndex = candidates[voltageColumn];
+  const measured = columns[measuredIndex];
+  const ownUnit = ownUnits[measuredIndex];
+  const unitScale = scales[measuredIndex];
+  const scale = info.vertical.scale ?? 1;
+  const offsetV = info.vertical.offsetV ?? 0;
+  const probe = probeAttenuation ?? 1;
+  const scaling: CaptureScaling = {
+    voltageColumn,
+    voltageColumns: candidates.length,
+    unit: measured.unit,
+    unitFrom: voltScale(ownUnit) !== undefined ? "column" : measured.unit !== "" ? "header" : "none",
+    unitScale,
+    scale,
+    offsetV,
+    probe,
+    headerProbe: info.vertical.probe,
+  };
   return {
     delimiter,
     decimalComma,
@@ -228,7 +276,10 @@ export function detectLayout(lines: string[], voltageColumn: number): Layout {
     columns,
     scales,
     timeIndex,
-    measuredIndex: candidates[voltageColumn],
+    measuredIndex,
+    measuredScale: unitScale * scale * probe,
+    measuredOffset: offsetV * probe,
+    scaling,
     sampleIntervalS: timeIndex === -1 ? info.sampleIntervalS : null,
     startS: info.startS,
     header: info.entries,

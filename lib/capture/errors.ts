@@ -14,7 +14,8 @@ export type CaptureErrorCode =
   | "not-a-number" // a value that does not read as a finite number
   | "non-monotonic-time" // time goes backwards, or never advances
   | "flat" // the measured trace has one level only
-  | "no-period"; // fewer than two rising 50 % crossings
+  | "no-period" // fewer than two rising 50 % crossings
+  | "bad-choice"; // a channel or probe attenuation the capture cannot have
 
 export class CaptureError extends Error {
   readonly code: CaptureErrorCode;

@@ -8,3 +8,11 @@ export { measureCsv, measureTrace, MAX_EDGES } from "./measure";
 export { measureRamp, standoffRatio, type RampMeasurement } from "./ramp";
 export { decimateEnvelope, PLOT_POINTS } from "./decimate";
 export type * from "./types";
+export {
+  choiceOf,
+  choiceOptions,
+  readChoice,
+  MAX_CHANNEL,
+  PROBE_CHOICES,
+  type CaptureChoice,
+} from "./choice";

@@ -83,7 +83,7 @@ class RowReader {
     }
     if (this.firstLine === 0) this.firstLine = lineNo;
     if (timeIndex >= 0) this.pushTime(tRaw * this.layout.scales[timeIndex], lineNo);
-    this.v.push(vRaw * this.layout.scales[measuredIndex]);
+    this.v.push(vRaw * this.layout.measuredScale + this.layout.measuredOffset);
   }
 
   /** The last field without trailing empty fields; more values are an error. */
@@ -170,6 +170,7 @@ class RowReader {
       measuredColumn: layout.measuredIndex,
       header: layout.header,
       firstDataLine: this.firstLine,
+      scaling: layout.scaling,
       warnings,
     };
   }
@@ -184,7 +185,10 @@ export async function parseCapture(
   const window: string[] = [];
   let reader: RowReader | null = null;
   const startRows = (): RowReader => {
-    const layout = detectLayout(window, options.voltageColumn ?? 0);
+    const layout = detectLayout(window, {
+      voltageColumn: options.voltageColumn ?? 0,
+      probeAttenuation: options.probeAttenuation,
+    });
     const r = new RowReader(layout);
     for (let i = layout.dataStart; i < window.length; i++) {
       r.row(window[i], 0, window[i].length, i + 1);

@@ -54,6 +54,29 @@ export interface CaptureOptions {
   maxBytes?: number;
   /** Which voltage column to measure, 0-based among voltage columns; default 0. */
   voltageColumn?: number;
+  /** Probe attenuation the scope did not apply (a 10x probe on a channel
+   *  set to 1x): values are multiplied by it. Default 1. A header's "Probe"
+   *  line says what the scope already applied and is not applied again. */
+  probeAttenuation?: number;
+}
+
+/** How the measured column's numbers became volts at the probe tip:
+ *  V = (raw × unitScale × scale + offsetV) × probe. */
+export interface CaptureScaling {
+  /** 0-based among the voltage columns, and how many there are. */
+  voltageColumn: number;
+  voltageColumns: number;
+  /** The unit applied and where it came from ("column" header, a "header" line, or "none": volts assumed). */
+  unit: string;
+  unitFrom: "column" | "header" | "none";
+  unitScale: number;
+  /** Header scale factor and offset (1 and 0 when none). */
+  scale: number;
+  offsetV: number;
+  /** Factor applied here (the user's choice; 1 when none). */
+  probe: number;
+  /** The probe the file says the scope applied (already in the values), or null. */
+  headerProbe: number | null;
 }
 
 /** A parsed trace: time and the chosen voltage column only. */
@@ -66,6 +89,8 @@ export interface CaptureTrace {
   header: HeaderEntry[];
   /** Line of the file holding the first sample. */
   firstDataLine: number;
+  /** Absent on traces built by hand (tests). */
+  scaling?: CaptureScaling;
   warnings: CaptureWarning[];
 }
 
@@ -81,6 +106,8 @@ export interface CaptureMeasurement {
   durationS: number;
   columns: CaptureColumn[];
   measuredColumn: number;
+  /** Absent on measurements stored before units, scale and probe were read. */
+  scaling?: CaptureScaling;
   header: HeaderEntry[];
   /** State levels by the histogram method. */
   lowLevelV: number;

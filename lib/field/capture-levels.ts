@@ -119,6 +119,12 @@ export async function storeLevels(tx: Tx, rows: LevelRow[]): Promise<void> {
       .onConflictDoNothing();
 }
 
+/** Drops a capture's levels and stores new ones (measured again with another channel or probe). */
+export async function replaceLevels(tx: Tx, captureId: number, rows: LevelRow[]): Promise<void> {
+  await tx.delete(captureLevels).where(eq(captureLevels.captureId, captureId));
+  await storeLevels(tx, rows);
+}
+
 export async function hasLevels(captureId: number): Promise<boolean> {
   const [row] = await db
     .select({ level: captureLevels.level })

@@ -6,7 +6,7 @@ import { db } from "@/db/client";
 import { ApiError } from "@/lib/api/errors";
 import { captures, fieldChecks, retrofits, stages, users } from "@/db/schema";
 import { recordAudit } from "@/lib/audit";
-import { parseCapture, type CaptureTrace } from "@/lib/capture";
+import { parseCapture, type CaptureOptions, type CaptureTrace } from "@/lib/capture";
 import { buildLevels, storeLevels } from "./capture-levels";
 import { checkCaptureQuota } from "./capture-quotas";
 import type { AuthUser } from "@/lib/auth/guard";
@@ -59,12 +59,16 @@ function toView(r: CaptureRow): CaptureView {
 }
 
 /** The samples of stored content, for captures whose levels were not made at upload. */
-export async function traceOf(content: Buffer): Promise<Pick<CaptureTrace, "t" | "v">> {
+/** Parses a stored file again, with the channel and probe the capture is measured with. */
+export async function traceOf(
+  content: Buffer,
+  options: Omit<CaptureOptions, "maxBytes"> = {},
+): Promise<CaptureTrace> {
   return parseCapture(
     (async function* () {
       yield content;
     })(),
-    { maxBytes: content.length + 1 },
+    { ...options, maxBytes: content.length + 1 },
   );
 }
 

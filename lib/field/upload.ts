@@ -10,6 +10,7 @@ import {
   measureTrace,
   parseCapture,
   type CaptureMeasurement,
+  type CaptureOptions,
   type CaptureTrace,
 } from "@/lib/capture";
 import { boundaryOf, multipartFile } from "./multipart";
@@ -71,6 +72,12 @@ export type MeasuredUpload = {
   trace: Pick<CaptureTrace, "t" | "v">;
 };
 
+/** A channel or probe the file cannot have: 422 naming the form field. */
+export function choiceError(e: CaptureError): ApiError {
+  const text = `${e.message.charAt(0).toUpperCase()}${e.message.slice(1)}.`;
+  return new ApiError("unprocessable", text, { [/probe/.test(e.message) ? "probe" : "channel"]: text });
+}
+
 /** The name as sent, without folders, line breaks, controls or bidi controls; quotes are kept. */
 export function cleanName(raw: string | null | undefined): string {
   const base = (raw ?? "").split(/[\\/]/).pop() ?? "";
@@ -80,7 +87,11 @@ export function cleanName(raw: string | null | undefined): string {
 
 /** Measures and collects an upload: multipart/form-data (part "file") or a raw
  *  text body. Throws ApiError 413/422/400; nothing is stored here. */
-export async function readCaptureUpload(req: Request, maxBytes: number): Promise<MeasuredUpload> {
+export async function readCaptureUpload(
+  req: Request,
+  maxBytes: number,
+  options: CaptureOptions = {},
+): Promise<MeasuredUpload> {
   const type = req.headers.get("content-type") ?? "";
   const multipart = /^multipart\/form-data/i.test(type);
   const declared = Number(req.headers.get("content-length") ?? NaN);
@@ -118,11 +129,12 @@ export async function readCaptureUpload(req: Request, maxBytes: number): Promise
   let measurement: CaptureMeasurement;
   let trace: CaptureTrace;
   try {
-    trace = await parseCapture(tee(), { maxBytes });
+    trace = await parseCapture(tee(), { ...options, maxBytes });
     measurement = measureTrace(trace);
   } catch (e) {
     if (e instanceof CaptureError) {
       if (e.code === "too-large") throw tooLarge(maxBytes, e.line);
+      if (e.code === "bad-choice") throw choiceError(e);
       throw new ApiError(
         "unprocessable",
         `${e.message.replace(/\.$/, "")}. Check the export settings (CSV or TSV, time and voltage columns).`,

@@ -412,6 +412,17 @@ export const ROUTES: RouteEntry[] = [
   },
   {
     method: "POST",
+    pattern: "/api/v1/captures/[id]/measurement",
+    allowed: CAPTURE,
+    input: "json",
+    build: async (w, as) => {
+      // A technician re-measures an own upload; engineers and admins any capture.
+      const capture = await makeCapture(w.retrofitId, actingId(w, as));
+      return { path: `/api/v1/captures/${capture}/measurement`, json: { channel: 1, probe: 10 } };
+    },
+  },
+  {
+    method: "POST",
     pattern: "/api/v1/captures/[id]/use-as-stage",
     allowed: EDIT,
     input: "json",

@@ -5,14 +5,16 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { DeleteCapture } from "@/components/capture/delete-capture";
+import { MeasureAgain } from "@/components/capture/measure-again";
 import { MeasurementTable } from "@/components/capture/measurement-table";
-import { TracePlot } from "@/components/capture/trace-plot";
+import { LazyTracePlot as TracePlot } from "@/components/capture/lazy-trace-plot";
 import { UseAsStage } from "@/components/capture/use-as-stage";
 import { CopySha } from "@/components/field/copy-sha";
 import { NotAllowed } from "@/components/ui/not-allowed";
 import { pageUser } from "@/lib/auth/page";
-import { ANY, EDIT } from "@/lib/auth/roles";
+import { ANY, CAPTURE, EDIT } from "@/lib/auth/roles";
 import { captureView, loadReadableCapture } from "@/lib/field/captures";
+import { stageRetrofits } from "@/lib/field/stage-retrofits";
 
 export const metadata: Metadata = { title: "Capture" };
 
@@ -24,6 +26,10 @@ export default async function CapturePage({ params }: { params: Promise<{ id: st
   const row = await loadReadableCapture({ id: Number(raw), user }).catch(() => null);
   if (!row) notFound();
   const c = captureView(row);
+  const canEdit = EDIT.includes(user.role);
+  // Technicians choose channel and probe on their own uploads (the route's rule).
+  const canChoose = canEdit || (CAPTURE.includes(user.role) && c.uploadedBy.id === user.id);
+  const choices = canEdit ? await stageRetrofits(c.retrofitId) : [];
   return (
     <div className="flex flex-col gap-4">
       <header>
@@ -42,12 +48,21 @@ export default async function CapturePage({ params }: { params: Promise<{ id: st
       <section className="panel">
         <MeasurementTable m={c.measurement} />
       </section>
-      <section className="panel">
-        <TracePlot captureId={c.id} />
-      </section>
-      {EDIT.includes(user.role) && (
+      {canChoose && (
         <section className="panel">
-          <UseAsStage captureId={c.id} retrofitId={c.retrofitId} />
+          <MeasureAgain captureId={c.id} m={c.measurement} />
+        </section>
+      )}
+      <section className="panel">
+        {/* Keyed by the choice so a new measurement fetches its own trace. */}
+        <TracePlot
+          key={`${c.measurement.scaling?.voltageColumn ?? 0}-${c.measurement.scaling?.probe ?? 1}`}
+          captureId={c.id}
+        />
+      </section>
+      {canEdit && (
+        <section className="panel">
+          <UseAsStage captureId={c.id} retrofitId={c.retrofitId} choices={choices} />
         </section>
       )}
       {(user.role === "admin" || c.uploadedBy.id === user.id) && (

@@ -44,7 +44,8 @@ export function Markdown({ source }: { source: string }) {
       while (i < lines.length && lines[i].trim().startsWith("|")) rows.push(lines[i++]);
       const [head, , ...body] = rows;
       out.push(
-        <div key={i} className="overflow-x-auto">
+        // Focusable so keyboard users can scroll a wide table (axe scrollable-region-focusable).
+        <div key={i} className="overflow-x-auto" tabIndex={0} role="region" aria-label="Table">
           <table className="table-dense my-2">
             <thead>
               <tr>

@@ -8,7 +8,7 @@ const ppm = (v: number) => formatPpm(v, 3);
 
 export function PlanSummary({ plans }: { plans: StoredPlan[] }) {
   return (
-    <section aria-labelledby="plans-title" className="panel overflow-x-auto">
+    <section aria-labelledby="plans-title" className="panel overflow-x-auto" tabIndex={0}>
       <h2 id="plans-title" className="mb-2 font-semibold">
         Plans
       </h2>

@@ -1,7 +1,9 @@
 // POST: upload a scope capture (multipart "file" or a raw CSV/TSV body),
-// measured while it streams in and stored only once the measurement succeeds.
+// measured while it streams in and stored only once the measurement succeeds;
+// ?channel=N (1-based voltage column) and ?probe=1|10|100 choose what is measured.
 // GET: captures the caller may read, optionally of one retrofit.
 import { ApiError } from "@/lib/api/errors";
+import { choiceOptions, readChoice } from "@/lib/capture";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { recordAudit } from "@/lib/audit";
 import { requireUser } from "@/lib/auth/guard";
@@ -21,6 +23,9 @@ export const POST = apiRoute(
   async (req) => {
     const retrofitId = retrofitParam(req);
     const user = await requireUser({ roles: CAPTURE, req });
+    const q = new URL(req.url).searchParams;
+    const choice = readChoice({ channel: q.get("channel"), probe: q.get("probe") });
+    if (!choice.ok) throw new ApiError("bad_request", Object.values(choice.fields).join(" "), choice.fields);
     if (retrofitId !== null) {
       const retrofit = await getRetrofit({ id: retrofitId });
       const visible =
@@ -37,7 +42,7 @@ export const POST = apiRoute(
       retrofitId,
       bytes: raw && Number.isFinite(declared) ? declared : 0,
     });
-    const upload = await readCaptureUpload(req, env().CAPTURE_MAX_BYTES);
+    const upload = await readCaptureUpload(req, env().CAPTURE_MAX_BYTES, choiceOptions(choice.choice));
     const id = await insertCapture({
       retrofitId,
       uploadedBy: user.id,

@@ -9,7 +9,7 @@ import { plainNumber } from "@/lib/validation/plain-number";
 import { apiRoute, parseId } from "@/lib/api/route";
 import { requireUser } from "@/lib/auth/guard";
 import { ANY } from "@/lib/auth/roles";
-import type { CaptureMeasurement } from "@/lib/capture";
+import { choiceOf, choiceOptions, type CaptureMeasurement } from "@/lib/capture";
 import { db } from "@/db/client";
 import { getCaptureContent, loadReadableCapture, traceOf } from "@/lib/field/captures";
 import { buildLevels, hasLevels, readWindow, storeLevels } from "@/lib/field/capture-levels";
@@ -22,11 +22,12 @@ const windowSchema = z
   })
   .refine((w) => w.toS > w.fromS, { message: "toS must be later than fromS", path: ["toS"] });
 
-async function ensureLevels(id: number): Promise<void> {
+async function ensureLevels(id: number, m: CaptureMeasurement): Promise<void> {
   if (await hasLevels(id)) return;
   const content = await getCaptureContent({ id });
   if (!content) throw new ApiError("not_found", "Capture was not found.");
-  const trace = await traceOf(content);
+  // The channel and probe the measurement was made with.
+  const trace = await traceOf(content, choiceOptions(choiceOf(m)));
   await db.transaction((tx) => storeLevels(tx, buildLevels(id, trace.t, trace.v)));
 }
 
@@ -43,7 +44,7 @@ export const GET = apiRoute<{ id: string }>(async (req, ctx) => {
   let edges = m.edges;
   let window: CapturePlot["window"] = null;
   if (wanted) {
-    await ensureLevels(id);
+    await ensureLevels(id, m);
     const read = await readWindow(id, wanted.fromS, wanted.toS);
     points = read.points;
     edges = m.edges.filter((e) => e.tS >= wanted.fromS && e.tS <= wanted.toS);
