@@ -18,7 +18,8 @@
 // - input set-up read back: ANSELA bits clear, TRISA bits set, WPUA bits set,
 //   OPTION_REG nWPUEN (bit 7) = 0 (DS40001441 I/O Ports chapter, Register
 //   OPTION_REG); RA2 stays the output.
-// Planted fault (kept as a negative case): position 1 read on RA0 instead of RA4.
+// Planted faults (kept as negative cases): position 1 read on RA0 instead of RA4;
+// the weak pull-ups left off.
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { buildBundleSources, type BundleFile } from "@/lib/bundle";
@@ -43,6 +44,13 @@ const planJson = JSON.parse(String(files.find((f) => f.path === "plan.json")!.co
 };
 const t = planJson.targets.find((x) => x.folder === "pic12f1840")!;
 const tcyPerCount = t.control.divider / 4;
+const MOVE = [
+  ...contact("porta4", "c1", [{ cycle: 200_000, level: 1 }]),
+  ...contact("porta1", "c3", [
+    { cycle: 2, level: 1 },
+    { cycle: 200_000, level: 0 },
+  ]),
+];
 const STORED = 1; // c = 100 nF, the stage's stored value: position 2
 // contacts in position order (selector-pic12f1840.ts): RA4, RA5, RA1
 const PIN = ["porta4", "porta5", "porta1"];
@@ -102,6 +110,21 @@ function judge(dir: string, setup: string[], index: number, fromCycle = 200_000)
   return out;
 }
 
+/** The contacts' input set-up read back after start-up (DS40001441 I/O Ports chapter). */
+function inputProblems(d: string): string[] {
+  const r = registersAt(d, 20_000, ["ANSELA", "TRISA", "WPUA", "OPTION_REG", "PORTA"]);
+  const mask = 0x32; // RA5, RA4, RA1
+  const out: string[] = [];
+  if ((r.ANSELA & mask) !== 0) out.push(`ANSELA ${r.ANSELA}: a contact pin is analog`);
+  if ((r.TRISA & mask) !== mask) out.push(`TRISA ${r.TRISA}: a contact pin is an output`);
+  if ((r.TRISA & 0x04) !== 0) out.push(`TRISA ${r.TRISA}: RA2 is not the output`);
+  if ((r.WPUA & mask) !== mask) out.push(`WPUA ${r.WPUA}: a contact pin has no pull-up`);
+  if ((r.OPTION_REG & 0x80) !== 0) out.push(`OPTION_REG ${r.OPTION_REG}: nWPUEN set, pull-ups off`);
+  // no contact closed: the pull-ups hold the three inputs high
+  if ((r.PORTA & mask) !== mask) out.push(`PORTA ${r.PORTA}: an open contact pin reads low`);
+  return out;
+}
+
 const dir = build();
 
 describe("PIC12F1840 keeps the selector switch (gpsim, contacts as stimuli)", () => {
@@ -116,15 +139,12 @@ describe("PIC12F1840 keeps the selector switch (gpsim, contacts as stimuli)", ()
   });
 
   it("inputs RA4, RA5, RA1: digital, input, weak pull-up on; RA2 the output", () => {
-    const r = registersAt(dir, 20_000, ["ANSELA", "TRISA", "WPUA", "OPTION_REG", "PORTA"]);
-    const mask = 0x32;
-    expect(r.ANSELA & mask).toBe(0);
-    expect(r.TRISA & mask).toBe(mask);
-    expect(r.TRISA & 0x04).toBe(0);
-    expect(r.WPUA & mask).toBe(mask);
-    expect(r.OPTION_REG & 0x80).toBe(0);
-    // no contact closed: the pull-ups hold the three inputs high
-    expect(r.PORTA & mask).toBe(mask);
+    expect(inputProblems(dir)).toEqual([]);
+  });
+
+  it("planted fault: the weak pull-ups left off (nWPUEN not cleared) is caught", () => {
+    const bad = build((inc) => inc.replace(/\n\s+bcf\s+OPTION_REG, NOT_WPUEN/, ""));
+    expect(inputProblems(bad).join("; ")).toMatch(/OPTION_REG/);
   });
 
   for (const k of [0, 1, 2])
@@ -137,15 +157,11 @@ describe("PIC12F1840 keeps the selector switch (gpsim, contacts as stimuli)", ()
     expect(judge(dir, [...contact(PIN[0], "c1"), ...contact(PIN[2], "c3")], STORED)).toEqual([]);
   });
 
-  it("a move from position 1 to 3, and a release keeps the last position", () => {
-    const move = [
-      ...contact(PIN[0], "c1", [{ cycle: 200_000, level: 1 }]),
-      ...contact(PIN[2], "c3", [
-        { cycle: 2, level: 1 },
-        { cycle: 200_000, level: 0 },
-      ]),
-    ];
+  it("a move from position 1 to 3 (held through the 20 ms debounce), and a release keeps the last position", () => {
+    const move = MOVE;
     expect(judge(dir, move, 0, 120_000)).toEqual([]);
+    // 3.75 ms after the move (16 MHz: 4000 instruction cycles a ms), inside the debounce: still position 1
+    expect(judge(dir, move, 0, 215_000)).toEqual([]);
     expect(judge(dir, move, 2, 340_000)).toEqual([]);
     const release = contact(PIN[0], "c1", [{ cycle: 200_000, level: 1 }]);
     expect(judge(dir, release, 0, 340_000)).toEqual([]);
@@ -160,5 +176,10 @@ describe("PIC12F1840 keeps the selector switch (gpsim, contacts as stimuli)", ()
   it("planted fault: position 1 read on RA0 instead of RA4 is caught", () => {
     const bad = build((inc) => inc.replace(/btfss\s+sel_low, 4(\s+; position 1)/, "btfss   sel_low, 0$1"));
     expect(judge(bad, contact(PIN[0], "c1"), 0).length).toBeGreaterThan(0);
+  });
+
+  it("planted fault: no debounce (a reading taken after one sample) is caught inside the 20 ms", () => {
+    const bad = build((inc) => inc.replace(/movlw\s+20(\n\s+movwf\s+sel_cnt)/, "movlw   1$1"));
+    expect(judge(bad, MOVE, 0, 215_000).length).toBeGreaterThan(0);
   });
 });
