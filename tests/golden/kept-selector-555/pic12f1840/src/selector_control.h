@@ -59,7 +59,8 @@ static void sel_apply(uint8_t i)
   PR2 = sel_pr2[i];
 }
 
-/* About 1 ms: 1333 turns of a 3-cycle loop, as in the assembly. */
+/* At least 1 ms: the assembly's 1333 turns; a compiled turn takes 3 cycles or more,
+ * so the C build's debounce may run longer (only the assembly image is timed in gpsim). */
 static void sel_ms(void)
 {
   for (volatile uint16_t n = 1333u; n; n--) {
