@@ -35,6 +35,7 @@ import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import { renderRp2040Selector, rp2040SelectorWiring } from "./selector-rp2040";
 import { renderStm32g031Selector, stm32g031SelectorWiring } from "./selector-stm32g031";
 import { msp430g2553SelectorWiring, renderMsp430g2553Selector } from "./selector-msp430g2553";
+import { pic12f1840SelectorWiring, renderPic12f1840Selector } from "./selector-pic12f1840";
 import { ppm } from "./format";
 import type { BundleSpec, BundleTargetRequest } from "./types";
 import { TRIM_DEVICES, type TrimmerSummary } from "./trim-control";
@@ -295,6 +296,18 @@ const SELECTOR_DEVICES: Record<string, SelectorDevice> = {
       },
     ],
   },
+  pic12f1840: {
+    timer: "TIMER2",
+    wiring: pic12f1840SelectorWiring,
+    // the image's assembly part (main.asm includes it) and the same steps in C (main.c includes it)
+    part: (table, startIndex, controlText) => {
+      const { asm, c } = renderPic12f1840Selector({ table, startIndex, controlText });
+      return [
+        { path: "src/selector_control.inc", content: asm },
+        { path: "src/selector_control.h", content: c },
+      ];
+    },
+  },
   rp2040: {
     wiring: rp2040SelectorWiring,
     // a header main.c includes (main.c.hbs, `selector`)
@@ -349,7 +362,21 @@ function selectorOnTarget(
     minS: p.periodS - widen(p.periodS),
     maxS: p.periodS + widen(p.periodS),
   }));
-  const files = dev.part(table, startIndex, describe(c));
+  let files: { path: string; content: string }[];
+  try {
+    files = dev.part(table, startIndex, describe(c));
+  } catch (e) {
+    if (!isEngineError(e)) throw e;
+    // the part's own limits (pins, clock): control.* stays, a target field is named under targets.<i>
+    const field = e.field?.startsWith("control.")
+      ? e.field
+      : `targets.${index}${e.field ? `.${e.field}` : ""}`;
+    throw new EngineError(
+      e.code,
+      `target ${index + 1} (${request.device}) cannot keep the selector: ${e.message}`,
+      field,
+    );
+  }
   return {
     kept: true,
     control: {

@@ -117,6 +117,7 @@ export const GOLDEN_CASES: GoldenCase[] = [
         { device: "rp2040", clockHz: 12e6, clockSource: "xosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
         { device: "msp430g2553", clockHz: 1e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
         { device: "stm32g031", clockHz: 16e6, periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm" },
+        { device: "pic12f1840", clockHz: 16e6, clockSource: "hfintosc", periodS: 1.4556e-3, highS: 7.624e-4, mode: "pwm", timer: "TIMER2" },
       ],
     },
   },

@@ -49,15 +49,39 @@ describe("kept rate pot in the bundle", () => {
     expect(plan.targets[5].control).toMatchObject({ steps: 64 });
   });
 
-  it("a control that no target reads on an ADC keeps the fixed value and says so", () => {
-    const trim = buildBundleSources({
+  it("a selector is read on the PIC12F1840 too: pin map rows RA4/RA5, one checklist line per position", () => {
+    const sel = buildBundleSources({
       ...spec,
       control: { kind: "selector", field: "c", values: [100e-9, 220e-9] },
     });
-    // the PIC12F1840 reads no selector (the other five do, tests/unit/firmware/selector-*)
-    const cl = String(trim.find((f) => f.path === "pic12f1840/CHECKLIST.md")!.content);
-    expect(cl).toMatch(/is not carried over by this firmware/);
-    expect(trim.some((f) => f.path.endsWith("adc_control.h"))).toBe(false);
+    const read = (p: string) => String(sel.find((f) => f.path === p)!.content);
+    expect(read("pic12f1840/CHECKLIST.md")).not.toMatch(/is not carried over by this firmware/);
+    expect(read("pic12f1840/CHECKLIST.md")).toMatch(/Turn the selector to position 2 \(c = 220/);
+    expect(read("pic12f1840/PINMAP.md")).toMatch(/switch position 1 .*\| RA4 \| 3 /); // 8-pin package pin 3 = RA4 (from memory)
+    expect(read("pic12f1840/PINMAP.md")).toMatch(/switch position 2 .*\| RA5 \| 2 /);
+    expect(read("pic12f1840/src/main.asm")).toContain('#include "selector_control.inc"');
+    expect(sel.some((f) => f.path.endsWith("adc_control.h"))).toBe(false);
+  });
+
+  it("the PIC12F1840 refuses a fifth selector position naming control.values, and a crystal naming the target's clock", () => {
+    // five free inputs do not exist on the 6-pin port: RA2 output, RA3 MCLR (DS40001441 pin allocation table)
+    const five = { kind: "selector" as const, field: "c", values: [47e-9, 68e-9, 100e-9, 150e-9, 220e-9] };
+    const pic = spec.targets[5];
+    expect(pic.device).toBe("pic12f1840");
+    expect(() => buildBundleSources({ ...spec, control: five, targets: [pic] })).toThrow(
+      expect.objectContaining({
+        field: "control.values",
+        message: expect.stringMatching(/2 to 4 selector positions/),
+      }),
+    );
+    const crystal = {
+      ...spec,
+      control: { kind: "selector" as const, field: "c", values: [100e-9, 220e-9] },
+      targets: [{ ...pic, clockSource: "crystal", clockHz: 8e6 }],
+    };
+    expect(() => buildBundleSources(crystal)).toThrow(
+      expect.objectContaining({ field: "targets.0.clockSource", message: expect.stringMatching(/RA4\/RA5/) }),
+    );
   });
 
   it("pin map names supply, wiper, ground and filter capacitor", () => {
