@@ -366,14 +366,24 @@ function selectorOnTarget(
   try {
     files = dev.part(table, startIndex, describe(c));
   } catch (e) {
-    if (!isEngineError(e)) throw e;
-    // the part's own limits (pins, clock): control.* stays, a target field is named under targets.<i>
-    const field = e.field?.startsWith("control.")
+    // The part's own limits (pins, positions, clock): control.* stays, a target field is named under
+    // targets.<i>. The renderers state a plain "control.values: ..." or "targets: ..." limit as an Error;
+    // it is bad input too (a 4xx naming the field), never a server error.
+    const plain =
+      !isEngineError(e) && e instanceof Error ? /^(control(?:\.\w+)?|targets):\s*/.exec(e.message) : null;
+    if (!isEngineError(e) && !plain) throw e;
+    const named = isEngineError(e)
       ? e.field
-      : `targets.${index}${e.field ? `.${e.field}` : ""}`;
+      : plain![1] === "targets"
+        ? undefined
+        : plain![1] === "control"
+          ? "control.values"
+          : plain![1];
+    const message = isEngineError(e) ? e.message : (e as Error).message.slice(plain![0].length);
+    const field = named?.startsWith("control.") ? named : `targets.${index}${named ? `.${named}` : ""}`;
     throw new EngineError(
-      e.code,
-      `target ${index + 1} (${request.device}) cannot keep the selector: ${e.message}`,
+      isEngineError(e) ? e.code : "invalid-request",
+      `target ${index + 1} (${request.device}) cannot keep the selector: ${message}`,
       field,
     );
   }

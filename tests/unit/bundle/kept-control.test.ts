@@ -84,6 +84,31 @@ describe("kept rate pot in the bundle", () => {
     );
   });
 
+  it("every device refuses more selector positions than it has input pins: an engine error naming control.values", () => {
+    // Pins per device as each part states them (its pin map rows); eight positions fit none of them.
+    const eight = {
+      kind: "selector" as const,
+      field: "c",
+      values: [22e-9, 33e-9, 47e-9, 68e-9, 100e-9, 150e-9, 220e-9, 330e-9],
+    };
+    for (const t of spec.targets) {
+      let caught: unknown;
+      try {
+        buildBundleSources({ ...spec, control: eight, targets: [t] });
+      } catch (e) {
+        caught = e;
+      }
+      expect(caught, t.device).toMatchObject({
+        name: "EngineError",
+        code: "invalid-request",
+        field: "control.values",
+        message: expect.stringMatching(
+          new RegExp(`target 1 \\(${t.device}\\) cannot keep the selector: .*2 to \\d`),
+        ),
+      });
+    }
+  });
+
   it("pin map names supply, wiper, ground and filter capacitor", () => {
     const pm = text("atmega328p/PINMAP.md");
     for (const role of ["supply (pot top)", "wiper", "ground (pot bottom)", "filter capacitor"])
