@@ -5,30 +5,9 @@
 // and the target's counts and registers, and nothing else.
 import { describe, expect, it } from "vitest";
 import { changedNumbers, formatValue } from "@/lib/diff";
-import { analyzeStage, planTarget } from "@/lib/engine";
+import { astableSnapshot } from "./astable-snapshot";
 
-function snapshot(rb: number) {
-  const stage = { kind: "timer555-astable" as const, supplyV: 12, ra: 1e3, rb, c: 1e-6 };
-  const analysis = analyzeStage(stage);
-  const plan = planTarget({
-    device: "atmega328p",
-    clockHz: 16e6,
-    periodS: analysis.periodS,
-    highS: analysis.highS,
-    mode: "pwm",
-  });
-  // Stored shape of revisions.plans (lib/revisions/types.ts StoredPlan).
-  const target = {
-    device: "atmega328p",
-    clockSource: "crystal",
-    clockHz: 16e6,
-    clockAccuracyPpm: null,
-    mode: "pwm",
-    timer: null,
-    requiredTolerancePct: 2,
-  };
-  return { spec: { stage, targets: [] }, analysis, plans: [{ target, plan, budget: null }] };
-}
+const snapshot = astableSnapshot;
 
 describe("changedNumbers", () => {
   it("lists nothing for identical revisions", () => {

@@ -7,30 +7,10 @@
 // ICR1, OCR1A sets the high time), so ICR1 and OCR1A change with RB.
 import { describe, expect, it } from "vitest";
 import { changedNumbers } from "@/lib/diff";
-import { analyzeStage, planTarget } from "@/lib/engine";
+import { astableSnapshot } from "../diff/astable-snapshot";
 import { anchorKeyOfNumber, revisionAnchors } from "@/lib/review/anchors";
 
-function snapshot(rb: number) {
-  const stage = { kind: "timer555-astable" as const, supplyV: 12, ra: 1e3, rb, c: 1e-6 };
-  const analysis = analyzeStage(stage);
-  const plan = planTarget({
-    device: "atmega328p",
-    clockHz: 16e6,
-    periodS: analysis.periodS,
-    highS: analysis.highS,
-    mode: "pwm",
-  });
-  const target = {
-    device: "atmega328p",
-    clockSource: "crystal",
-    clockHz: 16e6,
-    clockAccuracyPpm: null,
-    mode: "pwm",
-    timer: null,
-    requiredTolerancePct: 2,
-  };
-  return { spec: { stage, targets: [] }, analysis, plans: [{ target, plan, budget: null }] };
-}
+const snapshot = astableSnapshot;
 
 describe("comment anchors of changed-number rows", () => {
   const a = snapshot(10e3);
