@@ -21,6 +21,7 @@ import {
   traceOf,
 } from "@/lib/field/captures";
 import { choiceError } from "@/lib/field/upload";
+import { readPlainNumber } from "@/lib/validation/plain-number";
 
 export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
   const id = parseId((await ctx.params).id, "Capture");
@@ -34,7 +35,21 @@ export const POST = apiRoute<{ id: string }>(async (req, ctx) => {
       "bad_request",
       `Unknown field ${extra.map((k) => `"${k}"`).join(", ")}; send channel and probe.`,
     );
-  const read = readChoice(body as { channel?: unknown; probe?: unknown });
+  // Strict numbers (as every JSON number field): a list, a boolean or hex text is a 400 naming the field.
+  const raw = body as { channel?: unknown; probe?: unknown };
+  const notNumbers = Object.fromEntries(
+    (["channel", "probe"] as const)
+      .filter(
+        (k) => raw[k] !== undefined && raw[k] !== null && raw[k] !== "" && readPlainNumber(raw[k]) === null,
+      )
+      .map((k) => [
+        k,
+        `${k === "channel" ? "Channel" : "Probe attenuation"} is a plain number; got ${JSON.stringify(raw[k])}.`,
+      ]),
+  );
+  if (Object.keys(notNumbers).length > 0)
+    throw new ApiError("bad_request", Object.values(notNumbers).join(" "), notNumbers);
+  const read = readChoice(raw);
   if (!read.ok) throw new ApiError("unprocessable", Object.values(read.fields).join(" "), read.fields);
   const row = await loadReadableCapture({ id, user });
   // Technicians change only their own uploads; engineers and admins any they read.
