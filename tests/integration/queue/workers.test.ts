@@ -240,7 +240,11 @@ describe("a worker killed with SIGKILL during a generation", () => {
     const rescuer = await startWorker("rescuer", DB_URL);
     workers.push(rescuer);
     const outcome = await m.awaitBuild(revisionId, 540_000);
-    const job = await jobOf(jobId);
+    // The build commits before the queue marks its job completed: wait for that mark too.
+    const job = await pollUntil("the rescued job to be marked completed", 60_000, async () => {
+      const j = await jobOf(jobId);
+      return j && j.state !== "active" ? j : undefined;
+    });
 
     expect(outcome.buildState).toBe("ready");
     expect(job?.state).toBe("completed");
