@@ -10,19 +10,16 @@
 // between interrupts over 100 M. 120 M cycles (7.5 s emulated at 16 MHz, 15 s
 // at 8 MHz) stays inside the 30 s wall-clock cap, which still holds.
 // Server-only: runs gcc and the harness.
-import { execFile } from "node:child_process";
 import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { promisify } from "node:util";
 import { simavrHarnessBinary, simavrMissing } from "./harness/simavr-build";
+import { runTool } from "./harness/tool";
 import { parseVcd } from "./harness/vcd";
 import { judgeEdges, MIN_PERIODS, type PinEdge } from "./judge";
 import { driveSchedule, judgeTriggered, type DriveSchedule } from "./judge-trigger";
 import { DEFAULT_TIMEOUT_MS, emulatorsOff, notEmulated, runLengthS } from "./switches";
 import type { DeviceEmulator, EmulationInput, EmulationResult } from "./types";
-
-const run = promisify(execFile);
 
 /** simavr core names of the devices this wrapper runs. */
 const SIMAVR_CORES: Record<string, string> = { atmega328p: "atmega328p", attiny85: "attiny85" };
@@ -31,9 +28,9 @@ let toolName: Promise<string> | null = null;
 
 /** "simavr <version>" from the Debian package, else plain "libsimavr" (the library prints no version). */
 function simavrTool(): Promise<string> {
-  toolName ??= run("dpkg-query", ["-W", "-f", "${Version}", "libsimavr-dev"], { timeout: 10_000 })
-    .then(({ stdout }) => `simavr ${stdout.trim()}`)
-    .catch(() => "libsimavr");
+  toolName ??= runTool("dpkg-query", ["-W", "-f", "${Version}", "libsimavr-dev"], { timeoutMs: 10_000 }).then(
+    (r) => (r.status === 0 && !r.timedOut && r.stdout.trim() ? `simavr ${r.stdout.trim()}` : "libsimavr"),
+  );
   return toolName;
 }
 
@@ -91,21 +88,15 @@ export const emulateAvr: DeviceEmulator = async (input) => {
     const bit = input.planned.pin.slice(2);
     const cycles = Math.ceil(lengthS * clockHz);
     const core = SIMAVR_CORES[input.device];
-    let stdout = "";
-    try {
-      const args = drive
-        ? [core, String(clockHz), "image.hex", port, bit, ...driveArgs(input, drive, clockHz), String(cycles)]
-        : [core, String(clockHz), "image.hex", port, bit, String(cycles), "pin.vcd"];
-      ({ stdout } = await run(bin, args, { cwd: dir, timeout: timeoutMs, maxBuffer: 8 * 1024 * 1024 }));
-    } catch (e) {
-      const err = e as { killed?: boolean; signal?: string; stderr?: string; stdout?: string; code?: number };
-      if (err.killed || err.signal === "SIGTERM")
-        return notEmulated(`The simavr run did not finish within ${timeoutMs / 1000} s.`, tool);
-      // A crashed core (exit 7) is the image's fault: the pin's edges so far are judged below.
-      if (err.code !== 7)
-        return notEmulated(`simavr could not run the image: ${err.stderr?.trim() ?? ""}`, tool);
-      stdout = err.stdout ?? "";
-    }
+    const args = drive
+      ? [core, String(clockHz), "image.hex", port, bit, ...driveArgs(input, drive, clockHz), String(cycles)]
+      : [core, String(clockHz), "image.hex", port, bit, String(cycles), "pin.vcd"];
+    const r = await runTool(bin, args, { cwd: dir, timeoutMs, maxBuffer: 8 * 1024 * 1024 });
+    if (r.timedOut) return notEmulated(`The simavr run did not finish within ${timeoutMs / 1000} s.`, tool);
+    // A crashed core (exit 7) is the image's fault: the pin's edges so far are judged below.
+    if (r.status !== 0 && r.status !== 7)
+      return notEmulated(`simavr could not run the image: ${r.stderr.trim()}`, tool);
+    const stdout = r.stdout;
     const stepS = 1 / clockHz;
     if (drive) {
       const { ins, outs } = parseTriggerTrace(stdout, clockHz);

@@ -20,13 +20,15 @@ export function runTool(
   opts: { timeoutMs: number; cwd?: string; maxBuffer?: number },
 ): Promise<ToolRun> {
   return new Promise((resolve) => {
-    execFile(
+    // Our own cap, not execFile's `timeout`: when that fires between the child's exit and the end of
+    // its output, execFile cuts the output short and still reports a clean exit (seen under CI load
+    // as a judged run on half an output). Past the cap the run counts as stopped whatever it printed.
+    let capped = false;
+    const child = execFile(
       command,
       args,
       {
         cwd: opts.cwd,
-        timeout: opts.timeoutMs,
-        killSignal: "SIGKILL",
         maxBuffer: opts.maxBuffer ?? 64 * 1024 * 1024,
         encoding: "utf8",
         env: {
@@ -37,16 +39,21 @@ export function runTool(
         },
       },
       (error, stdout, stderr) => {
+        clearTimeout(timer);
         const e = error as (NodeJS.ErrnoException & { killed?: boolean; code?: string | number }) | null;
         resolve({
           status: e ? (typeof e.code === "number" ? e.code : null) : 0,
           stdout: String(stdout),
           stderr: String(stderr),
-          timedOut: !!e?.killed,
+          timedOut: capped,
           missing: e?.code === "ENOENT",
         });
       },
     );
+    const timer = setTimeout(() => {
+      capped = true;
+      child.kill("SIGKILL");
+    }, opts.timeoutMs);
   });
 }
 
