@@ -29,8 +29,8 @@ import {
   attiny85SelectorWiring,
   renderAtmega328pSelector,
   renderAttiny85Selector,
-  SELECTOR_DEBOUNCE_MS,
 } from "./selector-avr";
+import { SELECTOR_DEBOUNCE_MS } from "./selector-common";
 import { renderStm32g031Adc, STM32G031_POT_WIRING } from "./adc-stm32g031";
 import { renderRp2040Selector, rp2040SelectorWiring } from "./selector-rp2040";
 import { renderStm32g031Selector, stm32g031SelectorWiring } from "./selector-stm32g031";

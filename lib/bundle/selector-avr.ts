@@ -9,6 +9,14 @@
 // buffered). Package pins of PD2..PD7 on PDIP-28 from memory.
 import type { SelectorTable } from "@/lib/engine";
 import { render } from "./render";
+import {
+  checkPositionCount,
+  checkPositionCounts,
+  inputMask,
+  SELECTOR_DEBOUNCE_MS,
+  selectorWiringLines,
+  type WiringLine,
+} from "./selector-common";
 
 /** Input pins in position order: PD2..PD7 (PDIP-28 pins 4, 5, 6, 11, 12, 13; from memory). */
 const ATMEGA328P_SELECTOR_PINS = [
@@ -20,13 +28,6 @@ const ATMEGA328P_SELECTOR_PINS = [
   { bit: 7, packagePin: 13 },
 ] as const;
 
-/**
- * Debounce: a position is taken once the pins read the same for this many
- * 1 ms samples. Rotary and slide switches settle within a few milliseconds
- * (common practice, no source).
- */
-export const SELECTOR_DEBOUNCE_MS = 20;
-
 const TIMER1_CS: Record<number, string> = {
   1: "(1 << CS10)",
   8: "(1 << CS11)",
@@ -36,7 +37,6 @@ const TIMER1_CS: Record<number, string> = {
 };
 
 type SelectorPin = { readonly bit: number; readonly packagePin: number };
-type WiringLine = { role: string; pin: string; packagePin: number };
 
 /** One pin-map line per position (contact to a pulled-up pin) and the common contact to ground. */
 function selectorWiring(
@@ -46,15 +46,12 @@ function selectorWiring(
   pinList: readonly SelectorPin[],
   groundPackagePin: number,
 ): WiringLine[] {
-  const pins = pinList.slice(0, table.positions.length);
-  return [
-    ...table.positions.map((p, i) => ({
-      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up`,
-      pin: `${port}${pins[i].bit}`,
-      packagePin: pins[i].packagePin,
-    })),
-    { role: "switch common contact to ground", pin: "GND", packagePin: groundPackagePin },
-  ];
+  const inputs = pinList.map((p) => ({ name: `${port}${p.bit}`, packagePin: p.packagePin }));
+  return selectorWiringLines(table, valueText, inputs, "internal pull-up", {
+    role: "switch common contact to ground",
+    pin: "GND",
+    packagePin: groundPackagePin,
+  });
 }
 
 /** Template fields both AVR selector templates share: the input mask and TOP/OCR per position. */
@@ -64,11 +61,10 @@ function selectorFields(table: SelectorTable, pinList: readonly SelectorPin[], s
     debounceMs: SELECTOR_DEBOUNCE_MS,
     startIndex,
     noContactRule: table.noContactRule,
-    mask: `0x${pins
-      .reduce((m, p) => m | (1 << p.bit), 0)
-      .toString(16)
-      .toUpperCase()
-      .padStart(2, "0")}`,
+    mask: inputMask(
+      pins.map((p) => p.bit),
+      2,
+    ),
     positions: table.positions.map((p, i) => ({
       position: p.position,
       bit: pins[i].bit,
@@ -98,11 +94,7 @@ export function renderAtmega328pSelector({
   const plan = table.plan;
   if (plan.device !== "atmega328p" || plan.timer !== "TIMER1" || plan.mode !== "pwm")
     throw new Error("The selector firmware runs on ATmega328P Timer1 fast PWM plans.");
-  const n = table.positions.length;
-  if (n < 2 || n > ATMEGA328P_SELECTOR_PINS.length)
-    throw new Error(
-      `control.values: the ATmega328P reads 2 to ${ATMEGA328P_SELECTOR_PINS.length} positions (PD2..PD7).`,
-    );
+  checkPositionCount(table, ATMEGA328P_SELECTOR_PINS.length, "the ATmega328P", "PD2..PD7");
   if (plan.pin.port.startsWith("PD")) throw new Error(`targets: ${plan.pin.port} is a selector input.`);
   const cs = TIMER1_CS[plan.divider];
   if (!cs) throw new Error(`divider ${plan.divider} is not a Timer1 clock select.`);
@@ -145,14 +137,9 @@ export function renderAttiny85Selector({
   const plan = table.plan;
   if (plan.device !== "attiny85" || plan.timer !== "TIMER0" || plan.mode !== "pwm")
     throw new Error("The selector firmware runs on ATtiny85 Timer0 fast PWM plans.");
-  const n = table.positions.length;
-  if (n < 2 || n > ATTINY85_SELECTOR_PINS.length)
-    throw new Error(
-      `control.values: the ATtiny85 reads 2 to ${ATTINY85_SELECTOR_PINS.length} positions (PB0, PB2, PB3, PB4).`,
-    );
+  checkPositionCount(table, ATTINY85_SELECTOR_PINS.length, "the ATtiny85", "PB0, PB2, PB3, PB4");
   if (plan.pin.port !== "PB1") throw new Error("targets: the ATtiny85 selector firmware drives OC0B on PB1.");
-  for (const p of table.positions)
-    if (p.periodCounts > 256) throw new Error(`control: position ${p.position} needs more than 256 counts.`);
+  checkPositionCounts(table, 256);
   return render("attiny85/selector.c.hbs", {
     deviceName: "ATtiny85",
     controlText,

@@ -7,7 +7,14 @@
 // mode, ID). PDIP-20 package pins of P2.0..P2.5 (8..13) from memory.
 import type { SelectorTable } from "@/lib/engine";
 import { render } from "./render";
-import { SELECTOR_DEBOUNCE_MS } from "./selector-avr";
+import {
+  checkPositionCount,
+  checkPositionCounts,
+  inputMask,
+  SELECTOR_DEBOUNCE_MS,
+  selectorWiringLines,
+  type WiringLine,
+} from "./selector-common";
 import type { BundlePlan } from "./types";
 
 /** Input pins in position order: P2.0..P2.5 (PDIP-20 pins 8..13; from memory). */
@@ -16,20 +23,16 @@ const ID: Record<number, string> = { 1: "ID_0", 2: "ID_1", 4: "ID_2", 8: "ID_3" 
 /** MCLK when the timer runs from ACLK: the DCO's reset setting, about 1.1 MHz (MSP430G2x53 datasheet; from memory). */
 const DEFAULT_DCO_HZ = 1.1e6;
 
-type WiringLine = { role: string; pin: string; packagePin: number };
-
 export function msp430g2553SelectorWiring(
   table: SelectorTable,
   valueText: (v: number) => string,
 ): WiringLine[] {
-  return [
-    ...table.positions.map((p, i) => ({
-      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up (P2REN)`,
-      pin: `P2.${MSP430_SELECTOR_PINS[i].bit}`,
-      packagePin: MSP430_SELECTOR_PINS[i].packagePin,
-    })),
-    { role: "switch common contact to ground", pin: "DVSS", packagePin: 20 },
-  ];
+  const inputs = MSP430_SELECTOR_PINS.map((p) => ({ name: `P2.${p.bit}`, packagePin: p.packagePin }));
+  return selectorWiringLines(table, valueText, inputs, "internal pull-up (P2REN)", {
+    role: "switch common contact to ground",
+    pin: "DVSS",
+    packagePin: 20,
+  });
 }
 
 export function renderMsp430g2553Selector({
@@ -44,16 +47,10 @@ export function renderMsp430g2553Selector({
   const plan = table.plan as unknown as BundlePlan;
   if (plan.device !== "msp430g2553" || plan.mode !== "pwm" || plan.modeFactor !== 1)
     throw new Error("The selector part runs on MSP430G2553 Timer0_A3 PWM plans.");
-  const n = table.positions.length;
-  if (n < 2 || n > MSP430_SELECTOR_PINS.length)
-    throw new Error(
-      `control.values: the MSP430G2553 part reads 2 to ${MSP430_SELECTOR_PINS.length} positions (P2.0..P2.5).`,
-    );
+  const n = checkPositionCount(table, MSP430_SELECTOR_PINS.length, "the MSP430G2553 part", "P2.0..P2.5");
   const idName = ID[plan.divider];
   if (!idName) throw new Error(`divider ${plan.divider} is not a Timer_A input divider.`);
-  for (const p of table.positions)
-    if (p.periodCounts > 65536)
-      throw new Error(`control: position ${p.position} needs more than 65536 counts.`);
+  checkPositionCounts(table, 65536);
   const source = plan.clockSource ?? "dco-cal";
   const mclkHz = source === "dco-cal" ? plan.clockHz : DEFAULT_DCO_HZ;
   const pins = MSP430_SELECTOR_PINS.slice(0, n);
@@ -66,11 +63,10 @@ export function renderMsp430g2553Selector({
     idName,
     mclkHz,
     loopsPerMs: Math.max(1, Math.round(mclkHz / 1000 / 3)),
-    mask: `0x${pins
-      .reduce((m, p) => m | (1 << p.bit), 0)
-      .toString(16)
-      .toUpperCase()
-      .padStart(2, "0")}`,
+    mask: inputMask(
+      pins.map((p) => p.bit),
+      2,
+    ),
     positions: table.positions.map((p, i) => ({
       position: p.position,
       bit: pins[i].bit,

@@ -18,7 +18,7 @@
 import { EngineError, type SelectorTable } from "@/lib/engine";
 import { picConfig } from "./device-pic12f1840";
 import { render } from "./render";
-import { SELECTOR_DEBOUNCE_MS } from "./selector-avr";
+import { SELECTOR_DEBOUNCE_MS, selectorWiringLines, type WiringLine } from "./selector-common";
 import type { BundlePlan } from "./types";
 
 /** Inputs in position order (8-pin package pins from memory: RA4 3, RA5 2, RA1 6, RA0 7). */
@@ -40,24 +40,20 @@ const T2CKPS: Record<number, number> = { 1: 0, 4: 1, 16: 2, 64: 3 };
 /** Instruction cycles from TMR2IF seen to the PR2 write in sel_apply (counted from the .inc, as in adc-pic12f1840.ts). */
 const PR2_WRITE_CYCLES = 12;
 
-type WiringLine = { role: string; pin: string; packagePin: number };
-
 export function pic12f1840SelectorWiring(
   table: SelectorTable,
   valueText: (v: number) => string,
 ): WiringLine[] {
-  return [
-    ...table.positions.map((p, i) => ({
-      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, weak pull-up (WPUA)${PIC_SELECTOR_PINS[i].note}`,
-      pin: `RA${PIC_SELECTOR_PINS[i].bit}`,
-      packagePin: PIC_SELECTOR_PINS[i].packagePin,
-    })),
-    {
-      role: "switch common contact to ground (contacts on RA4 and RA5 first, then RA1, RA0: RA2 is the output, RA3 stays MCLR for reset and the programming voltage, RA0/RA1 carry ICSP programming)",
-      pin: "VSS",
-      packagePin: 8,
-    },
-  ];
+  const inputs = PIC_SELECTOR_PINS.map((p) => ({
+    name: `RA${p.bit}`,
+    packagePin: p.packagePin,
+    note: p.note,
+  }));
+  return selectorWiringLines(table, valueText, inputs, "weak pull-up (WPUA)", {
+    role: "switch common contact to ground (contacts on RA4 and RA5 first, then RA1, RA0: RA2 is the output, RA3 stays MCLR for reset and the programming voltage, RA0/RA1 carry ICSP programming)",
+    pin: "VSS",
+    packagePin: 8,
+  });
 }
 
 const hex2 = (v: number) => `0x${v.toString(16).toUpperCase().padStart(2, "0")}`;

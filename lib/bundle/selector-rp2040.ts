@@ -7,7 +7,14 @@
 // SIO GPIO_IN, PWM (TOP and CC double buffered). QFN-56 package pins from memory.
 import type { SelectorTable } from "@/lib/engine";
 import { render } from "./render";
-import { SELECTOR_DEBOUNCE_MS } from "./selector-avr";
+import {
+  checkPositionCount,
+  checkPositionCounts,
+  inputMask,
+  SELECTOR_DEBOUNCE_MS,
+  selectorWiringLines,
+  type WiringLine,
+} from "./selector-common";
 
 /** Input pins in position order: GPIO2..GPIO7 (QFN-56 pins 4..9; from memory). */
 const RP2040_SELECTOR_PINS = [
@@ -19,17 +26,13 @@ const RP2040_SELECTOR_PINS = [
   { gpio: 7, packagePin: 9 },
 ] as const;
 
-type WiringLine = { role: string; pin: string; packagePin: number };
-
 export function rp2040SelectorWiring(table: SelectorTable, valueText: (v: number) => string): WiringLine[] {
-  return [
-    ...table.positions.map((p, i) => ({
-      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, pad pull-up`,
-      pin: `GPIO${RP2040_SELECTOR_PINS[i].gpio}`,
-      packagePin: RP2040_SELECTOR_PINS[i].packagePin,
-    })),
-    { role: "switch common contact to ground", pin: "GND", packagePin: 57 },
-  ];
+  const inputs = RP2040_SELECTOR_PINS.map((p) => ({ name: `GPIO${p.gpio}`, packagePin: p.packagePin }));
+  return selectorWiringLines(table, valueText, inputs, "pad pull-up", {
+    role: "switch common contact to ground",
+    pin: "GND",
+    packagePin: 57,
+  });
 }
 
 export function renderRp2040Selector({
@@ -44,20 +47,14 @@ export function renderRp2040Selector({
   const plan = table.plan;
   if (plan.device !== "rp2040" || plan.mode !== "pwm" || plan.modeFactor !== 1)
     throw new Error("The selector part runs on RP2040 edge-aligned PWM plans.");
-  const n = table.positions.length;
-  if (n < 2 || n > RP2040_SELECTOR_PINS.length)
-    throw new Error(
-      `control.values: the RP2040 part reads 2 to ${RP2040_SELECTOR_PINS.length} positions (GPIO2..GPIO7).`,
-    );
+  const n = checkPositionCount(table, RP2040_SELECTOR_PINS.length, "the RP2040 part", "GPIO2..GPIO7");
   const gpio = plan.pin.gpio ?? Number(/\d+/.exec(plan.pin.port)?.[0]);
   const pins = RP2040_SELECTOR_PINS.slice(0, n);
   if (pins.some((p) => p.gpio === gpio)) throw new Error(`targets: GPIO${gpio} is a selector input.`);
   const div16 = Math.round(plan.divider * 16);
   if (Math.abs(div16 - plan.divider * 16) > 1e-9 || div16 < 16 || div16 > 4095)
     throw new Error(`divider ${plan.divider}: the PWM DIV register takes 1..255 in 1/16 steps.`);
-  for (const p of table.positions)
-    if (p.periodCounts > 65536)
-      throw new Error(`control: position ${p.position} needs more than 65536 counts.`);
+  checkPositionCounts(table, 65536);
   return render("rp2040/selector-control.h.hbs", {
     controlText,
     debounceMs: SELECTOR_DEBOUNCE_MS,
@@ -68,10 +65,10 @@ export function renderRp2040Selector({
     divider: plan.divider,
     divInt: Math.floor(div16 / 16),
     divFrac: div16 % 16,
-    mask: `0x${pins
-      .reduce((m, p) => m | (1 << p.gpio), 0)
-      .toString(16)
-      .toUpperCase()}`,
+    mask: inputMask(
+      pins.map((p) => p.gpio),
+      1,
+    ),
     positions: table.positions.map((p, i) => ({
       position: p.position,
       gpio: pins[i].gpio,

@@ -8,7 +8,12 @@
 import type { SelectorTable } from "@/lib/engine";
 import { stm32g031View } from "./device-stm32g031";
 import { render } from "./render";
-import { SELECTOR_DEBOUNCE_MS } from "./selector-avr";
+import {
+  checkPositionCount,
+  SELECTOR_DEBOUNCE_MS,
+  selectorWiringLines,
+  type WiringLine,
+} from "./selector-common";
 import type { BundlePlan } from "./types";
 
 /** Input pins in position order: PA5, PA6, PA7 (TSSOP-20 pins 11, 12, 13; from memory). */
@@ -18,20 +23,16 @@ const STM32_SELECTOR_PINS = [
   { bit: 7, packagePin: 13 },
 ] as const;
 
-type WiringLine = { role: string; pin: string; packagePin: number };
-
 export function stm32g031SelectorWiring(
   table: SelectorTable,
   valueText: (v: number) => string,
 ): WiringLine[] {
-  return [
-    ...table.positions.map((p, i) => ({
-      role: `switch position ${p.position} (${valueText(p.value)}): contact to this pin, internal pull-up (PUPDR)`,
-      pin: `PA${STM32_SELECTOR_PINS[i].bit}`,
-      packagePin: STM32_SELECTOR_PINS[i].packagePin,
-    })),
-    { role: "switch common contact to ground", pin: "VSS/VSSA", packagePin: 5 },
-  ];
+  const inputs = STM32_SELECTOR_PINS.map((p) => ({ name: `PA${p.bit}`, packagePin: p.packagePin }));
+  return selectorWiringLines(table, valueText, inputs, "internal pull-up (PUPDR)", {
+    role: "switch common contact to ground",
+    pin: "VSS/VSSA",
+    packagePin: 5,
+  });
 }
 
 export function renderStm32g031Selector({
@@ -46,11 +47,7 @@ export function renderStm32g031Selector({
   const plan = table.plan as unknown as BundlePlan;
   if (plan.device !== "stm32g031" || plan.mode !== "pwm" || plan.modeFactor !== 1)
     throw new Error("The selector part runs on STM32G031 edge-aligned PWM plans.");
-  const n = table.positions.length;
-  if (n < 2 || n > STM32_SELECTOR_PINS.length)
-    throw new Error(
-      `control.values: the STM32G031 part reads 2 to ${STM32_SELECTOR_PINS.length} positions (PA5..PA7).`,
-    );
+  const n = checkPositionCount(table, STM32_SELECTOR_PINS.length, "the STM32G031 part", "PA5..PA7");
   const pins = STM32_SELECTOR_PINS.slice(0, n);
   if (pins.some((p) => plan.pin.port === `PA${p.bit}`))
     throw new Error(`targets: ${plan.pin.port} is a selector input.`);
