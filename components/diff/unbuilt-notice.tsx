@@ -4,6 +4,7 @@
 // register numbers above and below come from the plan, which exists from the
 // moment the revision is generated.
 import Link from "next/link";
+import { unbuiltSentence } from "@/lib/diff/unbuilt";
 import {
   BUILD_STEP_WORDS,
   progressList,
@@ -18,10 +19,6 @@ export type UnbuiltRevision = {
   buildError: string | null;
   buildProgress: unknown;
 };
-
-export function unbuiltSentence(r: Pick<UnbuiltRevision, "number" | "buildState">): string {
-  return r.buildState === "building" ? `r${r.number} is still building` : `The build of r${r.number} failed`;
-}
 
 export function UnbuiltNotice({ revision: r }: { revision: UnbuiltRevision }) {
   const targets = progressList((r.buildProgress ?? {}) as BuildProgress);

@@ -9,6 +9,7 @@ import type { AuthUser } from "@/lib/auth/guard";
 import { assertCanReadRevision } from "@/lib/revisions/access";
 import { compareSnapshots } from "./index";
 import type { BuildState } from "@/lib/revisions/build-state";
+import { NOTHING_ID, unbuiltFilesSentence, unbuiltOf } from "./unbuilt";
 import type { RevisionComparison, RevisionRef, RevisionSnapshot, UnbuiltSide } from "./types";
 
 /** A revision as the comparison reads it, with its build state: files exist only once it is built. */
@@ -49,7 +50,7 @@ async function loadOne(id: number): Promise<Loaded & { site: string }> {
 }
 
 /** The "before" side of a first revision: nothing, so every file shows as added. */
-export const NOTHING_ID = 0;
+export { NOTHING_ID };
 const nothing = (retrofitId: number): Loaded & { site: string } => ({
   id: NOTHING_ID,
   number: 0,
@@ -85,17 +86,17 @@ export async function loadPair(user: AuthUser, aId: number, bId: number): Promis
 
 /** The sides of a pair whose build is not done (the "nothing" side counts as built). */
 export function unbuiltSides(a: Loaded, b: Loaded): UnbuiltSide[] {
-  return [a, b]
-    .filter((r) => r.id !== NOTHING_ID && r.buildState !== "ready")
-    .map((r) => ({ id: r.id, number: r.number, buildState: r.buildState, buildError: r.buildError }));
+  return unbuiltOf([a, b]).map((r) => ({
+    id: r.id,
+    number: r.number,
+    buildState: r.buildState,
+    buildError: r.buildError,
+  }));
 }
 
 /** Plain words for why the files of a pair cannot be compared yet. */
 export function unbuiltMessage(sides: UnbuiltSide[]): string {
-  const parts = sides.map((s) =>
-    s.buildState === "building" ? `r${s.number} is still building` : `the build of r${s.number} failed`,
-  );
-  return `No file text to compare yet: ${parts.join("; ")}. The numbers compare from the plans.`;
+  return `${unbuiltFilesSentence(sides)} The numbers compare from the plans.`;
 }
 
 /**

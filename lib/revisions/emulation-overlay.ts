@@ -4,7 +4,7 @@
 // reviewer compares), and both are drawn as steps over `periods` of the longer
 // period. Pure, shared by the chart and its test.
 
-type Edge = { t: number; level: 0 | 1 };
+import { levelAt, type Edge } from "./emulation-trace";
 
 export interface OverlayPoints {
   /** time from each trace's first rising edge, seconds */
@@ -23,14 +23,9 @@ function fromFirstRise(edges: Edge[] | undefined): Edge[] | null {
 }
 
 /** The level at t; null past the last stored edge (only the first edges are stored, so later is unknown). */
-function levelAt(edges: Edge[] | null, t: number): 0 | 1 | null {
+function storedLevelAt(edges: Edge[] | null, t: number): 0 | 1 | null {
   if (!edges || edges.length === 0 || t > edges[edges.length - 1].t) return null;
-  let level: 0 | 1 | null = null;
-  for (const e of edges) {
-    if (e.t > t) break;
-    level = e.level;
-  }
-  return level;
+  return levelAt(edges, t);
 }
 
 /**
@@ -53,5 +48,5 @@ export function overlayOf(
     if (c > 0) t.push(c - eps);
     t.push(c);
   }
-  return { t, older: t.map((x) => levelAt(a, x)), newer: t.map((x) => levelAt(b, x)) };
+  return { t, older: t.map((x) => storedLevelAt(a, x)), newer: t.map((x) => storedLevelAt(b, x)) };
 }

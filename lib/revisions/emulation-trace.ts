@@ -9,9 +9,10 @@ export interface TracePoints {
   emulated: (number | null)[];
 }
 
-type Edge = { t: number; level: 0 | 1 };
+export type Edge = { t: number; level: 0 | 1 };
 
-function levelAt(edges: Edge[], t: number): 0 | 1 | null {
+/** The level the last edge at or before t set; null before the first edge. */
+export function levelAt(edges: readonly Edge[], t: number): 0 | 1 | null {
   let level: 0 | 1 | null = null;
   for (const e of edges) {
     if (e.t > t) break;

@@ -19,7 +19,8 @@ import { boardChanges } from "@/lib/diff/board";
 import { RegisterTable } from "@/components/diff/register-table";
 import { registerChanges } from "@/lib/diff/registers";
 import { RevisionPicker } from "@/components/diff/revision-picker";
-import { UnbuiltNotice, unbuiltSentence, type UnbuiltRevision } from "@/components/diff/unbuilt-notice";
+import { UnbuiltNotice, type UnbuiltRevision } from "@/components/diff/unbuilt-notice";
+import { unbuiltFilesSentence, unbuiltOf } from "@/lib/diff/unbuilt";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { EmulationProof } from "@/components/review/emulation-proof";
 import { loadEmulations } from "@/lib/revisions/load-emulations";
@@ -28,7 +29,7 @@ import { ApiError } from "@/lib/api/errors";
 import { pageUser } from "@/lib/auth/page";
 import { READ_ALL } from "@/lib/auth/roles";
 import { compareSnapshots } from "@/lib/diff";
-import { defaultPair, loadPair, NOTHING_ID, revisionsOf } from "@/lib/diff/load";
+import { defaultPair, loadPair, revisionsOf } from "@/lib/diff/load";
 import type { DiffRow } from "@/lib/diff/types";
 import { COMMENT_ROLES, listThreads } from "@/lib/review/comments";
 import { STATE_WORDS } from "@/lib/review/words";
@@ -102,9 +103,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const cmp = compareSnapshots(retrofitId, a, b);
   // A revision still building (or failed) has its plan but no files yet: the
   // numbers compare, the file text waits (else every file would show as gone).
-  const unbuilt = [a, b].filter(
-    (r): r is typeof r & UnbuiltRevision => r.id !== NOTHING_ID && r.buildState !== "ready",
-  );
+  const unbuilt = unbuiltOf([a, b]) as (typeof a & UnbuiltRevision)[];
   const filesReady = unbuilt.length === 0;
   const comments = (await listThreads(b.id)).map(toThreadView);
   const [emuA, emuB] = await Promise.all([a.number > 0 ? loadEmulations(a.id) : null, loadEmulations(b.id)]);
@@ -249,9 +248,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
             Files
           </h2>
           <p className="panel text-ink-soft">
-            No file text to compare yet:{" "}
-            {unbuilt.map((r) => unbuiltSentence(r).replace(/^The/, "the")).join("; ")}. The files are compared
-            once both revisions are built.
+            {unbuiltFilesSentence(unbuilt)} The files are compared once both revisions are built.
           </p>
         </section>
       )}
