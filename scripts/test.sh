@@ -55,3 +55,6 @@ npx vitest run --config vitest.browser.config.mts
 
 echo "== serial tests (PostgreSQL restart under load; server log checks, after everything else)"
 SERVER_LOG=.data/run/test-server.log npx vitest run --config vitest.serial.config.mts
+
+echo "== mutation sample (a few mutants per folder, seeded by the commit; scripts/mutation/run.sh --ci)"
+bash scripts/mutation/run.sh --ci
