@@ -133,7 +133,7 @@ function sampled(reruns: string[]) {
     // The pooled floor: with every folder's judging tests working, the pooled killed fraction is
     // well above it (the sampled runs in DEVELOPERS.md); below it with 95 % confidence means tests
     // stopped judging, not bad luck (common practice, no source, for the floor's value).
-    const floor = Number(process.env.MUTATION_FLOOR ?? 70);
+    const floor = Number(process.env.MUTATION_FLOOR ?? 50);
     const { low, high } = wilson(pooled.killed, pooled.n);
     console.log(
       `pooled: ${pooled.killed} of ${pooled.n} killed, ${pct(pooled.killed, pooled.n)} (95 %: ${(100 * low).toFixed(1)}-${(100 * high).toFixed(1)} %), floor ${floor} %`,

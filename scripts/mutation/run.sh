@@ -47,7 +47,7 @@ sampled_tests() {
 # the seed (each commit looks at other mutants; a run can be repeated), judged
 # by the same narrow sets. Too few per folder for the folder targets: it prints
 # each folder's figure and survivors, and fails when picks did not run or the
-# pooled sample is below MUTATION_FLOOR (70 %) with 95 % confidence (report.ts).
+# pooled sample is below MUTATION_FLOOR (50 %) with 95 % confidence (report.ts).
 if [[ "${1:-}" == "--ci" ]]; then
   size="${2:-6}"
   seed=$((16#$(git rev-parse --short=7 HEAD 2>/dev/null || echo 0e)))
