@@ -15,11 +15,14 @@
 //   FRAC in bits 3:0 (reset 0x010 = 1.0); checked against pico-sdk
 //   hardware/regs/pwm.h (PWM_CH0_DIV_INT_BITS 0xff0, DIV_BITS 0xfff).
 //   INT 1..255 with FRAC 0..15 gives 1.0 .. 255.9375 in 1/16 steps.
+// - RP2040 datasheet, 2.18 PLL: f = (fref / REFDIV) * FBDIV / (POSTDIV1 * POSTDIV2),
+//   fref the 12 MHz crystal (XOSC).
 import { describe, expect, it } from "vitest";
 import { EngineError, buildAdcTable, planTarget, type AdcTable } from "@/lib/engine";
 import type { BundlePlan } from "@/lib/bundle";
 import { rp2040TriggerView } from "@/lib/bundle/trigger-rp2040";
 import { renderRp2040Adc } from "@/lib/bundle/adc-rp2040";
+import { rpClock } from "@/lib/bundle/device-rp2040";
 
 const IO_BANK0 = 0x40014000;
 const INTR0 = 0x0f0;
@@ -113,4 +116,25 @@ describe("RP2040 rate-pot PWM divider (CHx_DIV 8.4)", () => {
       expect(() => header(d)).toThrow(`divider ${d}: the PWM DIV register takes 1..255 in 1/16 steps.`);
     },
   );
+});
+
+describe("RP2040 clock set-up without a named clock source", () => {
+  const plan = (clockHz: number) => ({ ...triggered, clockSource: undefined, clockHz }) as BundlePlan;
+
+  it("12 MHz is the crystal itself, no PLL", () => {
+    expect(rpClock(plan(12e6))).toEqual({ kind: "xosc" });
+  });
+
+  it("125 MHz comes from PLL_SYS on the 12 MHz crystal", () => {
+    const c = rpClock(plan(125e6));
+    expect(c.kind).toBe("pll");
+    expect((12e6 / c.refdiv!) * c.fbdiv!).toBe(c.vcoHz);
+    expect(c.vcoHz! / (c.postdiv1! * c.postdiv2!)).toBe(125e6);
+  });
+
+  it("a named crystal at another frequency is refused on clockHz", () => {
+    expect(() => rpClock({ ...plan(125e6), clockSource: "xosc" })).toThrow(
+      "rp2040: the crystal runs at 12000000 Hz, not 125000000 Hz",
+    );
+  });
 });
