@@ -2,7 +2,9 @@
 // rendered text or the refusal, without a compiler, so the fast mutation set
 // judges them (the emulator runs are under tests/unit/firmware/).
 import { describe, expect, it } from "vitest";
+import { buildBundleSources } from "@/lib/bundle";
 import { buildAdcTable, buildSelectorTable } from "@/lib/engine";
+import { GOLDEN_CASES } from "../../golden/cases";
 import { renderAtmega328pAdc } from "@/lib/bundle/adc-avr";
 import { renderStm32g031Adc } from "@/lib/bundle/adc-stm32g031";
 import { renderStm32g031Selector } from "@/lib/bundle/selector-stm32g031";
@@ -66,5 +68,32 @@ describe("STM32G031 kept parts", () => {
     expect(() =>
       renderStm32g031Selector({ table: isr, startIndex: 0, controlText: "selector as C" }),
     ).toThrow("The selector part runs on STM32G031 edge-aligned PWM plans.");
+  });
+});
+
+describe("RP2040 kept selector on a travel too wide for edge-aligned PWM", () => {
+  // 1 nF to 100 uF on the 555 astable at 12 MHz: the table plan turns phase-correct (modeFactor 2)
+  // for the longest position. Before, the part's plain Error reached the API as a server error.
+  it("is refused as bad input naming the target, not thrown as a plain error", () => {
+    const kept = GOLDEN_CASES.find((c) => c.name === "kept-pot-555")!.spec;
+    const rp = kept.targets.find((t) => t.device === "rp2040")!;
+    let caught: unknown;
+    try {
+      buildBundleSources({
+        ...kept,
+        control: { kind: "selector", field: "c", values: [1e-9, 1e-4] },
+        targets: [rp],
+      });
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toMatchObject({
+      name: "EngineError",
+      code: "invalid-request",
+      field: "targets.0",
+      message: expect.stringMatching(
+        /^target 1 \(rp2040\) cannot keep the selector: the longest position needs phase-correct PWM/,
+      ),
+    });
   });
 });
