@@ -54,5 +54,9 @@ describe("kept selector refusals name their field", () => {
 
   it("a 'control.<field>:' limit keeps that field", () => {
     expect(refusal("control.values: at most 3 positions.")).toMatchObject({ field: "control.values" });
+    expect(refusal("control.field: the part varies c only.")).toMatchObject({
+      field: "control.field",
+      message: "target 2 (attiny85) cannot keep the selector: the part varies c only.",
+    });
   });
 });
