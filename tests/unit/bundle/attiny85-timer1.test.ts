@@ -38,3 +38,15 @@ describe("ATtiny85 Timer1 OCR1C", () => {
     expect(top.value).toBe(255);
   });
 });
+
+describe("ATtiny85 Timer0 OCR0A (8-bit TOP in modes 2 and 7)", () => {
+  // DS2586, Timer/Counter0: CTC (mode 2) and fast PWM (mode 7) count to TOP = OCR0A, an 8-bit register
+  const t0 = planTarget(TARGETS[3]) as BundlePlan;
+
+  it("256 counts do not fit OCR0A and are refused by name", () => {
+    expect(t0.timer).toBe("TIMER0");
+    expect(() => view({ ...t0, periodCounts: 257 })).toThrow(
+      "attiny85: OCR0A = 256 is outside 1..255 (timer TIMER0, mode pwm)",
+    );
+  });
+});

@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { buildBundleSources } from "@/lib/bundle";
 import { buildAdcTable, buildSelectorTable } from "@/lib/engine";
 import { GOLDEN_CASES } from "../../golden/cases";
-import { renderAtmega328pAdc } from "@/lib/bundle/adc-avr";
+import { renderAtmega328pAdc, renderAttiny85Adc } from "@/lib/bundle/adc-avr";
 import { renderStm32g031Adc } from "@/lib/bundle/adc-stm32g031";
 import { renderStm32g031Selector } from "@/lib/bundle/selector-stm32g031";
 
@@ -34,6 +34,30 @@ describe("ATmega328P rate pot: ADC channel", () => {
     expect(() => renderAtmega328pAdc({ table, channel, controlText: "rate pot as Rb" })).toThrow(
       "channel: the PDIP-28 ATmega328P has ADC0..ADC5 on PC0..PC5.",
     );
+  });
+});
+
+describe("ATtiny85 rate pot: the plan it runs on", () => {
+  // the part drives OC0B from Timer0 fast PWM (lib/bundle/adc-avr.ts); any other plan is refused by its message
+  const table = buildAdcTable({
+    stage,
+    control: pot,
+    device: "attiny85",
+    clockHz: 8e6,
+    timer: "TIMER0",
+    adcBits: 10,
+    steps: 64,
+  });
+
+  it("a Timer0 fast PWM table is rendered; an interrupt plan or Timer1 is refused", () => {
+    expect(() => renderAttiny85Adc({ table, controlText: "rate pot as Rb" })).not.toThrow();
+    for (const over of [{ mode: "isr" as const }, { timer: "TIMER1" }])
+      expect(() =>
+        renderAttiny85Adc({
+          table: { ...table, plan: { ...table.plan, ...over } },
+          controlText: "rate pot as Rb",
+        }),
+      ).toThrow("The ADC control firmware runs on ATtiny85 Timer0 fast PWM plans.");
   });
 });
 
