@@ -45,8 +45,13 @@ export function renderRp2040Selector({
   controlText: string;
 }): string {
   const plan = table.plan;
-  if (plan.device !== "rp2040" || plan.mode !== "pwm" || plan.modeFactor !== 1)
+  if (plan.device !== "rp2040" || plan.mode !== "pwm")
     throw new Error("The selector part runs on RP2040 edge-aligned PWM plans.");
+  // a wide travel can make the table plan phase-correct (count up and down) on this clock: bad input, a 4xx
+  if (plan.modeFactor !== 1)
+    throw new Error(
+      "targets: the longest position needs phase-correct PWM on this clock, and the RP2040 selector part runs edge-aligned PWM; choose a lower clock or closer values.",
+    );
   const n = checkPositionCount(table, RP2040_SELECTOR_PINS.length, "the RP2040 part", "GPIO2..GPIO7");
   const gpio = plan.pin.gpio ?? Number(/\d+/.exec(plan.pin.port)?.[0]);
   const pins = RP2040_SELECTOR_PINS.slice(0, n);

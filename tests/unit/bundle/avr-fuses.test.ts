@@ -67,6 +67,9 @@ describe("AVR fuses against the datasheet tables and avr-libc's headers", () => 
       expect(cksel(avrFuses(device, "crystal", 2e6).low)).toBe(0b1011);
       expect(cksel(avrFuses(device, "crystal", 4e6).low)).toBe(0b1101);
       expect(cksel(avrFuses(device, "crystal", 16e6).low)).toBe(0b1111);
+      // 3.0 and 8.0 MHz end one row and start the next; the bundle takes the lower row (its own choice)
+      expect(cksel(avrFuses(device, "crystal", 3e6).low)).toBe(0b1011);
+      expect(cksel(avrFuses(device, "crystal", 8e6).low)).toBe(0b1101);
       for (const hz of [1e6, 4e6, 16e6, 20e6]) {
         const low = avrFuses(device, "crystal", hz).low;
         expect(sut(low)).toBe(0b11);

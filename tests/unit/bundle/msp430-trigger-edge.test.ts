@@ -1,0 +1,45 @@
+// MSP430G2553 triggered firmware: the input edge the plan asks for is the one
+// P1IES selects, checked in the generated main.c without mspdebug so the fast
+// mutation set judges it (the simulator run is
+// tests/unit/firmware/trigger-msp430g2553-sim.test.ts).
+// Source: MSP430x2xx Family User's Guide SLAU144, Digital I/O, PxIES: bit = 0
+// sets the PxIFG flag on a low-to-high transition, bit = 1 on high-to-low.
+import { describe, expect, it } from "vitest";
+import { buildBundleSources } from "@/lib/bundle";
+
+function start(edge: "rising" | "falling"): { main: string; bit: string } {
+  const files = buildBundleSources({
+    retrofit: { name: "Edge check" },
+    revision: 1,
+    stage: { kind: "timer555-monostable", r: 10e3, c: 1e-6 },
+    targets: [
+      {
+        device: "msp430g2553",
+        clockHz: 1e6,
+        periodS: 0.02,
+        highS: 1e-3,
+        start: "trigger",
+        delayS: 4e-3,
+        edge,
+      } as never,
+    ],
+  });
+  const main = String(files.find((f) => f.path === "msp430g2553/src/main.c")?.content);
+  const bit = /P1IE \|= (BIT\d);/.exec(main)?.[1] ?? "none";
+  return { main, bit };
+}
+
+describe("MSP430G2553 trigger edge in P1IES", () => {
+  it("falling: P1IES bit set (high-to-low), never cleared", () => {
+    const { main, bit } = start("falling");
+    expect(bit).not.toBe("none");
+    expect(main).toContain(`P1IES |= ${bit};`);
+    expect(main).not.toContain(`P1IES &= (uint8_t)~${bit};`);
+  });
+
+  it("rising: P1IES bit cleared (low-to-high), never set", () => {
+    const { main, bit } = start("rising");
+    expect(main).toContain(`P1IES &= (uint8_t)~${bit};`);
+    expect(main).not.toContain(`P1IES |= ${bit};`);
+  });
+});

@@ -1,0 +1,62 @@
+// The field a kept selector's refusal names (lib/bundle/adc-control.ts): a
+// part states a plain limit as "control: ..." or "targets: ..."; the bundle
+// turns it into an engine error (our 4xx shape) whose field is control.values
+// for the former and the target itself for the latter, never a server error.
+// The rule is ours (common practice, no source). The ATtiny85 part is
+// replaced here by one that states the limit the test names, so each branch
+// is reached on purpose; the real parts' limits are checked in
+// kept-control.test.ts and kept-part-limits.test.ts.
+import { describe, expect, it, vi } from "vitest";
+import { buildBundleSources } from "@/lib/bundle";
+import { GOLDEN_CASES } from "../../golden/cases";
+
+const said = vi.hoisted(() => ({ message: "" }));
+vi.mock("@/lib/bundle/selector-avr", async (original) => ({
+  ...(await original<typeof import("@/lib/bundle/selector-avr")>()),
+  renderAttiny85Selector: () => {
+    throw new Error(said.message);
+  },
+}));
+
+const kept = GOLDEN_CASES.find((c) => c.name === "kept-pot-555")!.spec;
+const tiny = kept.targets.find((t) => t.device === "attiny85")!;
+function refusal(message: string): unknown {
+  said.message = message;
+  try {
+    buildBundleSources({
+      ...kept,
+      control: { kind: "selector", field: "c", values: [100e-9, 150e-9] },
+      targets: [kept.targets[0], tiny],
+    });
+  } catch (e) {
+    return e;
+  }
+  return null;
+}
+
+describe("kept selector refusals name their field", () => {
+  it("a 'control:' limit names control.values", () => {
+    expect(refusal("control: position 2 needs more than 256 counts.")).toMatchObject({
+      name: "EngineError",
+      code: "invalid-request",
+      field: "control.values",
+      message: "target 2 (attiny85) cannot keep the selector: position 2 needs more than 256 counts.",
+    });
+  });
+
+  it("a 'targets:' limit names the target", () => {
+    expect(refusal("targets: PB2 is a selector input.")).toMatchObject({
+      code: "invalid-request",
+      field: "targets.1",
+      message: "target 2 (attiny85) cannot keep the selector: PB2 is a selector input.",
+    });
+  });
+
+  it("a 'control.<field>:' limit keeps that field", () => {
+    expect(refusal("control.values: at most 3 positions.")).toMatchObject({ field: "control.values" });
+    expect(refusal("control.field: the part varies c only.")).toMatchObject({
+      field: "control.field",
+      message: "target 2 (attiny85) cannot keep the selector: the part varies c only.",
+    });
+  });
+});
