@@ -31,6 +31,8 @@ describe("bad plan requests", () => {
   it("an unknown clock source lists the device's options", () => {
     const msg = refuse({ clockSource: "quartz" }, "invalid-request", "clockSource").message;
     for (const id of ["crystal", "rc8m", "rc8m-cal", "rc128k", "external"]) expect(msg).toContain(id);
+    // each option readable on its own: separated, not run together
+    expect(msg).toMatch(/Options: [a-z0-9-]+(, [a-z0-9-]+){4}\.$/);
   });
 
   it("a frequency the internal oscillator cannot make names the two nearest it makes", () => {
