@@ -8,6 +8,7 @@
 // expected value is worked out from the numbers written in each test's file.
 import { describe, expect, it } from "vitest";
 import { CaptureError, decimateEnvelope, parseCapture } from "@/lib/capture";
+import { parseProbe } from "@/lib/capture/header-metadata";
 import { unquote } from "@/lib/capture/units";
 
 /** Ten samples of a 0 / 5 V square wave, one value a row. */
@@ -86,6 +87,51 @@ describe("sample interval, rate and start time from the header", () => {
       { key: "Note", value: "" },
     ]);
     expect(eq.t[1] - eq.t[0]).toBeCloseTo(5e-6, 18);
+  });
+});
+
+describe("which header line wins", () => {
+  it("the first usable interval wins over a later interval or rate", async () => {
+    // 2 us, then 1 MHz (1 us): the first line is kept (our rule, no source).
+    const trace = await parseCapture(
+      ["Sample Interval,2E-06", "Sample Rate,1 MHz", "CH1", ...ONE_COLUMN].join("\n") + "\n",
+    );
+    expect(trace.t[1] - trace.t[0]).toBeCloseTo(2e-6, 18);
+    // an unreadable first line does not block a later one
+    const later = await parseCapture(
+      ["Sample Interval,unknown", "Sample Rate,1 MHz", "CH1", ...ONE_COLUMN].join("\n") + "\n",
+    );
+    expect(later.t[1] - later.t[0]).toBeCloseTo(1e-6, 18);
+  });
+});
+
+describe("probe factor read from a header line", () => {
+  it.each([
+    ["10", 10],
+    ["10x", 10],
+    ["X10", 10],
+    ["10:1", 10],
+    ['"100 X"', 100],
+    ["1", 1],
+    ["1000", 1000],
+    ["2.5x", 2.5],
+    ["0.5x", null],
+    ["1001", null],
+    ["0", null],
+    ["ten", null],
+    ["10 V", null],
+  ])("parseProbe(%j) is %j", (text, expected) => {
+    expect(parseProbe(text)).toBe(expected);
+  });
+
+  it("a header probe outside 1..1000 is ignored in a file", async () => {
+    const rows = ONE_COLUMN.map((x, i) => `${i * 1e-6},${x}`);
+    const low = await parseCapture(["Probe,0.5x", "Time (s),CH1", ...rows].join("\n"));
+    expect(low.scaling?.headerProbe).toBeNull();
+    const high = await parseCapture(["Probe,5000", "Time (s),CH1", ...rows].join("\n"));
+    expect(high.scaling?.headerProbe).toBeNull();
+    const ok = await parseCapture(["Probe,1000", "Time (s),CH1", ...rows].join("\n"));
+    expect(ok.scaling?.headerProbe).toBe(1000);
   });
 });
 
@@ -217,6 +263,35 @@ describe("a first column that steps by the header's interval is time", () => {
     // Negative case: the same rows stepping evenly are time.
     const even = await layout("1E-04", [0, 1e-4, 2e-4, 3e-4]);
     expect(even.columns[0].role).toBe("time");
+  });
+});
+
+describe("a named first column is never re-read as time by its step", () => {
+  it("'Count' stepping 0, 1, 2 with a 1 s interval stays a column of its own", async () => {
+    // The step test is for files without a names row only (capture.md
+    // "Input": time from the header's interval when there is no time column).
+    const text = ["Sample Interval,1", "Count,CH1", "0,0", "1,5", "2,0", "3,5"].join("\n");
+    const trace = await parseCapture(text);
+    expect(trace.columns.map((c) => [c.name, c.role])).toEqual([
+      ["Count", "voltage"],
+      ["CH1", "voltage"],
+    ]);
+    expect(Array.from(trace.v)).toEqual([0, 1, 2, 3]);
+    expect(Array.from(trace.t)).toEqual([0, 1, 2, 3]);
+    // Negative case: the same rows without the names row: column 1 is time.
+    const bare = await parseCapture(["Sample Interval,1", "0,0", "1,5", "2,0", "3,5"].join("\n"));
+    expect(bare.columns.map((c) => c.role)).toEqual(["time", "voltage"]);
+    expect(Array.from(bare.v)).toEqual([0, 5, 0, 5]);
+  });
+
+  it("a time column found by name is kept when column 1 also steps by the interval", async () => {
+    const text = ["Sample Interval,1", "Step,Time (ms),CH1 (V)", "0,0,0", "1,1,5", "2,2,0", "3,3,5"].join(
+      "\n",
+    );
+    const trace = await parseCapture(text);
+    expect(trace.columns.map((c) => c.role)).toEqual(["voltage", "time", "voltage"]);
+    // time from the named column in ms, not from the steps of column 1
+    expect(Array.from(trace.t)).toEqual([0, 1e-3, 2e-3, 3e-3]);
   });
 });
 
