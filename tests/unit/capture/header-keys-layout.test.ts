@@ -295,6 +295,32 @@ describe("a named first column is never re-read as time by its step", () => {
   });
 });
 
+describe("a units row without names", () => {
+  it("the column in s is time even when column 1 also steps by the interval", async () => {
+    // The units row names no columns, so the step test could apply; it must
+    // not move time off the column whose unit says seconds.
+    const text = ["Sample Interval,1", ",s,V", "0,0,0", "1,0.001,5", "2,0.002,0", "3,0.003,5"].join("\n");
+    const trace = await parseCapture(text);
+    expect(trace.columns.map((c) => [c.unit, c.role])).toEqual([
+      ["", "voltage"],
+      ["s", "time"],
+      ["V", "voltage"],
+    ]);
+    expect(Array.from(trace.t)).toEqual([0, 0.001, 0.002, 0.003]);
+  });
+});
+
+describe("names that begin or end like a non-finite token", () => {
+  it.each(["Infeed", "Vinf", "Nanny", "Pump nan", "Infinity loop"])(
+    "'%s' is a column name, not a number",
+    async (name) => {
+      const trace = await parseCapture(["Time (s)," + name, "0,0", "1E-06,5", "2E-06,0"].join("\n"));
+      expect(trace.columns.map((c) => c.name)).toEqual(["Time", name]);
+      expect(trace.warnings).toEqual([]);
+    },
+  );
+});
+
 describe("quoted fields", () => {
   it.each([
     ['"Time (s)"', "Time (s)"],
