@@ -78,7 +78,7 @@ describe("two-transistor astable (Millman & Halkias, multivibrators; from memory
     expect(a.lowS).toBeCloseTo(0.22 * Math.log((10 - 0.75) / 4.35), 12);
   });
 
-  it("C1 is a capacitance: above 10 mF it is flagged, above 100 F refused (common practice, no source)", () => {
+  it("C1 and C2 are capacitances: above 10 mF it is flagged, above 100 F refused (common practice, no source)", () => {
     const base = {
       kind: "transistor-astable",
       supplyV: 5,
@@ -98,6 +98,18 @@ describe("two-transistor astable (Millman & Halkias, multivibrators; from memory
     ]);
     const err = expectEngineError(() => analyzeStage({ ...base, c1: 200 }), "invalid-stage", "c1");
     expect(err.message).toBe("c1 = 200 F is out of physical range.");
+    // C2 the same
+    expect(analyzeStage({ ...base, c2: 22e-3 }).checks).toEqual([
+      {
+        level: "warning",
+        code: "value-range",
+        field: "c2",
+        message:
+          "Coupling capacitor C2 (to Q2 base) 22 mF is above 10 mF: leakage currents may set the timing more than the formula does. Measure the old stage.",
+      },
+    ]);
+    const err2 = expectEngineError(() => analyzeStage({ ...base, c2: 200 }), "invalid-stage", "c2");
+    expect(err2.message).toBe("c2 = 200 F is out of physical range.");
   });
 
   it("tends to ln 2 R C when Vcc >> VBE", () => {
