@@ -60,6 +60,39 @@ describe("bad ADC table requests name their field", () => {
     const err = expectEngineError(() => buildAdcTable({ ...base, ...patch }), "invalid-request");
     expect(err.field).toBe(field);
   });
+  it("sends a trimmer and a mains-synchronised pot elsewhere, saying where", () => {
+    const trimmer = expectEngineError(
+      () => buildAdcTable({ ...base, control: { kind: "trimmer", field: "rb", trackR: 1e3 } }),
+      "invalid-request",
+    );
+    expect(trimmer.field).toBe("control.kind");
+    expect(trimmer.message).toBe(
+      "Only a potentiometer is read on an ADC pin; a trimmer becomes a calibration constant and a selector input pins.",
+    );
+    // A UJT firing stage on 50 Hz mains: its pot sets the firing delay after
+    // each zero crossing, which a free-running rate table cannot express.
+    const synced: Stage = {
+      kind: "ujt",
+      supplyV: 20,
+      timingR: 47e3,
+      timingC: 100e-9,
+      eta: 0.63,
+      sync: { mainsHz: 50, mainsVrms: 230 },
+    };
+    const sync = expectEngineError(
+      () =>
+        buildAdcTable({
+          ...base,
+          stage: synced,
+          control: { kind: "pot", field: "timingR", seriesR: 10e3, trackR: 47e3, taper: "linear" },
+        }),
+      "invalid-request",
+    );
+    expect(sync.field).toBe("stage.sync");
+    expect(sync.message).toBe(
+      "A mains-synchronised stage's control sets the firing delay: its ADC table comes with the zero-cross firmware, not this free-running table.",
+    );
+  });
   it("refuses a travel that leaves the stage's limits", () => {
     const ujt: Stage = { kind: "ujt", supplyV: 12, timingR: 47e3, timingC: 1e-6, eta: 0.63 };
     const err = expectEngineError(

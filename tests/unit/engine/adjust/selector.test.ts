@@ -32,5 +32,10 @@ describe("selector switch on input pins", () => {
       "invalid-request",
     );
     expect(err.field).toBe("control.values.1");
+    // Positions are counted from 1 as printed on a switch; the stage's own reason follows.
+    expect(err.message).toMatch(
+      /^Selector position 2 \(timingR = 1000000\) does not run: Timing resistor 1 MΩ /,
+    );
+    expect(err.message).toContain("the UJT never fires");
   });
 });

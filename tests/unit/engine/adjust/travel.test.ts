@@ -70,6 +70,11 @@ describe("will-it-oscillate limits over the travel", () => {
     expect(t.limits[0].side).toBe("stops-above");
     expect(t.limits[0].value).toBeCloseTo((12 - 8.16) / 5e-6, -2);
     expect(t.points.at(-1)!.oscillates).toBe(false);
+    // a stopped point carries the stage's own reason: 1.1 MΩ at full travel
+    expect(t.points.at(-1)!.reason).toBe(
+      "Timing resistor 1.1 MΩ cannot supply the peak-point current (5 µA) at the trip voltage: the UJT never fires. Use a timing resistor between 2.5 kΩ to 768 kΩ.",
+    );
+    expect(t.points[0].reason).toBeUndefined();
     expect(t.points[0].oscillates).toBe(true);
     const check = t.checks.find((c) => c.code === "control-crosses-limit");
     expect(check?.level).toBe("error");

@@ -4,7 +4,7 @@
 // high = ln2*(Ra + Rb)*C (NE555 datasheet, TI SLFS022). One count of
 // ATmega328P Timer1 at divider 1 is 1/16 MHz (DS40002061, Timer/Counter1).
 import { describe, expect, it } from "vitest";
-import { buildTrimRange, planTarget, trimHighCounts, type Stage } from "@/lib/engine";
+import { analyzeStage, buildTrimRange, planTarget, trimHighCounts, type Stage } from "@/lib/engine";
 import { expectEngineError } from "../expect-engine-error";
 
 const stage: Stage = { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 };
@@ -65,6 +65,46 @@ describe("trimmer calibration range", () => {
       () => buildTrimRange(stage, trimmer, { ...plan, mode: "isr" }),
       "invalid-request",
       "mode",
+    );
+  });
+
+  it("refuses a plan whose period lies outside the trimmer's travel, on either side", () => {
+    // Rb 10 kΩ is inside 8.2..12.9 kΩ, but plans made for Rb 5 kΩ and 20 kΩ
+    // (NE555 formula above) are shorter than the shortest and longer than the
+    // longest period the trimmer reaches.
+    for (const rb of [5e3, 20e3]) {
+      const other = planTarget({
+        device: "atmega328p",
+        clockHz: 16e6,
+        periodS: period(rb),
+        highS: high(rb),
+        mode: "pwm",
+        timer: "TIMER1",
+      });
+      expectEngineError(() => buildTrimRange(stage, trimmer, other), "invalid-request", "stage.rb");
+    }
+  });
+
+  it("refuses a trimmer whose end stops the stage, saying which end", () => {
+    // UJT load line: R below (Vs - Vp)/Ip, 768 kΩ here (General Electric SCR Manual, from memory);
+    // 400 kΩ + 1 MΩ at the end is above it.
+    const ujt: Stage = { kind: "ujt", supplyV: 12, timingR: 500e3, timingC: 1e-6, eta: 0.63 };
+    const a = analyzeStage(ujt);
+    const ujtPlan = planTarget({
+      device: "atmega328p",
+      clockHz: 16e6,
+      periodS: a.periodS,
+      highS: a.highS,
+      mode: "pwm",
+      timer: "TIMER1",
+    });
+    const err = expectEngineError(
+      () => buildTrimRange(ujt, { kind: "trimmer", field: "timingR", seriesR: 400e3, trackR: 1e6 }, ujtPlan),
+      "invalid-request",
+    );
+    expect(err.field).toBe("control");
+    expect(err.message).toBe(
+      "With the trimmer at its end the stage does not run; keep the whole travel inside its limits.",
     );
   });
 });

@@ -43,4 +43,14 @@ describe("crystal suggestion", () => {
     expect(s[0].exact).toBe(true);
     expect(s.every((x) => x.clockHz <= 20e6)).toBe(true);
   });
+
+  it("a 32.768 kHz watch crystal (2^15 Hz) makes 1 s exact on the MSP430G2553's LFXT1", () => {
+    // 32768 = 2^15 Hz is the watch-crystal frequency; LFXT1 in low-frequency
+    // mode takes a 32768 Hz watch crystal (MSP430x2xx family user's guide
+    // SLAU144, basic clock module+; from memory). Timer_A is 16 bits, so 1 s
+    // at /1 is 32768 counts, and the faster crystals are refused by LFXT1.
+    const s = suggestCrystals({ device: "msp430g2553", periodS: 1, highS: 0.5 });
+    expect(s.map((x) => x.clockHz)).toEqual([32768]);
+    expect(s[0]).toMatchObject({ exact: true, divider: 1, periodCounts: 32768, softwareDivider: 1 });
+  });
 });

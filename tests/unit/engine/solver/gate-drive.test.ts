@@ -113,6 +113,14 @@ describe("bad gate needs are refused, naming the field", () => {
       "invalid-request",
       "gateDrive.trainPulses",
     );
+    const noPeriod = expectEngineError(
+      () => accuracyBudget(pwm, { toleranceRelative: 0.01, gateDrive: { trainPulses: 3 } }),
+      "invalid-request",
+      "gateDrive.trainPeriodS",
+    );
+    expect(noPeriod.message).toBe(
+      "A pulse train needs both gateDrive.trainPeriodS and gateDrive.trainPulses.",
+    );
     expectEngineError(
       () =>
         accuracyBudget(pwm, { toleranceRelative: 0.01, gateDrive: { trainPeriodS: 1e-4, trainPulses: 2.5 } }),

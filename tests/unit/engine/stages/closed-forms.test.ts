@@ -23,7 +23,11 @@ describe("Schmitt-trigger inverter RC oscillator (first-order RC step response)"
   it("VT+ at or above the supply: never switches, explained; reversed thresholds: input error", () => {
     const a = analyzeStage({ kind: "schmitt-rc", supplyV: 2.5, r: 10e3, c: 1e-6, vtPlus: 2.6, vtMinus: 1 });
     expect(a.oscillates).toBe(false);
-    expect(a.checks[0]).toMatchObject({ level: "error", code: "supply-below-trip" });
+    expect(a.checks[0]).toMatchObject({ level: "error", code: "supply-below-trip", field: "supplyV" });
+    // The input charges toward the supply, so it never reaches VT+ above it (our text, checked whole).
+    expect(a.checks[0].message).toBe(
+      "The input can rise at most to the supply (2.5 V), which does not exceed VT+ (2.6 V): the gate never switches. Check the supply and the thresholds for that supply.",
+    );
     expectEngineError(
       () => analyzeStage({ kind: "schmitt-rc", supplyV: 5, r: 10e3, c: 1e-6, vtPlus: 1.6, vtMinus: 2.7 }),
       "invalid-stage",
@@ -72,6 +76,40 @@ describe("two-transistor astable (Millman & Halkias, multivibrators; from memory
     });
     expect(a.highS).toBeCloseTo(0.47 * Math.log((10 - 0.75) / 4.35), 12);
     expect(a.lowS).toBeCloseTo(0.22 * Math.log((10 - 0.75) / 4.35), 12);
+  });
+
+  it("C1 and C2 are capacitances: above 10 mF it is flagged, above 100 F refused (common practice, no source)", () => {
+    const base = {
+      kind: "transistor-astable",
+      supplyV: 5,
+      r1: 47e3,
+      c1: 10e-6,
+      r2: 22e3,
+      c2: 10e-6,
+    } as const;
+    expect(analyzeStage({ ...base, c1: 22e-3 }).checks).toEqual([
+      {
+        level: "warning",
+        code: "value-range",
+        field: "c1",
+        message:
+          "Coupling capacitor C1 (to Q1 base) 22 mF is above 10 mF: leakage currents may set the timing more than the formula does. Measure the old stage.",
+      },
+    ]);
+    const err = expectEngineError(() => analyzeStage({ ...base, c1: 200 }), "invalid-stage", "c1");
+    expect(err.message).toBe("c1 = 200 F is out of physical range.");
+    // C2 the same
+    expect(analyzeStage({ ...base, c2: 22e-3 }).checks).toEqual([
+      {
+        level: "warning",
+        code: "value-range",
+        field: "c2",
+        message:
+          "Coupling capacitor C2 (to Q2 base) 22 mF is above 10 mF: leakage currents may set the timing more than the formula does. Measure the old stage.",
+      },
+    ]);
+    const err2 = expectEngineError(() => analyzeStage({ ...base, c2: 200 }), "invalid-stage", "c2");
+    expect(err2.message).toBe("c2 = 200 F is out of physical range.");
   });
 
   it("tends to ln 2 R C when Vcc >> VBE", () => {

@@ -61,4 +61,18 @@ describe("unusual values", () => {
     });
     expect(analyzeStage(neon).checks).toEqual([]);
   });
+
+  it("22 MΩ itself is not flagged, anything above it is, and the warning says what to do", () => {
+    // The 22 MΩ line is common practice, no source; the boundary and the text are ours.
+    expect(analyzeStage({ ...neon, timingR: 22e6 }).checks).toEqual([]);
+    expect(analyzeStage({ ...neon, timingR: 22.1e6 }).checks).toEqual([
+      {
+        level: "warning",
+        code: "value-range",
+        field: "timingR",
+        message:
+          "Timing resistor 22.1 MΩ is above 22 MΩ: leakage currents may set the timing more than the formula does. Measure the old stage.",
+      },
+    ]);
+  });
 });

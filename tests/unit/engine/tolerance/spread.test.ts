@@ -10,6 +10,7 @@ import {
   type Stage,
 } from "@/lib/engine";
 import { fillTruncatedNormal } from "@/lib/engine/tolerance";
+import { expectEngineError } from "../expect-engine-error";
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -40,6 +41,20 @@ const astable: Stage = {
 };
 
 describe("Monte Carlo", () => {
+  it("refuses a seed that is not a whole number, naming it", () => {
+    // mulberry32-style generators take a 32-bit integer state (common practice, no source)
+    const fn = (p: { r: number }) => ({ periodS: p.r, highS: p.r / 2 });
+    for (const seed of [1.5, Number.NaN]) {
+      const err = expectEngineError(
+        () => monteCarloSpread({ r: 1 }, { r: 0.01 }, fn, { seed }),
+        "invalid-stage",
+        "seed",
+      );
+      expect(err.message).toBe("The seed must be an integer.");
+    }
+    expect(monteCarloSpread({ r: 1 }, { r: 0.01 }, fn, { seed: 7, samples: 10 }).seed).toBe(7);
+  });
+
   it("same seed, same numbers; another seed, other numbers", () => {
     const a = analyzeStage(astable, { seed: 42 });
     const b = analyzeStage(astable, { seed: 42 });

@@ -63,6 +63,30 @@ describe("parseEng: SI prefixes and units", () => {
   }
 });
 
+// The SI Brochure (9th ed., section 5.4, from memory) allows either the point
+// or the comma as the decimal marker, so "1,500" may mean 1.5; commas as
+// thousands separators (groups of three) are common practice, no source: read
+// only where no decimal comma fits (two or more groups, or a point after them).
+describe("parseEng: thousands separators", () => {
+  const read: [string, number][] = [
+    ["16,000,000", 16e6],
+    ["16,000,000 Hz", 16e6],
+    ["-2,200,000", -2.2e6],
+    ["1,500.5", 1500.5],
+    ["1,500.5 Ω", 1500.5],
+  ];
+  for (const [text, value] of read) it(`${text} = ${value}`, () => expect(parseEng(text)).toBe(value));
+  it("refuses one group without a point, naming both readings", () => {
+    const err = expectEngineError(() => parseEng("1,500"), "invalid-value");
+    expect(err.message).toBe(
+      'Cannot read "1,500" as a value: "1,500" could be a thousands separator or a decimal comma; write it without the comma.',
+    );
+    expect(expectEngineError(() => parseEng("1,5"), "invalid-value").message).toBe(
+      'Cannot read "1,5" as a value: use a point as the decimal separator.',
+    );
+  });
+});
+
 describe("parseEng refuses what it cannot read", () => {
   for (const text of [
     "",
