@@ -1,17 +1,26 @@
 // Stored rows <-> form text, and the one schema the workspace form uses (the
-// same stage and target schemas the API validates with).
-import { z } from "zod";
+// same stage and target schemas the API validates with, in "zod/mini").
+import * as z from "zod/mini";
 import type { TargetRow } from "@/db/schema";
 import type { GateDrive, Stage, StageControl } from "@/lib/engine";
 import type { TargetTrigger } from "@/lib/revisions/types";
 import { controlToForm, refineControl, type ControlFormValues } from "@/lib/validation/control";
 import { formText } from "@/lib/validation/form-text";
+import { customIssue } from "@/lib/validation/issue";
 import { stageSchema, stageToForm, type StageFormValues } from "@/lib/validation/stage";
 import { targetsSchema, type Target, type TargetInput } from "@/lib/validation/target";
 
-export const workspaceSchema = z
-  .object({ stage: stageSchema, control: z.unknown().optional(), targets: targetsSchema })
-  .transform(refineControl);
+const workspaceShape = z.object({
+  stage: stageSchema,
+  control: z.optional(z.unknown()),
+  targets: targetsSchema,
+});
+export const workspaceSchema = z.pipe(
+  workspaceShape,
+  z.transform((input: z.output<typeof workspaceShape>, payload) =>
+    refineControl(input, { addIssue: (i) => customIssue(payload, i.message, i.path) }),
+  ),
+);
 export type WorkspaceForm = { stage: StageFormValues; control: ControlFormValues; targets: TargetInput[] };
 export type WorkspaceOut = { stage: Stage; control?: StageControl | null; targets: Target[] };
 

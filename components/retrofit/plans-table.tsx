@@ -3,6 +3,7 @@
 // the engine's solver and accuracy budget in the browser.
 import { formatEng } from "@/lib/engine";
 import type { TargetPlanRow } from "@/lib/revisions/plan-targets";
+import { plainMessage } from "@/lib/validation/plain-message";
 import { deviceById } from "@/lib/validation/target";
 import { BudgetVerdict } from "./budget-verdict";
 import { fmtPpm, fmtS } from "./format";
@@ -43,7 +44,8 @@ const ROWS: [string, Cell][] = [
   [
     "Notes",
     (r) => {
-      const notes = [...r.plan.notes, ...(r.budget?.notes.slice(1) ?? [])];
+      // The engine writes bare SI numbers ("0.0000167 s"); shown in engineering units.
+      const notes = [...r.plan.notes, ...(r.budget?.notes.slice(1) ?? [])].map((n) => plainMessage(n));
       return notes.length ? (
         <ul className="list-disc pl-4 font-sans text-xs">
           {notes.map((n, i) => (

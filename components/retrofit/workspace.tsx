@@ -1,14 +1,25 @@
 "use client";
 // The engineer's screen for one retrofit: asset facts, stage and targets in one
 // form with live analysis and plans, generation of revisions, revision list.
+// The page's first paint is "Loading the retrofit…" while the data is fetched;
+// the editor (form library, schemas, the live engine) and the facts form are
+// their own chunks, fetched from the first render alongside the data.
+import dynamic from "next/dynamic";
 import useSWR from "swr";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import type { Retrofit, TargetRow } from "@/db/schema";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import type { Stage, StageControl } from "@/lib/engine";
-import { FactsForm } from "./facts-form";
 import { RevisionsList, type RevisionListItem } from "./revisions-list";
-import { WorkspaceEditor } from "./workspace-editor";
+
+const loadEditor = () => import("./workspace-editor");
+const loadFacts = () => import("./facts-form");
+const Loading = () => <p className="text-sm text-ink-soft">Loading the form…</p>;
+const WorkspaceEditor = dynamic(() => loadEditor().then((m) => m.WorkspaceEditor), {
+  ssr: false,
+  loading: Loading,
+});
+const FactsForm = dynamic(() => loadFacts().then((m) => m.FactsForm), { ssr: false, loading: Loading });
 
 export type RetrofitDetailJson = {
   retrofit: Omit<Retrofit, "createdAt" | "updatedAt" | "archivedAt"> & {
@@ -25,6 +36,11 @@ export type RetrofitDetailJson = {
 export function RetrofitWorkspace({ id, canEdit }: { id: number; canEdit: boolean }) {
   const { data, error, mutate } = useSWR<RetrofitDetailJson>(`/api/v1/retrofits/${id}`);
   const [editFacts, setEditFacts] = useState(false);
+  // Start both downloads now, not when the data has arrived.
+  useEffect(() => {
+    void loadEditor();
+    if (canEdit) void loadFacts();
+  }, [canEdit]);
 
   if (error) {
     return (

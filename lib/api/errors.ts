@@ -1,7 +1,7 @@
 // One error shape for every API response: { error: { code, message, fields? } }.
 // Route handlers throw ApiError (or let zod, engine and capture errors reach
 // toResponse); anything else is logged and answered with a safe 500.
-import { ZodError } from "zod";
+import { core } from "zod";
 import { EngineError } from "@/lib/engine/errors";
 
 export type ApiErrorCode =
@@ -54,8 +54,8 @@ export class ApiError extends Error {
 export const notFound = (what: string) => new ApiError("not_found", `${what} was not found.`);
 export const forbidden = (why = "Your role does not allow this.") => new ApiError("forbidden", why);
 
-/** Field-level messages from a zod error, keyed by dotted path. */
-export function zodFields(error: ZodError): FieldErrors {
+/** Field-level messages from a zod error (classic or "zod/mini"), keyed by dotted path. */
+export function zodFields(error: core.$ZodError): FieldErrors {
   const fields: FieldErrors = {};
   for (const issue of error.issues) {
     const key = issue.path.join(".") || "_";
@@ -67,7 +67,8 @@ export function zodFields(error: ZodError): FieldErrors {
 /** Anything thrown inside a handler, as the public error shape and status. */
 export function toApiError(err: unknown): ApiError {
   if (err instanceof ApiError) return err;
-  if (err instanceof ZodError) {
+  // core.$ZodError matches classic zod's errors and those of "zod/mini" schemas.
+  if (err instanceof core.$ZodError) {
     return new ApiError("bad_request", "Some fields are not valid.", zodFields(err));
   }
   if (err instanceof EngineError) {

@@ -56,7 +56,7 @@ export const fieldCheckSchema = z
       .max(1, "Resolution is at most 1 s.")
       .optional(),
     captureId: dbId.optional(),
-    notes: paragraphText("Notes", { max: 4000 }).default(""),
+    notes: z._default(paragraphText("Notes", { max: 4000 }), ""),
     signedOffBy: oneLine("The signature (your name)", { min: 1, max: 200 }),
     /** Lines of the target's CHECKLIST.md ticked or measured on the phone (optional; older clients send none). */
     steps: z.array(stepInputSchema).max(200).optional(),

@@ -24,8 +24,8 @@ export const stepInputSchema = z
   .object({
     id: z.string().trim().min(1).max(20),
     done: z.boolean().default(false),
-    measured: lineText("The measured value", { max: 100 }).default(""),
-    note: paragraphText("The line's note", { max: 2000 }).default(""),
+    measured: z._default(lineText("The measured value", { max: 100 }), ""),
+    note: z._default(paragraphText("The line's note", { max: 2000 }), ""),
     photo: photoSchema.optional(),
   })
   .strict();

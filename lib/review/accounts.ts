@@ -16,9 +16,7 @@ export const userChange = z
   .object({
     role: z.enum(ROLES).optional(),
     // Empty or null = every site.
-    site: lineText("Site", { max: 200 })
-      .nullish()
-      .transform((s) => (s ? s : null)),
+    site: z.nullish(lineText("Site", { max: 200 })).transform((s) => (s ? s : null)),
     disabled: z.boolean().optional(),
   })
   .strict();

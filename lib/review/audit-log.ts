@@ -26,14 +26,17 @@ export const auditFilter = z.object({
   actor: dbIdText.optional().or(z.literal("").transform(() => undefined)),
   from: day.optional().or(z.literal("").transform(() => undefined)),
   to: day.optional().or(z.literal("").transform(() => undefined)),
-  page: optionalPlainNumber(
-    "page is a whole number from 1",
-    z
-      .number()
-      .int("page is a whole number.")
-      .min(1, "page starts at 1.")
-      .max(10000, "page is at most 10000."),
-  ).default(1),
+  page: z._default(
+    optionalPlainNumber(
+      "page is a whole number from 1",
+      z
+        .number()
+        .int("page is a whole number.")
+        .min(1, "page starts at 1.")
+        .max(10000, "page is at most 10000."),
+    ),
+    1,
+  ),
 });
 
 export type AuditFilter = z.infer<typeof auditFilter>;

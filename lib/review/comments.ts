@@ -29,14 +29,14 @@ export const COMMENT_ROLES = READ_ALL;
 export const commentInput = z
   .object({
     body: paragraphText("The comment", { min: 1, max: 4000 }),
-    filePath: lineText("filePath", { min: 1, max: 300 }).nullish(),
+    filePath: z.nullish(lineText("filePath", { min: 1, max: 300 })),
     line: optionalPlainNumber(
       "A line is a whole number",
       z.number().int("A line is a whole number.").positive("Lines count from 1."),
     ),
     /** "quantity" | "register" with anchorKey; line and file anchors are given by filePath / line */
     anchorKind: z.enum(["revision", "file", "line", "quantity", "register"]).nullish(),
-    anchorKey: lineText("anchorKey", { min: 1, max: 200 }).nullish(),
+    anchorKey: z.nullish(lineText("anchorKey", { min: 1, max: 200 })),
     /** reply to this thread (its first comment); a reply has no anchor of its own */
     parentId: dbId.nullish(),
   })

@@ -26,9 +26,7 @@ export const invitationInput = z
     email: z.string().trim().toLowerCase().email("Enter an e-mail address."),
     name: lineText("The person's name", { min: 1, max: 200 }),
     role: z.enum(ROLES, { message: "Choose a role." }),
-    site: lineText("Site", { max: 200 })
-      .nullish()
-      .transform((s) => (s ? s : null)),
+    site: z.nullish(lineText("Site", { max: 200 })).transform((s) => (s ? s : null)),
   })
   .strict();
 

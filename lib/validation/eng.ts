@@ -1,8 +1,10 @@
 // Values typed by people: a number in SI units, or a string in engineering
 // notation (4k7, 100n, 2.2u, "16 MHz") read with the engine's parseEng, so the
-// browser form and the server accept exactly the same text.
-import { z } from "zod";
+// browser form and the server accept exactly the same text. Built with
+// "zod/mini", as the rest of what the browser forms validate with.
+import * as z from "zod/mini";
 import { isEngineError, parseEng, type EngUnit } from "@/lib/engine";
+import { customIssue } from "./issue";
 import { describe } from "./plain-number";
 
 /** Reads a number or an engineering-notation string; the message names the unit. */
@@ -28,14 +30,14 @@ export function readEng(
 
 /** A required quantity in `unit`; output is the SI number. */
 export function engNumber(unit: EngUnit, opts: { positive?: boolean } = {}) {
-  return z.unknown().transform((raw, ctx) => {
+  return z.transform((raw: unknown, ctx): number => {
     const r = readEng(raw, unit);
     if (!r.ok) {
-      ctx.addIssue({ code: "custom", message: r.message });
+      customIssue(ctx, r.message);
       return z.NEVER;
     }
     if (opts.positive && !(r.value > 0)) {
-      ctx.addIssue({ code: "custom", message: "Must be greater than 0." });
+      customIssue(ctx, "Must be greater than 0.");
       return z.NEVER;
     }
     return r.value;
@@ -44,23 +46,21 @@ export function engNumber(unit: EngUnit, opts: { positive?: boolean } = {}) {
 
 /** Empty string, null or missing = undefined; otherwise as engNumber. */
 export function optionalEngNumber(unit: EngUnit, opts: { positive?: boolean } = {}) {
-  return z.unknown().transform((raw, ctx): number | undefined => {
+  return z.transform((raw: unknown, ctx): number | undefined => {
     if (raw === null || raw === undefined || (typeof raw === "string" && raw.trim() === "")) return undefined;
     const r = readEng(raw, unit);
     if (!r.ok) {
-      ctx.addIssue({ code: "custom", message: r.message });
+      customIssue(ctx, r.message);
       return z.NEVER;
     }
     if (opts.positive && !(r.value > 0)) {
-      ctx.addIssue({ code: "custom", message: "Must be greater than 0." });
+      customIssue(ctx, "Must be greater than 0.");
       return z.NEVER;
     }
     return r.value;
   });
 }
 
-/** Checkbox values: real booleans, or the strings forms send. */
-export const formBoolean = z
-  .union([z.boolean(), z.enum(["true", "false", "on", "off", ""])])
-  .optional()
-  .transform((v) => v === true || v === "true" || v === "on");
+// Checkbox values live in ./form-boolean (no engine import, so the facts form
+// does not load the engine); re-exported for the callers that read them here.
+export { formBoolean } from "./form-boolean";

@@ -4,8 +4,11 @@
 // number, or (from the browser forms, which send text) a string written as a
 // plain decimal: optional sign, digits with an optional fraction and an
 // optional exponent. Everything else is refused, and zod puts the message on
-// the field's path, so the 400 names the field.
-import { z } from "zod";
+// the field's path, so the 400 names the field. Built with "zod/mini" (the
+// target schema reaches the browser); `check` may be any zod number schema.
+import * as z from "zod/mini";
+import type { core } from "zod/mini";
+import { customIssue } from "./issue";
 
 /** A plain decimal as text: "2", "-0.5", "1e-3", ".5"; no hex, no spaces inside, no thousands separators. */
 export const PLAIN_DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
@@ -23,32 +26,35 @@ export function readPlainNumber(raw: unknown): number | null {
 const blank = (v: unknown) => v === undefined || v === null || (typeof v === "string" && v.trim() === "");
 
 function strict(what: string) {
-  return z.unknown().transform((raw, ctx): number => {
+  return z.transform((raw: unknown, ctx): number => {
     const v = readPlainNumber(raw);
     if (v === null) {
-      ctx.addIssue({ code: "custom", message: `${what}; got ${describe(raw)}.` });
+      customIssue(ctx, `${what}; got ${describe(raw)}.`);
       return z.NEVER;
     }
     return v;
   });
 }
 
+type NumberCheck = core.$ZodType<number, number>;
+
 /**
  * A required number field: a JSON number or plain decimal text, then `check`
  * (ranges, whole numbers). `what` names the quantity in the message
  * ("Clock accuracy is a number in ppm; got true.").
  */
-export function plainNumber(what: string, check: z.ZodType<number, number> = z.number()) {
-  return strict(what).pipe(check);
+export function plainNumber(what: string, check: NumberCheck = z.number()) {
+  return z.pipe(strict(what), check);
 }
 
 /** As plainNumber, but blank (missing, null, "") is undefined. */
-export function optionalPlainNumber(what: string, check: z.ZodType<number, number> = z.number()) {
-  return z
-    .unknown()
-    .transform((raw) => (blank(raw) ? undefined : raw))
-    .pipe(strict(what).pipe(check).optional())
-    .optional();
+export function optionalPlainNumber(what: string, check: NumberCheck = z.number()) {
+  return z.optional(
+    z.pipe(
+      z.transform((raw: unknown) => (blank(raw) ? undefined : raw)),
+      z.optional(z.pipe(strict(what), check)),
+    ),
+  );
 }
 
 /** What was sent, short, for the message: `an array`, `true`, `"0x10"`. */

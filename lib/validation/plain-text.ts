@@ -10,7 +10,9 @@
 //    reads is not what was written.
 // Text arriving from headers (an uploaded file's name) cannot be sent back to
 // its author, so cleanLine removes these characters instead.
-import { z } from "zod";
+// The schemas are built with "zod/mini" (they reach the browser through the
+// workspace forms); server schemas wrap them with z.optional(), z._default().
+import * as z from "zod/mini";
 
 /** U+202A-U+202E (embeddings, overrides, pop) and U+2066-U+2069 (isolates). */
 export const BIDI_CONTROLS = /[\u202A-\u202E\u2066-\u2069]/u;
@@ -29,12 +31,15 @@ export function plainTextProblem(text: string, label: string, opts: { singleLine
 }
 
 function checked(label: string, opts: { min?: number; max: number; singleLine: boolean }) {
-  let s = z.string({ error: `${label} is text.` }).trim();
-  if (opts.min) s = s.min(opts.min, `${label} is required.`);
-  return s.max(opts.max, `${label} is at most ${opts.max} characters.`).superRefine((v, ctx) => {
-    const problem = plainTextProblem(v, label, { singleLine: opts.singleLine });
-    if (problem) ctx.addIssue({ code: "custom", message: problem });
-  });
+  return z.string({ error: `${label} is text.` }).check(
+    z.trim(),
+    ...(opts.min ? [z.minLength(opts.min, `${label} is required.`)] : []),
+    z.maxLength(opts.max, `${label} is at most ${opts.max} characters.`),
+    z.superRefine((v: string, ctx) => {
+      const problem = plainTextProblem(v, label, { singleLine: opts.singleLine });
+      if (problem) ctx.addIssue({ code: "custom", message: problem });
+    }),
+  );
 }
 
 /** One line of text (a name, a site, a signature): trimmed, no line breaks, no bidi controls. */

@@ -1,8 +1,9 @@
 // One stage schema for every kind: the fields come from the engine's
 // STAGE_FIELDS, values may be numbers (SI) or engineering-notation strings, and
 // the engine's own validateStage has the last word, so the form and the server
-// refuse exactly the same stages, each message on its field.
-import { z } from "zod";
+// refuse exactly the same stages, each message on its field. Built with
+// "zod/mini": the workspace form validates with this schema in the browser.
+import * as z from "zod/mini";
 import {
   isEngineError,
   STAGE_FIELDS,
@@ -17,6 +18,7 @@ import {
   type Tolerances,
 } from "@/lib/engine";
 import { readEng } from "./eng";
+import { customIssue } from "./issue";
 import { formText } from "./form-text";
 import { formatTolerance, readTolerance } from "./tolerance";
 import { plainMessage } from "./plain-message";
@@ -49,19 +51,21 @@ function readField(
   return r;
 }
 
-export const stageSchema = z
-  .looseObject({
-    kind: z.enum(STAGE_KIND_IDS, { error: `Choose a stage kind: ${STAGE_KIND_IDS.join(", ")}.` }),
-    tolerances: z.record(z.string(), z.unknown()).optional(),
-  })
-  .transform((input, ctx): Stage => {
+const stageShape = z.looseObject({
+  kind: z.enum(STAGE_KIND_IDS, { error: `Choose a stage kind: ${STAGE_KIND_IDS.join(", ")}.` }),
+  tolerances: z.optional(z.record(z.string(), z.unknown())),
+});
+
+export const stageSchema = z.pipe(
+  stageShape,
+  z.transform((input: z.output<typeof stageShape>, ctx): Stage => {
     const fields = STAGE_FIELDS[input.kind];
     const out: Record<string, unknown> = { kind: input.kind };
     let bad = false;
     for (const f of fields) {
       const r = readField(f, (input as Record<string, unknown>)[f.name]);
       if (!r.ok) {
-        ctx.addIssue({ code: "custom", message: r.message, path: [f.name] });
+        customIssue(ctx, r.message, [f.name]);
         bad = true;
       } else if (r.value !== undefined) out[f.name] = r.value;
     }
@@ -76,7 +80,7 @@ export const stageSchema = z
         for (const f of SYNC_FIELDS) {
           const r = readField(f, raw[f.name]);
           if (!r.ok) {
-            ctx.addIssue({ code: "custom", message: r.message, path: ["sync", f.name] });
+            customIssue(ctx, r.message, ["sync", f.name]);
             bad = true;
           } else got[f.name] = r.value;
         }
@@ -87,7 +91,7 @@ export const stageSchema = z
     for (const [name, raw] of Object.entries(input.tolerances ?? {})) {
       const r = readTolerance(raw);
       if (!r.ok) {
-        ctx.addIssue({ code: "custom", message: r.message, path: ["tolerances", name] });
+        customIssue(ctx, r.message, ["tolerances", name]);
         bad = true;
       } else if (
         r.value !== undefined &&
@@ -101,22 +105,18 @@ export const stageSchema = z
     // A measured stage is only as plausible as the devices that must make it.
     if (input.kind === "measured") {
       const problems = measurementProblems(out as { periodS?: number; highS?: number });
-      for (const [field, message] of Object.entries(problems))
-        ctx.addIssue({ code: "custom", message, path: [field] });
+      for (const [field, message] of Object.entries(problems)) customIssue(ctx, message, [field]);
       if (Object.keys(problems).length > 0) return z.NEVER;
     }
     try {
       return validateStage(out);
     } catch (e) {
       if (!isEngineError(e)) throw e;
-      ctx.addIssue({
-        code: "custom",
-        message: plainMessage(e.message, input.kind),
-        path: (e.field ?? "kind").split("."),
-      });
+      customIssue(ctx, plainMessage(e.message, input.kind), (e.field ?? "kind").split("."));
       return z.NEVER;
     }
-  });
+  }),
+);
 
 export type StageInput = z.input<typeof stageSchema>;
 

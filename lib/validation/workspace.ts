@@ -1,5 +1,6 @@
 // Bodies of the workspace API: create, update and the stateless plan request.
 import { z } from "zod";
+import * as zm from "zod/mini";
 import { lineText, paragraphText } from "./plain-text";
 import { optionalPlainNumber } from "./plain-number";
 import { retrofitFactsPatchSchema, retrofitFactsSchema } from "./retrofit";
@@ -8,29 +9,33 @@ import { stageSchema } from "./stage";
 import { targetsSchema } from "./target";
 
 // control: the stage's adjustable value (null clears it); it needs the stage beside it.
-export const createRetrofitSchema = retrofitFactsSchema
-  .extend({
-    stage: stageSchema.optional(),
+// The facts, stage and target schemas are "zod/mini" (the browser forms use
+// them too); classic zod wraps them here for the server's bodies.
+export const createRetrofitSchema = z
+  .object({
+    ...retrofitFactsSchema.shape,
+    stage: z.optional(stageSchema),
     control: z.unknown().optional(),
-    targets: targetsSchema.optional(),
+    targets: z.optional(targetsSchema),
   })
   .transform(refineControl);
 
-export const updateRetrofitSchema = retrofitFactsPatchSchema
-  .extend({
-    stage: stageSchema.optional(),
+export const updateRetrofitSchema = z
+  .object({
+    ...retrofitFactsPatchSchema.shape,
+    stage: z.optional(stageSchema),
     control: z.unknown().optional(),
-    targets: targetsSchema.optional(),
+    targets: z.optional(targetsSchema),
   })
   .transform(refineControl);
 
 export const planBodySchema = z.object({
   stage: stageSchema,
-  targets: targetsSchema.min(1, "Add at least one target."),
+  targets: targetsSchema.check(zm.minLength(1, "Add at least one target.")),
 });
 
 export const generateBodySchema = z
-  .object({ note: paragraphText("The note", { max: 500 }).optional().default("") })
+  .object({ note: z._default(z.optional(paragraphText("The note", { max: 500 })), "") })
   .optional()
   .default({ note: "" });
 
@@ -65,17 +70,23 @@ export const listQuerySchema = z.object({
     .optional()
     .default("updatedAt"),
   dir: z.enum(["asc", "desc"]).optional().default("desc"),
-  page: optionalPlainNumber(
-    "page is a whole number from 1",
-    z.number().int("page is a whole number.").min(1, "page starts at 1."),
-  ).default(1),
-  pageSize: optionalPlainNumber(
-    "pageSize is a whole number from 1 to 100",
-    z
-      .number()
-      .int("pageSize is a whole number.")
-      .min(1, "pageSize starts at 1.")
-      .max(100, "pageSize is at most 100."),
-  ).default(20),
+  page: z._default(
+    optionalPlainNumber(
+      "page is a whole number from 1",
+      z.number().int("page is a whole number.").min(1, "page starts at 1."),
+    ),
+    1,
+  ),
+  pageSize: z._default(
+    optionalPlainNumber(
+      "pageSize is a whole number from 1 to 100",
+      z
+        .number()
+        .int("pageSize is a whole number.")
+        .min(1, "pageSize starts at 1.")
+        .max(100, "pageSize is at most 100."),
+    ),
+    20,
+  ),
 });
 export type ListQuery = z.output<typeof listQuerySchema>;

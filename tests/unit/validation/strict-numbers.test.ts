@@ -16,7 +16,7 @@ vi.mock("@/db/client", () => ({ db: {} }));
 const TARGET = { device: "atmega328p", clockSource: "crystal", clockHz: "16M", mode: "pwm" };
 const COERCED = [[2], true, false, "0x10", "0b10", "0o7", "1 0", "1,5", {}, "Infinity", "1e999"];
 
-function issuesOf(r: { success: boolean; error?: z.ZodError }): Record<string, string> {
+function issuesOf(r: { success: boolean; error?: z.core.$ZodError }): Record<string, string> {
   return Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join("."), i.message]));
 }
 

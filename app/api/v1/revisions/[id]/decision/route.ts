@@ -17,9 +17,9 @@ const body = z
       }
       return d;
     }),
-    note: paragraphText("The note", { max: 4000 }).optional(),
+    note: z.optional(paragraphText("The note", { max: 4000 })),
     /** reason for releasing despite a target whose budget misses (required then) */
-    override: paragraphText("The override reason", { max: 2000 }).optional(),
+    override: z.optional(paragraphText("The override reason", { max: 2000 })),
   })
   .strict();
 

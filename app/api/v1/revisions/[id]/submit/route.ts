@@ -7,9 +7,9 @@ import { submitRevision } from "@/lib/review/submit";
 
 const body = z
   .object({
-    note: paragraphText("The note", { max: 2000 }).optional(),
+    note: z.optional(paragraphText("The note", { max: 2000 })),
     // Required (422 naming it) when a target is not proven in an emulator.
-    unprovenReason: paragraphText("The reason", { max: 2000 }).optional(),
+    unprovenReason: z.optional(paragraphText("The reason", { max: 2000 })),
   })
   .strict();
 
