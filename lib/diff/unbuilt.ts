@@ -6,9 +6,16 @@ export const NOTHING_ID = 0;
 
 type Side = { id: number; number: number; buildState: string };
 
+/** A side whose build is not done: its state narrowed to exclude "ready". */
+export type Unbuilt<T extends Side> = T & { buildState: Exclude<T["buildState"], "ready"> };
+
+function isUnbuilt<T extends Side>(r: T): r is Unbuilt<T> {
+  return r.id !== NOTHING_ID && r.buildState !== "ready";
+}
+
 /** The sides whose build is not done (the "nothing" side counts as built). */
-export function unbuiltOf<T extends Side>(sides: readonly T[]): T[] {
-  return sides.filter((r) => r.id !== NOTHING_ID && r.buildState !== "ready");
+export function unbuiltOf<T extends Side>(sides: readonly T[]): Unbuilt<T>[] {
+  return sides.filter(isUnbuilt);
 }
 
 /** "r3 is still building" / "the build of r3 failed" (capitalised when it opens a sentence). */

@@ -19,7 +19,7 @@ import { boardChanges } from "@/lib/diff/board";
 import { RegisterTable } from "@/components/diff/register-table";
 import { registerChanges } from "@/lib/diff/registers";
 import { RevisionPicker } from "@/components/diff/revision-picker";
-import { UnbuiltNotice, type UnbuiltRevision } from "@/components/diff/unbuilt-notice";
+import { UnbuiltNotice } from "@/components/diff/unbuilt-notice";
 import { unbuiltFilesSentence, unbuiltOf } from "@/lib/diff/unbuilt";
 import { HazardCaution } from "@/components/ui/hazard-caution";
 import { EmulationProof } from "@/components/review/emulation-proof";
@@ -103,7 +103,7 @@ export default async function ComparePage({ params, searchParams }: Props) {
   const cmp = compareSnapshots(retrofitId, a, b);
   // A revision still building (or failed) has its plan but no files yet: the
   // numbers compare, the file text waits (else every file would show as gone).
-  const unbuilt = unbuiltOf([a, b]) as (typeof a & UnbuiltRevision)[];
+  const unbuilt = unbuiltOf([a, b]);
   const filesReady = unbuilt.length === 0;
   const comments = (await listThreads(b.id)).map(toThreadView);
   const [emuA, emuB] = await Promise.all([a.number > 0 ? loadEmulations(a.id) : null, loadEmulations(b.id)]);
