@@ -35,7 +35,7 @@ const result = await instrumenter.instrument(
 const mutants: ListedMutant[] = result.mutants
   .filter((m) => m.status !== "Ignored")
   .map((m) => ({
-    key: mutantKey(path.normalize(m.fileName), m.mutatorName, m.replacement, m.location.start),
+    key: mutantKey(path.normalize(m.fileName), m.mutatorName, m.replacement, m.location),
     file: path.normalize(m.fileName),
     mutatorName: m.mutatorName,
     replacement: m.replacement,

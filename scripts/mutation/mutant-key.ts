@@ -1,9 +1,23 @@
-/** One mutant's name across runs: file, 0-based start line and column, mutator, replacement. */
+type Position = { line: number; column: number };
+
+/**
+ * One mutant's name across runs: file, 0-based start and end (line and
+ * column), mutator, replacement. The end is part of the name: nested nodes
+ * (`a && b` inside `a && b && c`) start at the same column and can take the
+ * same mutator and replacement.
+ */
 export function mutantKey(
   file: string,
   mutator: string,
   replacement: string | undefined,
-  start: { line: number; column: number },
+  location: { start: Position; end: Position },
 ): string {
-  return `${file}:${start.line}:${start.column}:${mutator}:${replacement ?? ""}`;
+  const { start, end } = location;
+  return `${file}:${start.line}:${start.column}-${end.line}:${end.column}:${mutator}:${replacement ?? ""}`;
+}
+
+/** Stryker's report positions are 1-based; the instrumenter's are 0-based. */
+export function fromReportLocation(location: { start: Position; end: Position }) {
+  const less = (p: Position) => ({ line: p.line - 1, column: p.column - 1 });
+  return { start: less(location.start), end: less(location.end) };
 }

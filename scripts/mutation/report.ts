@@ -14,14 +14,14 @@ import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { FOLDERS, folderOf } from "./folders";
 import type { ListedMutant } from "./list-mutants";
-import { mutantKey } from "./mutant-key";
+import { fromReportLocation, mutantKey } from "./mutant-key";
 import { wilson } from "./wilson";
 
 interface Mutant {
   mutatorName: string;
   replacement?: string;
   status: string;
-  location: { start: { line: number; column: number } };
+  location: { start: { line: number; column: number }; end: { line: number; column: number } };
 }
 interface Report {
   files: Record<string, { mutants: Mutant[] }>;
@@ -72,10 +72,12 @@ function sampled(reruns: string[]) {
     for (const [file, { mutants }] of Object.entries(report.files))
       for (const m of mutants) {
         if (m.status === "Ignored") continue;
-        const key = mutantKey(path.normalize(file), m.mutatorName, m.replacement, {
-          line: m.location.start.line - 1,
-          column: m.location.start.column - 1,
-        });
+        const key = mutantKey(
+          path.normalize(file),
+          m.mutatorName,
+          m.replacement,
+          fromReportLocation(m.location),
+        );
         status.set(key, { ...m, file: path.normalize(file) });
       }
   }

@@ -4,7 +4,7 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import type { ListedMutant } from "./list-mutants";
-import { mutantKey } from "./mutant-key";
+import { fromReportLocation, mutantKey } from "./mutant-key";
 
 const folder = process.argv[2];
 if (!folder) {
@@ -22,7 +22,7 @@ const report = JSON.parse(readFileSync(`reports/mutation/sampled-${name}.json`, 
         mutatorName: string;
         replacement?: string;
         status: string;
-        location: { start: { line: number; column: number } };
+        location: { start: { line: number; column: number }; end: { line: number; column: number } };
       }[];
     }
   >;
@@ -31,12 +31,7 @@ const dead = new Set<string>();
 for (const [file, { mutants }] of Object.entries(report.files))
   for (const m of mutants)
     if (m.status === "Killed" || m.status === "Timeout" || m.status === "CompileError")
-      dead.add(
-        mutantKey(path.normalize(file), m.mutatorName, m.replacement, {
-          line: m.location.start.line - 1,
-          column: m.location.start.column - 1,
-        }),
-      );
+      dead.add(mutantKey(path.normalize(file), m.mutatorName, m.replacement, fromReportLocation(m.location)));
 const again = picks.filter((p) => !dead.has(p.key));
 const out = `reports/mutation/picks-rerun-${name}.json`;
 writeFileSync(out, JSON.stringify({ ...rest, picks: again }, null, 1));
