@@ -9,10 +9,13 @@ import type { BundlePlan } from "@/lib/bundle";
 import { DEVICES } from "@/lib/bundle/devices";
 import { planTarget } from "@/lib/engine";
 import { TARGETS } from "./fixtures";
+import { expectEngineError } from "../engine/expect-engine-error";
 
 // attiny85, 8 MHz, 1 ms PWM on TIMER1 (fixtures)
 const plan = planTarget(TARGETS[5]) as BundlePlan;
 const view = (p: BundlePlan) => DEVICES.attiny85.view(p);
+// a register range refusal is bad input (our 4xx shape), so its message is the user's
+const refusal = (p: BundlePlan) => expectEngineError(() => view(p), "invalid-request").message;
 
 describe("ATtiny85 Timer1 OCR1C", () => {
   it("OCR1C = periodCounts - 1, so N * (1 + OCR1C) / f is the planned 1 ms", () => {
@@ -26,12 +29,12 @@ describe("ATtiny85 Timer1 OCR1C", () => {
     "%s: 256 counts do not fit OCR1C and are refused by name",
     (mode) => {
       const p = { ...plan, mode, periodCounts: 257 };
-      expect(() => view(p)).toThrow(`attiny85: OCR1C = 256 is outside 1..255 (timer TIMER1, mode ${mode})`);
+      expect(refusal(p)).toBe(`attiny85: OCR1C = 256 is outside 1..255 (timer TIMER1, mode ${mode})`);
     },
   );
 
   it("one count (OCR1C = 0) is refused too; 256 counts (OCR1C = 255) are taken", () => {
-    expect(() => view({ ...plan, periodCounts: 1, highCounts: 1 })).toThrow(
+    expect(refusal({ ...plan, periodCounts: 1, highCounts: 1 })).toBe(
       "attiny85: OCR1C = 0 is outside 1..255 (timer TIMER1, mode pwm)",
     );
     const top = view({ ...plan, periodCounts: 256 }).writes.find((w) => w.reg === "OCR1C")!;
@@ -45,7 +48,7 @@ describe("ATtiny85 Timer0 OCR0A (8-bit TOP in modes 2 and 7)", () => {
 
   it("256 counts do not fit OCR0A and are refused by name", () => {
     expect(t0.timer).toBe("TIMER0");
-    expect(() => view({ ...t0, periodCounts: 257 })).toThrow(
+    expect(refusal({ ...t0, periodCounts: 257 })).toBe(
       "attiny85: OCR0A = 256 is outside 1..255 (timer TIMER0, mode pwm)",
     );
   });

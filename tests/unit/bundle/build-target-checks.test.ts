@@ -12,6 +12,7 @@ import { describe, expect, it } from "vitest";
 import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { GOLDEN_CASES } from "../../golden/cases";
 import { TARGETS, spec } from "./fixtures";
+import { expectEngineError } from "../engine/expect-engine-error";
 
 const checklist = (t: BundleTargetRequest) =>
   String(buildBundleSources(spec([t])).find((f) => f.path === "atmega328p/CHECKLIST.md")!.content);
@@ -42,18 +43,10 @@ describe("a target that does not run the kept rate pot's timer and pin", () => {
     // second target: ATtiny85 planned as an interrupt instead of the pot's PWM on TIMER0/PB1
     const targets = [kept.targets[0], { ...kept.targets[1], mode: "isr" as const }];
     expect(kept.targets[1].device).toBe("attiny85");
-    let caught: unknown;
-    try {
-      buildBundleSources({ ...kept, targets });
-    } catch (e) {
-      caught = e;
-    }
-    expect(caught).toMatchObject({
-      name: "EngineError",
-      code: "invalid-request",
-      field: "targets.1",
-      message:
-        "target 2 (attiny85): the kept rate pot runs TIMER0 in PWM on PB1; plan this target as pwm on TIMER0.",
-    });
+    const err = expectEngineError(() => buildBundleSources({ ...kept, targets }), "invalid-request");
+    expect(err.field).toBe("targets.1");
+    expect(err.message).toBe(
+      "target 2 (attiny85): the kept rate pot runs TIMER0 in PWM on PB1; plan this target as pwm on TIMER0.",
+    );
   });
 });

@@ -8,6 +8,7 @@ import { GOLDEN_CASES } from "../../golden/cases";
 import { renderAtmega328pAdc, renderAttiny85Adc } from "@/lib/bundle/adc-avr";
 import { renderStm32g031Adc } from "@/lib/bundle/adc-stm32g031";
 import { renderStm32g031Selector } from "@/lib/bundle/selector-stm32g031";
+import { expectEngineError } from "../engine/expect-engine-error";
 
 const stage = { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 } as const;
 const pot = { kind: "pot", field: "rb", seriesR: 2.2e3, trackR: 47e3, taper: "linear" } as const;
@@ -101,23 +102,18 @@ describe("RP2040 kept selector on a travel too wide for edge-aligned PWM", () =>
   it("is refused as bad input naming the target, not thrown as a plain error", () => {
     const kept = GOLDEN_CASES.find((c) => c.name === "kept-pot-555")!.spec;
     const rp = kept.targets.find((t) => t.device === "rp2040")!;
-    let caught: unknown;
-    try {
-      buildBundleSources({
-        ...kept,
-        control: { kind: "selector", field: "c", values: [1e-9, 1e-4] },
-        targets: [rp],
-      });
-    } catch (e) {
-      caught = e;
-    }
-    expect(caught).toMatchObject({
-      name: "EngineError",
-      code: "invalid-request",
-      field: "targets.0",
-      message: expect.stringMatching(
-        /^target 1 \(rp2040\) cannot keep the selector: the longest position needs phase-correct PWM/,
-      ),
-    });
+    const err = expectEngineError(
+      () =>
+        buildBundleSources({
+          ...kept,
+          control: { kind: "selector", field: "c", values: [1e-9, 1e-4] },
+          targets: [rp],
+        }),
+      "invalid-request",
+    );
+    expect(err.field).toBe("targets.0");
+    expect(err.message).toMatch(
+      /^target 1 \(rp2040\) cannot keep the selector: the longest position needs phase-correct PWM/,
+    );
   });
 });

@@ -5,7 +5,10 @@
 // Source: MSP430x2xx Family User's Guide SLAU144, Digital I/O, PxIES: bit = 0
 // sets the PxIFG flag on a low-to-high transition, bit = 1 on high-to-low.
 import { describe, expect, it } from "vitest";
-import { buildBundleSources } from "@/lib/bundle";
+import { buildBundleSources, type BundlePlan } from "@/lib/bundle";
+import { msp430g2553TriggerView } from "@/lib/bundle/trigger-msp430g2553";
+import { planTarget } from "@/lib/engine";
+import { expectEngineError } from "../engine/expect-engine-error";
 
 function start(edge: "rising" | "falling"): { main: string; bit: string } {
   const files = buildBundleSources({
@@ -41,5 +44,37 @@ describe("MSP430G2553 trigger edge in P1IES", () => {
     const { main, bit } = start("rising");
     expect(main).toContain(`P1IES &= (uint8_t)~${bit};`);
     expect(main).not.toContain(`P1IES |= ${bit};`);
+  });
+});
+
+// The restart rule belongs to a trigger start only: the engine refuses it on a
+// zero-cross start with "retrigger applies to a trigger start; zero crossings
+// come once per half cycle." (lib/engine/solver/start.ts, the product's own
+// message), and the firmware view keeps to that even for a plan carrying it.
+describe("MSP430G2553 retrigger restart", () => {
+  const request = (start: "trigger" | "zero-cross") => ({
+    device: "msp430g2553",
+    clockHz: 1e6,
+    periodS: 0.02,
+    highS: 1e-3,
+    start,
+    delayS: 4e-3,
+  });
+  const plan = (start: "trigger" | "zero-cross") => planTarget(request(start) as never) as BundlePlan;
+
+  it("the engine refuses it on a zero-cross start", () => {
+    const err = expectEngineError(
+      () => planTarget({ ...request("zero-cross"), retrigger: "restart" } as never),
+      "invalid-request",
+      "retrigger",
+    );
+    expect(err.message).toBe(
+      "retrigger applies to a trigger start; zero crossings come once per half cycle.",
+    );
+  });
+
+  it("a trigger start restarts; a zero-cross start never does", () => {
+    expect(msp430g2553TriggerView({ ...plan("trigger"), retrigger: "restart" })!.restart).toBe(true);
+    expect(msp430g2553TriggerView({ ...plan("zero-cross"), retrigger: "restart" })!.restart).toBe(false);
   });
 });

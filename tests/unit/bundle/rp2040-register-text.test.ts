@@ -18,11 +18,12 @@
 // - RP2040 datasheet, 2.18 PLL: f = (fref / REFDIV) * FBDIV / (POSTDIV1 * POSTDIV2),
 //   fref the 12 MHz crystal (XOSC).
 import { describe, expect, it } from "vitest";
-import { EngineError, buildAdcTable, planTarget, type AdcTable } from "@/lib/engine";
+import { buildAdcTable, planTarget, type AdcTable } from "@/lib/engine";
 import type { BundlePlan } from "@/lib/bundle";
 import { rp2040TriggerView } from "@/lib/bundle/trigger-rp2040";
 import { renderRp2040Adc } from "@/lib/bundle/adc-rp2040";
 import { rpClock } from "@/lib/bundle/device-rp2040";
+import { expectEngineError } from "../engine/expect-engine-error";
 
 const IO_BANK0 = 0x40014000;
 const INTR0 = 0x0f0;
@@ -69,18 +70,12 @@ describe("RP2040 trigger input registers", () => {
   ] as const)(
     "an %s pin that is not GPIOn is refused naming both pins, on the timer field",
     (_, over, pins) => {
-      let caught: unknown;
-      try {
-        rp2040TriggerView({ ...triggered, ...over } as BundlePlan);
-      } catch (e) {
-        caught = e;
-      }
-      expect(caught).toBeInstanceOf(EngineError);
-      expect(caught).toMatchObject({
-        code: "invalid-request",
-        field: "timer",
-        message: `rp2040: pins ${pins}`,
-      });
+      const err = expectEngineError(
+        () => rp2040TriggerView({ ...triggered, ...over } as BundlePlan),
+        "invalid-request",
+      );
+      expect(err.field).toBe("timer");
+      expect(err.message).toBe(`rp2040: pins ${pins}`);
     },
   );
 });
@@ -133,8 +128,11 @@ describe("RP2040 clock set-up without a named clock source", () => {
   });
 
   it("a named crystal at another frequency is refused on clockHz", () => {
-    expect(() => rpClock({ ...plan(125e6), clockSource: "xosc" })).toThrow(
-      "rp2040: the crystal runs at 12000000 Hz, not 125000000 Hz",
+    const err = expectEngineError(
+      () => rpClock({ ...plan(125e6), clockSource: "xosc" }),
+      "clock-out-of-range",
     );
+    expect(err.field).toBe("clockHz");
+    expect(err.message).toBe("rp2040: the crystal runs at 12000000 Hz, not 125000000 Hz");
   });
 });

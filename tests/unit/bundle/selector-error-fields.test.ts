@@ -8,7 +8,9 @@
 // kept-control.test.ts and kept-part-limits.test.ts.
 import { describe, expect, it, vi } from "vitest";
 import { buildBundleSources } from "@/lib/bundle";
+import type { EngineError } from "@/lib/engine";
 import { GOLDEN_CASES } from "../../golden/cases";
+import { expectEngineError } from "../engine/expect-engine-error";
 
 const said = vi.hoisted(() => ({ message: "" }));
 vi.mock("@/lib/bundle/selector-avr", async (original) => ({
@@ -20,43 +22,38 @@ vi.mock("@/lib/bundle/selector-avr", async (original) => ({
 
 const kept = GOLDEN_CASES.find((c) => c.name === "kept-pot-555")!.spec;
 const tiny = kept.targets.find((t) => t.device === "attiny85")!;
-function refusal(message: string): unknown {
+function refusal(message: string): EngineError {
   said.message = message;
-  try {
-    buildBundleSources({
-      ...kept,
-      control: { kind: "selector", field: "c", values: [100e-9, 150e-9] },
-      targets: [kept.targets[0], tiny],
-    });
-  } catch (e) {
-    return e;
-  }
-  return null;
+  return expectEngineError(
+    () =>
+      buildBundleSources({
+        ...kept,
+        control: { kind: "selector", field: "c", values: [100e-9, 150e-9] },
+        targets: [kept.targets[0], tiny],
+      }),
+    "invalid-request",
+  );
 }
 
 describe("kept selector refusals name their field", () => {
   it("a 'control:' limit names control.values", () => {
-    expect(refusal("control: position 2 needs more than 256 counts.")).toMatchObject({
-      name: "EngineError",
-      code: "invalid-request",
-      field: "control.values",
-      message: "target 2 (attiny85) cannot keep the selector: position 2 needs more than 256 counts.",
-    });
+    const err = refusal("control: position 2 needs more than 256 counts.");
+    expect(err.field).toBe("control.values");
+    expect(err.message).toBe(
+      "target 2 (attiny85) cannot keep the selector: position 2 needs more than 256 counts.",
+    );
   });
 
   it("a 'targets:' limit names the target", () => {
-    expect(refusal("targets: PB2 is a selector input.")).toMatchObject({
-      code: "invalid-request",
-      field: "targets.1",
-      message: "target 2 (attiny85) cannot keep the selector: PB2 is a selector input.",
-    });
+    const err = refusal("targets: PB2 is a selector input.");
+    expect(err.field).toBe("targets.1");
+    expect(err.message).toBe("target 2 (attiny85) cannot keep the selector: PB2 is a selector input.");
   });
 
   it("a 'control.<field>:' limit keeps that field", () => {
-    expect(refusal("control.values: at most 3 positions.")).toMatchObject({ field: "control.values" });
-    expect(refusal("control.field: the part varies c only.")).toMatchObject({
-      field: "control.field",
-      message: "target 2 (attiny85) cannot keep the selector: the part varies c only.",
-    });
+    expect(refusal("control.values: at most 3 positions.").field).toBe("control.values");
+    const err = refusal("control.field: the part varies c only.");
+    expect(err.field).toBe("control.field");
+    expect(err.message).toBe("target 2 (attiny85) cannot keep the selector: the part varies c only.");
   });
 });
