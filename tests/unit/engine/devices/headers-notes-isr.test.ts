@@ -52,3 +52,19 @@ describe("PIC12F1840 interrupt plan registers (DS40001441)", () => {
     expect(p.registers).not.toHaveProperty("CCPR1L");
   });
 });
+
+describe("clock option labels name their frequency", () => {
+  // The clock list is how a user picks the oscillator: a fixed-frequency option must say its
+  // frequency in the words the datasheets use (8 MHz RC, 128 kHz, 16 MHz PLL, 31 kHz LFINTOSC,
+  // 32.768 kHz watch crystal); a variable one at least says what it is.
+  for (const d of devices)
+    it(d.id, () => {
+      for (const c of d.clocks) {
+        expect(c.label.trim(), c.id).not.toBe("");
+        if (c.hz !== undefined) {
+          const words = c.hz >= 1e6 ? `${c.hz / 1e6} MHz` : `${c.hz / 1e3} kHz`;
+          expect(c.label, c.id).toContain(words);
+        }
+      }
+    });
+});
