@@ -2,6 +2,20 @@
 // on its clock (the solver reports the achieved numbers either way).
 import type { BundleSpec, BundleTargetRequest } from "@/lib/bundle";
 
+/** MSP430G2553 at 1 MHz: a 1 ms pulse 4 ms after each input event, in a 20 ms (50 Hz) frame. */
+export const msp430TriggerRequest = (
+  start: "trigger" | "zero-cross" = "trigger",
+  extra: Partial<BundleTargetRequest> = {},
+): BundleTargetRequest => ({
+  device: "msp430g2553",
+  clockHz: 1e6,
+  periodS: 0.02,
+  highS: 1e-3,
+  start,
+  delayS: 4e-3,
+  ...extra,
+});
+
 export const TARGETS: BundleTargetRequest[] = [
   { device: "atmega328p", clockHz: 16e6, periodS: 0.02, highS: 0.0015, mode: "pwm" },
   { device: "atmega328p", clockHz: 16e6, periodS: 0.05, highS: 0.01, mode: "isr" },

@@ -10,7 +10,7 @@ import type { BundlePlan } from "@/lib/bundle";
 import { msp430ClockSetup } from "@/lib/bundle/device-msp430g2553";
 import { msp430g2553TriggerView } from "@/lib/bundle/trigger-msp430g2553";
 import { planTarget } from "@/lib/engine";
-import { TARGETS } from "./fixtures";
+import { TARGETS, msp430TriggerRequest } from "./fixtures";
 import { expectEngineError } from "../engine/expect-engine-error";
 
 describe("MSP430G2553 LFXT1 watch crystal", () => {
@@ -34,14 +34,7 @@ describe("MSP430G2553 LFXT1 watch crystal", () => {
 });
 
 describe("MSP430G2553 triggered firmware timer names", () => {
-  const plan = planTarget({
-    device: "msp430g2553",
-    clockHz: 1e6,
-    periodS: 0.02,
-    highS: 1e-3,
-    start: "trigger",
-    delayS: 4e-3,
-  } as never) as BundlePlan;
+  const plan = planTarget(msp430TriggerRequest()) as BundlePlan;
 
   it.each(["TIMER0_A3", "Timer0_A", "TA0"])("%s is Timer0_A3", (timer) => {
     expect(plan.timer).toBe("TIMER0_A3");

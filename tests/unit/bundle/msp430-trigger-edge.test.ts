@@ -9,23 +9,14 @@ import { buildBundleSources, type BundlePlan } from "@/lib/bundle";
 import { msp430g2553TriggerView } from "@/lib/bundle/trigger-msp430g2553";
 import { planTarget } from "@/lib/engine";
 import { expectEngineError } from "../engine/expect-engine-error";
+import { msp430TriggerRequest } from "./fixtures";
 
 function start(edge: "rising" | "falling"): { main: string; bit: string } {
   const files = buildBundleSources({
     retrofit: { name: "Edge check" },
     revision: 1,
     stage: { kind: "timer555-monostable", r: 10e3, c: 1e-6 },
-    targets: [
-      {
-        device: "msp430g2553",
-        clockHz: 1e6,
-        periodS: 0.02,
-        highS: 1e-3,
-        start: "trigger",
-        delayS: 4e-3,
-        edge,
-      } as never,
-    ],
+    targets: [msp430TriggerRequest("trigger", { edge })],
   });
   const main = String(files.find((f) => f.path === "msp430g2553/src/main.c")?.content);
   const bit = /P1IE \|= (BIT\d);/.exec(main)?.[1] ?? "none";
@@ -52,19 +43,11 @@ describe("MSP430G2553 trigger edge in P1IES", () => {
 // come once per half cycle." (lib/engine/solver/start.ts, the product's own
 // message), and the firmware view keeps to that even for a plan carrying it.
 describe("MSP430G2553 retrigger restart", () => {
-  const request = (start: "trigger" | "zero-cross") => ({
-    device: "msp430g2553",
-    clockHz: 1e6,
-    periodS: 0.02,
-    highS: 1e-3,
-    start,
-    delayS: 4e-3,
-  });
-  const plan = (start: "trigger" | "zero-cross") => planTarget(request(start) as never) as BundlePlan;
+  const plan = (start: "trigger" | "zero-cross") => planTarget(msp430TriggerRequest(start)) as BundlePlan;
 
   it("the engine refuses it on a zero-cross start", () => {
     const err = expectEngineError(
-      () => planTarget({ ...request("zero-cross"), retrigger: "restart" } as never),
+      () => planTarget(msp430TriggerRequest("zero-cross", { retrigger: "restart" })),
       "invalid-request",
       "retrigger",
     );
