@@ -14,14 +14,14 @@ import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { FOLDERS, folderOf } from "./folders";
 import type { ListedMutant } from "./list-mutants";
-import { fromReportLocation, mutantKey } from "./mutant-key";
+import { fromReportLocation, mutantKey, type MutantLocation } from "./mutant-key";
 import { wilson } from "./wilson";
 
 interface Mutant {
   mutatorName: string;
   replacement?: string;
   status: string;
-  location: { start: { line: number; column: number }; end: { line: number; column: number } };
+  location: MutantLocation;
 }
 interface Report {
   files: Record<string, { mutants: Mutant[] }>;

@@ -4,7 +4,7 @@
 import { readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import type { ListedMutant } from "./list-mutants";
-import { fromReportLocation, mutantKey } from "./mutant-key";
+import { fromReportLocation, mutantKey, type MutantLocation } from "./mutant-key";
 
 const folder = process.argv[2];
 if (!folder) {
@@ -22,7 +22,7 @@ const report = JSON.parse(readFileSync(`reports/mutation/sampled-${name}.json`, 
         mutatorName: string;
         replacement?: string;
         status: string;
-        location: { start: { line: number; column: number }; end: { line: number; column: number } };
+        location: MutantLocation;
       }[];
     }
   >;
