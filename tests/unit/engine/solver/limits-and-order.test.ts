@@ -89,10 +89,13 @@ describe("an interrupt plan's high time moves in whole interrupt intervals", () 
 });
 
 describe("a triggered run fits the compare register (PIC12F1840 Timer2)", () => {
-  // DS40001441, Timer2: PR2 and the count are 8-bit (0..255). The pulse ends
-  // at the compare value delay + pulse counts, so that sum must be <= 255;
-  // at Fosc/4 (4 MHz clock: 1 us per count) a 200 us delay with a 55 us pulse
-  // fits, with a 56 us pulse it does not and the next prescaler (1:4) is used.
+  // The engine plans a triggered run as one count of the timer, the pulse
+  // ending at the compare value delay + pulse, which must stay below the
+  // timer's count of states (the engine's rule, lib/engine/solver/triggered.ts;
+  // the PIC firmware then loads the two phases into PR2 one after the other).
+  // Timer2 counts 8 bits (DS40001441, Timer2: TMR2 and PR2 are 8-bit), so the
+  // sum must be <= 255: at Fosc/4 (4 MHz clock: 1 us per count) a 200 us delay
+  // with a 55 us pulse fits, with 56 us the next prescaler (1:4) is used.
   const req = {
     device: "pic12f1840",
     clockHz: 4e6,
