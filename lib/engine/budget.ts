@@ -17,6 +17,8 @@ export interface ClockVerdict {
   label: string;
   kind: ClockKind;
   accuracyPpm: number;
+  /** Where the option's accuracy figure comes from (datasheet, common practice, from memory). */
+  accuracySource: string;
   totalPpm: number;
   ok: boolean;
 }
@@ -108,6 +110,7 @@ export function accuracyBudget(plan: TimerPlan, input: BudgetInput): AccuracyBud
       label: c.label,
       kind: c.kind,
       accuracyPpm: c.accuracyPpm,
+      accuracySource: c.accuracySource,
       totalPpm: total,
       ok: total <= required,
     };
@@ -118,6 +121,13 @@ export function accuracyBudget(plan: TimerPlan, input: BudgetInput): AccuracyBud
   notes.push(
     `${meets ? "Meets" : "Misses"} the required ${round(required)} ppm${triggered ? " on the delay from the input edge" : ""}: clock ${round(clockPpm)} + quantization ${round(quantizationPpm)} + jitter ${round(jitterPpm)} = ${round(totalPpm)} ppm; ${dominant} dominates.`,
   );
+  const used = device?.clocks.find((c) => c.id === plan.clockSource);
+  if (used)
+    notes.push(
+      used.accuracyPpm === clockPpm
+        ? `Clock figure ${round(clockPpm)} ppm (${used.label}): ${used.accuracySource}.`
+        : `Clock figure ${round(clockPpm)} ppm as entered; ${used.label} is listed at ${round(used.accuracyPpm)} ppm (${used.accuracySource}).`,
+    );
   const gate = input.gateDrive ? gateVerdict(plan, input.gateDrive) : undefined;
   if (gate) notes.push(...gate.findings);
   if (quantizationPpm > required)
