@@ -18,6 +18,21 @@ function refuse(patch: Partial<Record<keyof PlanRequest, unknown>>, code: string
 }
 
 describe("bad plan requests", () => {
+  it("no request object at all is refused in words, not a type error", () => {
+    // A caller passing null, a number or a bare string gets the engine's own refusal, not a crash.
+    for (const body of [null, undefined, 42, "atmega328p"]) {
+      let err: unknown;
+      try {
+        planTarget(body as unknown as PlanRequest);
+      } catch (e) {
+        err = e;
+      }
+      expect(err).toBeInstanceOf(EngineError);
+      expect((err as EngineError).code).toBe("invalid-request");
+      expect((err as EngineError).message).toBe("A plan request object is required.");
+    }
+  });
+
   it("unknown device and timer name the known ones", () => {
     expect(refuse({ device: "atmega8" }, "unknown-device", "device").message).toContain("attiny85");
     expect(refuse({ timer: "TIM2" }, "unknown-timer", "timer").message).toContain("TIMER1");

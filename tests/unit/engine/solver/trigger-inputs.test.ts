@@ -22,3 +22,31 @@ describe("triggered plans: interrupt response of the input", () => {
     expect(TRIGGER_INPUTS.rp2040.input.fromMemory).toBe(true);
   });
 });
+
+describe("triggered plans: the input pin in the datasheets' pin names", () => {
+  // Typed here from each datasheet's pinout, not read from the device files. The generated
+  // code addresses the port by portName and bit (PORTD/PIND bit 2, GPIOA bit 1, P1IN bit 3 ...),
+  // the pin map prints port and package pin: all three must name the same pin.
+  // ATmega328P DS40002061 PDIP-28: PD2/INT0 = pin 4. ATtiny25/45/85 DS40001911 PDIP-8:
+  // PB2/INT0 = pin 7. PIC12F1840 DS40001441 PDIP-8: RA1 = pin 6. MSP430G2553 SLAS735 PDIP-20:
+  // P1.3 = pin 5. STM32G031 TSSOP-20 PA1 = pin 8 and RP2040 QFN-56 GPIO15 = pin 18: from memory.
+  const expected = {
+    atmega328p: { port: "PD2", portName: "D", bit: 2, packagePin: 4, package: "PDIP-28" },
+    attiny85: { port: "PB2", portName: "B", bit: 2, packagePin: 7, package: "PDIP-8" },
+    pic12f1840: { port: "RA1", portName: "A", bit: 1, packagePin: 6, package: "PDIP-8" },
+    msp430g2553: { port: "P1.3", portName: "1", bit: 3, packagePin: 5, package: "PDIP-20" },
+    stm32g031: { port: "PA1", portName: "A", bit: 1, packagePin: 8, package: "TSSOP-20" },
+    rp2040: { port: "GPIO15", portName: "GPIO", bit: 15, packagePin: 18, package: "QFN-56" },
+  };
+  for (const [device, want] of Object.entries(expected))
+    it(device, () => {
+      const got = TRIGGER_INPUTS[device as keyof typeof TRIGGER_INPUTS].input;
+      expect({
+        port: got.port,
+        portName: got.portName,
+        bit: got.bit,
+        packagePin: got.packagePin,
+        package: got.package,
+      }).toEqual(want);
+    });
+});
