@@ -54,7 +54,7 @@ export function loadLineChecks(
     return [
       errorCheck(
         "load-line-latch",
-        `Timing resistor ${fmt(x.r, "Ω")} passes at least the valley current (${fmt(x.valleyA, "A")}) at the valley point: the ${device} latches on after the first pulse. Use a timing resistor between ${range}.`,
+        `Timing resistor ${fmt(x.r, "Ω")} passes at least the valley current (${fmt(x.valleyA, "A")}) at the valley point: the ${device} latches on after the first pulse. Use a timing resistor from ${range}.`,
         "timingR",
       ),
     ];
@@ -62,7 +62,7 @@ export function loadLineChecks(
   return [
     errorCheck(
       "load-line-no-fire",
-      `Timing resistor ${fmt(x.r, "Ω")} cannot supply the peak-point current (${fmt(x.peakA, "A")}) at the trip voltage: the ${device} never fires. Use a timing resistor between ${range}.`,
+      `Timing resistor ${fmt(x.r, "Ω")} cannot supply the peak-point current (${fmt(x.peakA, "A")}) at the trip voltage: the ${device} never fires. Use a timing resistor from ${range}.`,
       "timingR",
     ),
   ];

@@ -72,7 +72,7 @@ describe("will-it-oscillate limits over the travel", () => {
     expect(t.points.at(-1)!.oscillates).toBe(false);
     // a stopped point carries the stage's own reason: 1.1 MΩ at full travel
     expect(t.points.at(-1)!.reason).toBe(
-      "Timing resistor 1.1 MΩ cannot supply the peak-point current (5 µA) at the trip voltage: the UJT never fires. Use a timing resistor between 2.5 kΩ to 768 kΩ.",
+      "Timing resistor 1.1 MΩ cannot supply the peak-point current (5 µA) at the trip voltage: the UJT never fires. Use a timing resistor from 2.5 kΩ to 768 kΩ.",
     );
     expect(t.points[0].reason).toBeUndefined();
     expect(t.points[0].oscillates).toBe(true);
@@ -80,6 +80,27 @@ describe("will-it-oscillate limits over the travel", () => {
     expect(check?.level).toBe("error");
     expect(check?.field).toBe("control.trackR");
     expect(check?.message).toMatch(/above 66\.\d % of the travel/);
+  });
+
+  it("names both limits when the travel leaves the running range at both ends", () => {
+    // Same UJT: below (Vs - Vv)/Iv it latches on. With the stage's default valley point
+    // (2 V, 4 mA; the stage's own reason below states them) that is 10 V / 4 mA = 2.5 kΩ.
+    // A 1 kΩ + 1.1 MΩ linear pot is R = 1 kΩ + x * 1.1 MΩ: under 2.5 kΩ below
+    // x = 1.5/1100 = 0.14 % and over 768 kΩ above x = 767/1100 = 69.7 % of the travel.
+    const t = analyzeTravel(
+      ujt,
+      { kind: "pot", field: "timingR", seriesR: 1e3, trackR: 1.1e6, taper: "linear" },
+      11,
+    );
+    expect(t.limits.map((l) => l.side)).toEqual(["stops-below", "stops-above"]);
+    expect(t.limits[0].value).toBeCloseTo((12 - 2) / 4e-3, -1);
+    expect(t.limits[0].position).toBeCloseTo(1.5 / 1100, 5);
+    expect(t.limits[1].position).toBeCloseTo(767 / 1100, 5);
+    const check = t.checks.find((c) => c.code === "control-crosses-limit")!;
+    expect(check.message).toContain(
+      "crosses the stage's limit: below 0.1 % of the travel (timingR under 2.5 kΩ) and above 69.7 % of the travel (timingR over 768 kΩ) the stage does not run.",
+    );
+    expect(check.message).toContain("passes at least the valley current (4 mA)");
   });
 
   it("says so when no position runs", () => {

@@ -81,4 +81,20 @@ describe("stage validation", () => {
       expectEngineError(() => analyzeStage({ ...s, tolerances } as Stage), "invalid-stage", field);
     }
   });
+
+  it("tolerances: an uneven [minus, plus] pair, the plus side checked on its own", () => {
+    const s = valid[3];
+    // IEC 60062 tolerance letter Z is -20 % / +80 % (wide-tolerance capacitors): a valid pair.
+    expect(() => analyzeStage({ ...s, tolerances: { c: [0.2, 0.8] } } as Stage)).not.toThrow();
+    // The engine's own bounds on the plus side: 0 to 10 (+1000 %), the ends included.
+    expect(() => analyzeStage({ ...s, tolerances: { c: [0.2, 10] } } as Stage)).not.toThrow();
+    for (const plus of [10.5, -0.1]) {
+      const err = expectEngineError(
+        () => analyzeStage({ ...s, tolerances: { c: [0.2, plus] } } as Stage),
+        "invalid-stage",
+        "tolerances.c",
+      );
+      expect(err.message).toBe("tolerances.c: the plus tolerance must be from 0 to 10.");
+    }
+  });
 });
