@@ -4,8 +4,9 @@
 // at reset, so a user calibration must be written by the firmware at start.
 // The bundle keeps the chip's own value in EEPROM byte 0 (avr-libc
 // eeprom_read_byte; 0xFF is an erased byte, AVR datasheets "EEPROM": erased =
-// 0xFF) and its README's flashing steps say how to store it. The factory-calibrated
-// option has none of this.
+// 0xFF); its README's flashing steps say how to store it, and the checklist
+// has a bench line that it was stored. The factory-calibrated option has none
+// of this.
 import { describe, expect, it } from "vitest";
 import { buildBundleSources, type BundleTargetRequest } from "@/lib/bundle";
 import { spec } from "./fixtures";
@@ -25,6 +26,7 @@ function files(device: "atmega328p" | "attiny85", clockSource: "rc8m" | "rc8m-ca
     main: text(`${device}/src/main.c`),
     makefile: text(`${device}/Makefile`),
     readme: text("README.md"),
+    checklist: text(`${device}/CHECKLIST.md`),
   };
 }
 
@@ -47,6 +49,7 @@ describe("AVR user-calibrated RC", () => {
       expect(f.main).not.toContain("avr/eeprom.h");
       expect(f.makefile).not.toMatch(/^calibration:/m);
       expect(f.readme).not.toContain("OSCCAL");
+      expect(f.checklist).not.toContain("OSCCAL");
     });
   }
 });
