@@ -18,7 +18,7 @@ const base = planTarget({
   clockHz: 16e6,
   periodS: 1e-3,
   highS: 0.25e-3,
-} as never) as BundlePlan;
+}) as BundlePlan;
 const at = (clockSource: string, clockHz: number) => ({ ...base, clockSource, clockHz }) as BundlePlan;
 
 describe("PIC12F1840 external clock modes by frequency", () => {

@@ -16,7 +16,7 @@ const plan = planTarget({
   highS: 1e-3,
   start: "trigger",
   delayS: 4e-3,
-} as never) as BundlePlan;
+}) as BundlePlan;
 
 describe("PIC12F1840 trigger phases in PR2", () => {
   it("256 delay counts (PR2 = 255) are taken", () => {

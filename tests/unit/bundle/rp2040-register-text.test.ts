@@ -39,7 +39,7 @@ const triggered = planTarget({
   start: "trigger",
   delayS: 0.004,
   edge: "rising",
-} as never) as BundlePlan;
+}) as BundlePlan;
 const withInput = (gpio: number): BundlePlan => ({
   ...triggered,
   input: { ...triggered.input!, port: `GPIO${gpio}`, gpio, bit: gpio },

@@ -28,7 +28,7 @@ interface Case {
 }
 
 async function bundleFor(c: Case) {
-  const plan = planTarget(c.request as never) as unknown as BundlePlan;
+  const plan = planTarget(c.request) as BundlePlan;
   const files = await buildBundleFiles(spec([c.request]));
   return { plan, files };
 }

@@ -17,7 +17,7 @@ const plan = (timer: "TIM2" | "TIM3") =>
     highS: 0.0015,
     mode: "pwm",
     timer,
-  } as never) as BundlePlan;
+  }) as BundlePlan;
 
 describe.each([
   ["TIM2", "PA0", 2],

@@ -38,7 +38,7 @@ describe("bundle and triggered plans", () => {
       retrofit: { name: "Refusal check" },
       revision: 1,
       stage,
-      targets: [{ device, clockHz, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 } as never],
+      targets: [{ device, clockHz, periodS: 0.01, highS: 1e-4, start: "zero-cross", delayS: 0.005 }],
     });
     const main = files.find((f) => f.path === `${device}/src/main.c`);
     expect(String(main?.content)).toMatch(handler);
