@@ -7,6 +7,7 @@
 import { describe, expect, it } from "vitest";
 import type { BundlePlan } from "@/lib/bundle";
 import { DEVICES } from "@/lib/bundle/devices";
+import { avrTriggerView } from "@/lib/bundle/trigger-avr";
 import { planTarget } from "@/lib/engine";
 import { TARGETS } from "./fixtures";
 import { expectEngineError } from "../engine/expect-engine-error";
@@ -51,5 +52,38 @@ describe("ATtiny85 Timer0 OCR0A (8-bit TOP in modes 2 and 7)", () => {
     expect(refusal({ ...t0, periodCounts: 257 })).toBe(
       "attiny85: OCR0A = 256 is outside 1..255 (timer TIMER0, mode pwm)",
     );
+  });
+});
+
+describe("ATtiny85 triggered one-shot: each timer's own control registers", () => {
+  // DS2586: Timer/Counter1 has a single control register TCCR1 whose CS13:10 select
+  // CK/2^(CS - 1) (0001 = CK .. 1101 = CK/4096 .. 1111 = CK/16384), with channel B's
+  // set-up in GTCCR; Timer/Counter0 selects its clock with CS02:00 in TCCR0B
+  // (100 = clk/256) beside TCCR0A (table numbers not checked: from memory).
+  const triggered = (periodS: number, highS: number, delayS: number, timer?: string) =>
+    planTarget({
+      device: "attiny85",
+      clockHz: 8e6,
+      periodS,
+      highS,
+      mode: "isr",
+      start: "trigger",
+      delayS,
+      ...(timer ? { timer } : {}),
+    }) as BundlePlan;
+
+  it("Timer1 at CK/4096 writes TCCR1 with CS13:10 = 1101 and GTCCR", () => {
+    // 10 ms delay + 110 ms pulse: beyond Timer0's 256 x 1024 / 8 MHz = 32.8 ms, so Timer1 is planned
+    const p = triggered(0.5, 0.11, 0.01);
+    expect([p.timer, p.divider]).toEqual(["TIMER1", 4096]);
+    const v = avrTriggerView(p)!;
+    expect([v.ctrl, v.csValue, v.ctrlOther]).toEqual(["TCCR1", 0b1101, "GTCCR"]);
+  });
+
+  it("Timer0 at clk/256 writes TCCR0B with CS02:00 = 100 and TCCR0A", () => {
+    const p = triggered(0.01, 1e-3, 4e-3, "TIMER0");
+    expect([p.timer, p.divider]).toEqual(["TIMER0", 256]);
+    const v = avrTriggerView(p)!;
+    expect([v.ctrl, v.csValue, v.ctrlOther]).toEqual(["TCCR0B", 0b100, "TCCR0A"]);
   });
 });

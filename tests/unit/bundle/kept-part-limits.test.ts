@@ -117,3 +117,25 @@ describe("RP2040 kept selector on a travel too wide for edge-aligned PWM", () =>
     );
   });
 });
+
+describe("A kept selector position the second target's timer cannot reach", () => {
+  // NE555 astable (TI NE555 datasheet): T = ln 2 (Ra + 2 Rb) C, so 4.7 uF with Ra = 1k,
+  // Rb = 10k gives 68.4 ms. The ATtiny85's 8-bit Timer0 at 8 MHz reaches at most
+  // 256 x 1024 / 8 MHz = 32.8 ms (DS2586, Timer/Counter0 prescaler up to clk/1024);
+  // the ATmega328P's 16-bit Timer1 at 16 MHz reaches 4.19 s (DS40002061). The
+  // refusal names the target that cannot keep it, counted from 1 in the text.
+  it("is refused naming target 2 (targets.1), the ATtiny85", () => {
+    const kept = GOLDEN_CASES.find((c) => c.name === "kept-pot-555")!.spec;
+    const mega = kept.targets.find((t) => t.device === "atmega328p")!;
+    const tiny = kept.targets.find((t) => t.device === "attiny85")!;
+    const control = { kind: "selector", field: "c", values: [100e-9, 4.7e-6] } as const;
+    expect(Math.LN2 * (1e3 + 2 * 10e3) * 4.7e-6).toBeGreaterThan((256 * 1024) / 8e6);
+    expect(() => buildBundleSources({ ...kept, control, targets: [mega] })).not.toThrow();
+    const err = expectEngineError(
+      () => buildBundleSources({ ...kept, control, targets: [mega, tiny] }),
+      "invalid-request",
+    );
+    expect(err.field).toBe("targets.1");
+    expect(err.message).toMatch(/^target 2 \(attiny85\) cannot keep the selector: The longest period/);
+  });
+});

@@ -136,3 +136,29 @@ describe("RP2040 clock set-up without a named clock source", () => {
     expect(err.message).toBe("rp2040: the crystal runs at 12000000 Hz, not 125000000 Hz");
   });
 });
+
+describe("RP2040 rate-pot ADC input (CS.AINSEL)", () => {
+  // RP2040 datasheet, 4.9 ADC: five inputs, AIN0..3 on GPIO26..29 and input 4 the
+  // on-chip temperature sensor (no pin); pico-sdk adc_select_input() documents
+  // 0..3 as GPIO26..29 and 4 as the temperature sensor. A wiper can only reach 0..3.
+  const table = buildAdcTable({
+    stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
+    control: { kind: "pot", field: "rb", seriesR: 2.2e3, trackR: 47e3, taper: "linear" },
+    device: "rp2040",
+    clockHz: 12e6,
+    clockSource: "xosc",
+    adcBits: 12,
+    steps: 64,
+  });
+  const header = (channel: number) => renderRp2040Adc({ table, channel, controlText: "rate pot as Rb" });
+
+  it("ADC3 is the last pin input: AINSEL = 3 on GPIO29", () => {
+    const h = header(3);
+    expect(h).toContain("(3u << 12) | ADC_CS_START_ONCE; /* AINSEL = 3 */");
+    expect(h).toContain("PADS_BANK0_GPIO(29) = (1u << 7);");
+  });
+
+  it.each([4, -1, 1.5])("channel %d is refused naming ADC0..ADC3 on GPIO26..29", (channel) => {
+    expect(() => header(channel)).toThrow("channel: ADC0..ADC3 (GPIO26..29).");
+  });
+});
