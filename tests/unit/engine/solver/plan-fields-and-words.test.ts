@@ -1,6 +1,7 @@
 // Plan fields and words a fresh mutation sample (seed 53) showed no test
-// holding: the interrupt interval of a plan without interrupts, the first
-// note of a triggered plan, and the clock source a refused frequency names.
+// holding: the interrupt interval of a plan without interrupts, the jitter of
+// a whole RP2040 divider, the first note of a triggered plan, and the clock
+// source a refused frequency names.
 import { describe, expect, it } from "vitest";
 import { planTarget, type PlanRequest } from "@/lib/engine";
 import { expectEngineError } from "../expect-engine-error";
@@ -17,6 +18,21 @@ describe("interrupt interval only on interrupt plans", () => {
       expect(p.interruptIntervalS).toBeNull();
       expect(p.interruptIntervalCycles).toBeNull();
     });
+});
+
+describe("a whole RP2040 divider adds no jitter", () => {
+  // RP2040 datasheet, PWM chapter: the divider is DIV_INT + DIV_FRAC/16; a
+  // fractional part makes the counter step alternate between DIV_INT and
+  // DIV_INT + 1 system clocks (from memory), DIV_FRAC = 0 steps evenly.
+  // lib/engine/plan-types.ts, TimerPlan.jitterS: "0 for pure hardware; one sys
+  // clock for a fractional RP2040 divider".
+  it("1 ms at 125 MHz plans with divider 1: jitter 0, no fractional note", () => {
+    const p = planTarget({ device: "rp2040", clockHz: 125e6, periodS: 1e-3, highS: 0.25e-3 });
+    expect(Number.isInteger(p.divider)).toBe(true);
+    expect(p.divFrac).toBe(0);
+    expect(p.jitterS).toBe(0);
+    expect(p.notes.filter((n) => n.startsWith("Fractional divider"))).toEqual([]);
+  });
 });
 
 describe("a triggered plan's first note names what starts the timer", () => {
