@@ -36,6 +36,10 @@ describe("STM32G031 clock options", () => {
     // HSISYS = 16 MHz / 2^HSIDIV, HSIDIV 0..7 (RM0444 RCC_CR)
     for (let k = 0; k <= 7; k++) expect(list).toContain(16e6 / 2 ** k);
     expect(list).toContain(64e6); // 16 MHz * 8 / 2, the PLL's top (PLLRCLK at most 64 MHz)
+    // RM0444 RCC_PLLCFGR: PLLRCLK at most 64 MHz (from memory), so nothing above it
+    // is offered; and only whole numbers of Hz (the list's own rule, stm32g031-clock-tree.ts).
+    expect(Math.max(...list)).toBe(64e6);
+    expect(list.filter((hz) => !Number.isInteger(hz))).toEqual([]);
     for (const hz of list) {
       const t = stm32ClockTree("hsi16", hz)!;
       expect(t.sysclkHz).toBe(hz);
