@@ -39,8 +39,9 @@ sampled_tests() {
       echo "$b/registers.test.ts,$b/golden.test.ts,$b/determinism.test.ts,$b/limits.test.ts,$b/adc-clock.test.ts,$b/avr-fuses.test.ts,$b/kept-control.test.ts,$b/triggered-refusal.test.ts,$b/adc-avr-source.test.ts,$b/pic12f1840-oscillator-text.test.ts,$b/rp2040-register-text.test.ts,$b/attiny85-timer1.test.ts,$b/build-target-checks.test.ts,$b/pic12f1840-clock-config.test.ts,$b/kept-part-limits.test.ts,$b/selector-error-fields.test.ts,$b/msp430-trigger-edge.test.ts,$b/rp2040-selector-part.test.ts,$b/stm32g031-alternate-function.test.ts,$b/pic12f1840-trigger-pr2.test.ts,$b/msp430-clock-and-timer.test.ts,$b/atmega328p-unknown-timer.test.ts,$b/caution-lines.test.ts,$b/avr-user-calibrated-rc.test.ts,$b/msp430-trigger-ccr-limit.test.ts,$b/msp430-trigger-shortest-delay.test.ts,$b/bit-expression.test.ts,$b/pic12f1840-trimmer-text.test.ts" ;;
     lib/capture) echo "tests/unit/capture/*.test.ts" ;;
     lib/engine)
-      # budget.ts and crystals.ts are judged by their tests in solver/ (they plan through the solver)
-      echo "tests/unit/engine/stages/**/*.test.ts,tests/unit/engine/tolerance/**/*.test.ts,tests/unit/engine/units/**/*.test.ts,tests/unit/engine/adjust/**/*.test.ts,tests/unit/engine/solver/budget-crystals.test.ts,tests/unit/engine/solver/budget-clock-source.test.ts,tests/unit/engine/solver/gate-drive.test.ts" ;;
+      # budget.ts and crystals.ts are judged by their tests in solver/ (they plan through the solver);
+      # formatPpm (units.ts) by validation/presentation.test.ts
+      echo "tests/unit/engine/stages/**/*.test.ts,tests/unit/engine/tolerance/**/*.test.ts,tests/unit/engine/units/**/*.test.ts,tests/unit/engine/adjust/**/*.test.ts,tests/unit/engine/solver/budget-crystals.test.ts,tests/unit/engine/solver/budget-clock-source.test.ts,tests/unit/engine/solver/gate-drive.test.ts,tests/unit/validation/presentation.test.ts" ;;
     *) echo "unknown folder: $1" >&2; exit 2 ;;
   esac
 }

@@ -70,6 +70,22 @@ describe("clean trapezoid pulse train", () => {
     expect(m.periodS.count).toBe(1);
     expect(m.periodS.std).toBe(0);
     expect(m.warnings.map((w) => w.code)).toContain("few-periods");
+    // The product's own warning text (measure.ts), naming the count it found.
+    expect(m.warnings.find((w) => w.code === "few-periods")?.message).toBe(
+      "only 1 full period in the capture; spread needs at least 2",
+    );
+  });
+
+  it("does not warn when the capture holds two periods", async () => {
+    // 2600 samples: rises at 105, 1105 and 2105 us, so two waveform periods
+    // (IEEE 181: between successive rising 50 % instants). A sample standard
+    // deviation needs two values (n - 1 in its denominator; textbook, from
+    // memory), which two periods give.
+    const { t, v } = trapezoid({ ...p, n: 2600 });
+    const m = await measureCsv(toCsv([t, v], { header: HEADER }));
+    expect(m.periodS.count).toBe(2);
+    expect(m.periodS.mean).toBeCloseTo(truth.periodS, 15);
+    expect(m.warnings).toEqual([]);
   });
 });
 

@@ -43,4 +43,12 @@ describe("trimmer calibration", () => {
     expect(c.periodAtEndS).toBeCloseTo(LN2 * (1e3 + 2 * 12.9e3) * 1e-6, 12);
     expect(c.instruction).toMatch(/calibration constant/);
   });
+
+  it("refuses a control that is not a trimmer, saying which kind it takes", () => {
+    // A pot is kept on the new board and read by the ADC (the table above); only
+    // a trimmer becomes a constant. The product's own message (checklist.ts).
+    expect(() => trimmerCalibration(astable, pot)).toThrow(
+      new TypeError("trimmerCalibration takes a trimmer control"),
+    );
+  });
 });

@@ -46,6 +46,18 @@ describe("threshold stage", () => {
     expect(a.checks[0]).toMatchObject({ level: "error", code: "supply-below-trip", field: "supplyV" });
   });
 
+  it("a supply equal to the trip voltage never fires either", () => {
+    // The charge toward Vs reaches Vp = Vs only as t -> infinity: R C ln((Vs - Vv)/(Vs - Vp))
+    // has a zero in its denominator (first-order charge, header). The product's own message.
+    const a = analyzeStage({ ...neon, supplyV: 90 });
+    expect(a.oscillates).toBe(false);
+    expect(a.checks).toHaveLength(1);
+    expect(a.checks[0]).toMatchObject({ level: "error", code: "supply-below-trip", field: "supplyV" });
+    expect(a.checks[0].message).toBe(
+      "The capacitor can charge at most to the supply (90 V), which does not exceed the trip voltage (90 V): the stage never fires. Raise the supply or lower the trip voltage.",
+    );
+  });
+
   it("reversed thresholds are an input error naming peakV", () => {
     expectEngineError(() => analyzeStage({ ...neon, peakV: 50 }), "invalid-stage", "peakV");
     expectEngineError(() => analyzeStage({ ...neon, peakV: 60 }), "invalid-stage", "peakV");

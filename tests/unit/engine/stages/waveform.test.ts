@@ -87,6 +87,16 @@ describe("event-based waveform", () => {
     expect(w[fall].tS - w[fall - 1].tS).toBeLessThan(1e-7);
   });
 
+  it("draws the fall upright at the scale of the pulse itself", () => {
+    // The last high point sits just before the fall (waveform.ts: "the instant
+    // just before it, so a step draws upright"): within a thousandth of the
+    // 16.7 us pulse, not a fixed share of the 50 ms period (common practice, no source).
+    const w = sampleAt(narrow, 800);
+    const fall = w.findIndex((p, i) => i > 0 && p.out === 0 && w[i - 1].out === 1);
+    expect(w[fall].tS).toBeCloseTo(16.7e-6, 15);
+    expect(w[fall].tS - w[fall - 1].tS).toBeLessThan(16.7e-6 / 1000);
+  });
+
   it("planted fault: an even 800-point grid misses the pulse", () => {
     const even = Array.from({ length: 800 }, (_, i) => {
       const tS = (2 * 50e-3 * (i + 0.5)) / 800; // any grid phase off the edge
