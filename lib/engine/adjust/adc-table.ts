@@ -195,7 +195,7 @@ export function commonDividerPlan(
   if (plan.mode !== "pwm" || plan.softwareDivider !== 1)
     bad(
       "control",
-      "The longest period of the travel needs a software divider on this clock; a lower clock keeps it in hardware PWM, which the ADC table needs.",
+      "The longest period of the control's travel needs a software divider on this clock; the kept control needs it in hardware PWM, one divider for every setting: choose a lower clock.",
     );
   const tick = (plan.divider * plan.modeFactor) / plan.clockHz;
   return { plan, tick };
