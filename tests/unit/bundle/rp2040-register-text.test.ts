@@ -80,8 +80,9 @@ describe("RP2040 trigger input registers", () => {
   );
 });
 
-describe("RP2040 rate-pot PWM divider (CHx_DIV 8.4)", () => {
-  const table = buildAdcTable({
+/** A 555 astable whose Rb is a rate pot, kept on the RP2040 at 12 MHz (example circuit). */
+const potTable = () =>
+  buildAdcTable({
     stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
     control: { kind: "pot", field: "rb", seriesR: 2.2e3, trackR: 47e3, taper: "linear" },
     device: "rp2040",
@@ -90,6 +91,9 @@ describe("RP2040 rate-pot PWM divider (CHx_DIV 8.4)", () => {
     adcBits: 12,
     steps: 64,
   });
+
+describe("RP2040 rate-pot PWM divider (CHx_DIV 8.4)", () => {
+  const table = potTable();
   const withDivider = (divider: number): AdcTable => ({ ...table, plan: { ...table.plan, divider } });
   const header = (divider: number) =>
     renderRp2040Adc({ table: withDivider(divider), controlText: "rate pot as Rb" });
@@ -141,15 +145,7 @@ describe("RP2040 rate-pot ADC input (CS.AINSEL)", () => {
   // RP2040 datasheet, 4.9 ADC: five inputs, AIN0..3 on GPIO26..29 and input 4 the
   // on-chip temperature sensor (no pin); pico-sdk adc_select_input() documents
   // 0..3 as GPIO26..29 and 4 as the temperature sensor. A wiper can only reach 0..3.
-  const table = buildAdcTable({
-    stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
-    control: { kind: "pot", field: "rb", seriesR: 2.2e3, trackR: 47e3, taper: "linear" },
-    device: "rp2040",
-    clockHz: 12e6,
-    clockSource: "xosc",
-    adcBits: 12,
-    steps: 64,
-  });
+  const table = potTable();
   const header = (channel: number) => renderRp2040Adc({ table, channel, controlText: "rate pot as Rb" });
 
   it("ADC3 is the last pin input: AINSEL = 3 on GPIO29", () => {

@@ -1,18 +1,12 @@
 // Unreadable or unmeasurable captures: each is refused with a typed
 // CaptureError whose code says why and whose message names the line.
 import { describe, expect, it } from "vitest";
-import { CaptureError, MAX_CAPTURE_BYTES, measureCsv, isCaptureError } from "@/lib/capture";
+import { MAX_CAPTURE_BYTES, measureCsv } from "@/lib/capture";
 import { byteChunks } from "./fixtures/synth";
+import { captureRefusal } from "./capture-refusal";
 
-async function refusal(source: Parameters<typeof measureCsv>[0], maxBytes?: number) {
-  try {
-    await measureCsv(source, maxBytes === undefined ? {} : { maxBytes });
-  } catch (e) {
-    expect(isCaptureError(e)).toBe(true);
-    return e as CaptureError;
-  }
-  throw new Error("expected a CaptureError");
-}
+const refusal = (source: Parameters<typeof measureCsv>[0], maxBytes?: number) =>
+  captureRefusal(() => measureCsv(source, maxBytes === undefined ? {} : { maxBytes }));
 
 /** A clean 0/5 V square wave, 10 samples per half period. */
 function squareRows(n: number): string[] {

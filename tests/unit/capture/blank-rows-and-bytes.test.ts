@@ -4,21 +4,14 @@
 // column names and the data, and the UTF-8 byte count of U+0080 against the
 // upload limit.
 import { describe, expect, it } from "vitest";
-import { isCaptureError, parseCapture, type CaptureError } from "@/lib/capture";
+import { parseCapture } from "@/lib/capture";
 import { utf8Length } from "@/lib/capture/text-source";
+import { captureRefusal } from "./capture-refusal";
 
 /** Ten samples of a 0 / 5 V square wave. */
 const SQUARE = [0, 0, 5, 5, 5, 0, 0, 5, 5, 0];
 
-async function refusal(run: () => Promise<unknown>): Promise<CaptureError> {
-  try {
-    await run();
-  } catch (e) {
-    expect(isCaptureError(e)).toBe(true);
-    return e as CaptureError;
-  }
-  throw new Error("expected a CaptureError");
-}
+const refusal = captureRefusal;
 
 describe("delimiter of a headerless file", () => {
   it("whole numbers split by commas are two columns, not one column of decimal commas", async () => {

@@ -6,17 +6,10 @@
 // "-1.#IND" and "1.#QNAN" are how the Microsoft C runtime printed infinity,
 // indeterminate and quiet NaN before 2015 (from memory).
 import { describe, expect, it } from "vitest";
-import { type CaptureError, isCaptureError, parseCapture } from "@/lib/capture";
+import { parseCapture } from "@/lib/capture";
+import { captureRefusal } from "./capture-refusal";
 
-async function refusal(text: string): Promise<CaptureError> {
-  try {
-    await parseCapture(text);
-  } catch (e) {
-    expect(isCaptureError(e)).toBe(true);
-    return e as CaptureError;
-  }
-  throw new Error("expected a CaptureError");
-}
+const refusal = (text: string) => captureRefusal(() => parseCapture(text));
 
 /** A 0 / 5 V square wave, 1 us a sample, as "t,v" rows. */
 function rows(n: number): string[] {

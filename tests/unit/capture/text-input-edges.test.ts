@@ -3,19 +3,12 @@
 // field of blanks, a "name / unit" header without a blank after the slash and
 // a blank line inside headerless data with a sample interval.
 import { describe, expect, it } from "vitest";
-import { CaptureError, isCaptureError, parseCapture } from "@/lib/capture";
+import { parseCapture } from "@/lib/capture";
 import { utf8Length } from "@/lib/capture/text-source";
 import { splitNameUnit } from "@/lib/capture/units";
+import { captureRefusal } from "./capture-refusal";
 
-async function refusal(run: () => Promise<unknown>): Promise<CaptureError> {
-  try {
-    await run();
-  } catch (e) {
-    expect(isCaptureError(e)).toBe(true);
-    return e as CaptureError;
-  }
-  throw new Error("expected a CaptureError");
-}
+const refusal = captureRefusal;
 
 describe("text input edges", () => {
   it("a character outside the BMP counts 4 bytes even where the string is read in 1 MiB slices", async () => {
