@@ -56,14 +56,15 @@ interface Pulse {
   off: number;
 }
 
-function pulses(io: IoWrite[]): Pulse[] {
+/** Pulses on P1.2 from the P1OUT byte writes; an active-low output's pulse is the pin low. */
+function pulses(io: IoWrite[], activeLow = false): Pulse[] {
   const list: Pulse[] = [];
   let on: number | null = null;
   for (const w of io) {
     if (w.addr !== P1OUT || w.width !== "b") continue;
-    const high = (w.value & OUT_MASK) !== 0;
-    if (high && on === null) on = w.at;
-    if (!high && on !== null) {
+    const active = ((w.value & OUT_MASK) !== 0) !== activeLow;
+    if (active && on === null) on = w.at;
+    if (!active && on !== null) {
       list.push({ on, off: w.at });
       on = null;
     }
@@ -127,9 +128,9 @@ function schedule(list: { cycle: number; level: 0 | 1 }[]): InputChange[] {
   });
 }
 
-function run(elf: string, list: { cycle: number; level: 0 | 1 }[], tail = 6000) {
+function run(elf: string, list: { cycle: number; level: 0 | 1 }[], tail = 6000, activeLow = false) {
   const r = runWithInputs(elf, schedule(list), tail, { p1Irq: PORT1_SLOT });
-  return { ...r, pulses: pulses(r.io) };
+  return { ...r, pulses: pulses(r.io, activeLow) };
 }
 
 function mains(hz: number, halfCycles: number): { cycle: number; level: 0 | 1 }[] {
@@ -242,6 +243,28 @@ describe("MSP430G2553 triggered one-shot in mspdebug's simulator", () => {
       { cycle: 1000, level: 1 },
     ]);
     expect(judge(ignore.plan, [r.changeAt[0]], r.pulses)).toEqual([]);
+  });
+
+  // Active-low (the engine's "the pin is low for the pulse"): SLAU144 Digital I/O, a pin with its
+  // P1DIR bit set is driven at its P1OUT bit, so P1OUT must already hold the off level (high) when
+  // the P1DIR write turns the driver on, and the pin is low only between the two timer interrupts.
+  it("active-low: high from the moment the driver is on, low for the delayed pulse only", () => {
+    const b = build({ ...trig, retrigger: "ignore", activeLow: true });
+    const r = run(b.elf, [{ cycle: 0, level: 1 }], 6000, true);
+    const P1DIR = 0x22;
+    const driverOn = r.io.find((w) => w.addr === P1DIR && w.width === "b" && (w.value & OUT_MASK) !== 0);
+    expect(driverOn, "a P1DIR write that makes P1.2 an output").toBeDefined();
+    const outBefore = r.io.filter((w) => w.addr === P1OUT && w.width === "b" && w.at <= driverOn!.at);
+    expect(outBefore.length).toBeGreaterThan(0);
+    expect(outBefore.at(-1)!.value & OUT_MASK).toBe(OUT_MASK);
+    // no low level between the driver switching on and the first pulse
+    const firstOn = r.pulses[0]?.on ?? Infinity;
+    const lowEarly = r.io.filter(
+      (w) =>
+        w.addr === P1OUT && w.width === "b" && w.at > driverOn!.at && w.at < firstOn && !(w.value & OUT_MASK),
+    );
+    expect(lowEarly).toEqual([]);
+    expect(judge(b.plan, [r.changeAt[0]], r.pulses)).toEqual([]);
   });
 
   it("restart rule: a second trigger during the delay starts it again", () => {
