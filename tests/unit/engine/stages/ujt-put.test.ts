@@ -135,4 +135,20 @@ describe("UJT with its peak point below the valley point", () => {
       "The trip voltage (1.85 V) is not above the release voltage (2 V): the element never switches off and on in turn. Check the device data.",
     );
   });
+
+  it("a peak point equal to the valley point is the same case", () => {
+    // valleyV written as the engine's own Vp = eta*Vs + VD, so the two are the same
+    // number; Vp = Vv leaves no negative-resistance region either (2N2646 data sheet).
+    const a = analyzeStage({
+      kind: "ujt",
+      supplyV: 2.5,
+      timingR: 100,
+      timingC: 1e-6,
+      eta: 0.5,
+      valleyV: 0.5 * 2.5 + 0.6,
+    });
+    expect(a.oscillates).toBe(false);
+    expect(a.checks).toHaveLength(1);
+    expect(a.checks[0]).toMatchObject({ level: "error", code: "trip-below-release", field: "eta" });
+  });
 });
