@@ -20,11 +20,14 @@ const plan = planTarget({
   mode: "pwm",
   timer: "TIMER1",
 });
-const range = buildTrimRange(stage, trimmer, plan);
+// Built inside each test: a refusal here then fails that test instead of the
+// file's loading (which the mutation runner would not count as a failure).
+const trimRange = () => buildTrimRange(stage, trimmer, plan);
 const count = 1 / 16e6;
 
 describe("trimmer calibration range", () => {
   it("runs from Rb = seriesR to seriesR + trackR in timer counts (NE555 formula)", () => {
+    const range = trimRange();
     expect(plan.divider).toBe(1);
     expect(range.countS).toBeCloseTo(count, 15);
     // the engine's 555 model may add the discharge's own small terms: within one count of the formula
@@ -36,6 +39,7 @@ describe("trimmer calibration range", () => {
   });
 
   it("the high time of any constant follows the 555's law within one count", () => {
+    const range = trimRange();
     // 555: Rb = (T/(ln2 C) - Ra)/2, so high = ln2*C*(Ra + Rb) is linear in T
     for (const n of [
       range.min.periodCounts + 1,
@@ -106,5 +110,32 @@ describe("trimmer calibration range", () => {
     expect(err.message).toBe(
       "With the trimmer at its end the stage does not run; keep the whole travel inside its limits.",
     );
+  });
+
+  it("refuses a travel whose shortest period is one timer count and takes one of two counts", () => {
+    // A PWM period of n counts can be high for 1 .. n - 1 of them (engine.md:
+    // high for OCR1A + 1 counts of a TOP + 1 period), so a trimmer whose
+    // shortest period rounds to one count cannot keep both levels; the refusal
+    // is the product's own message. The plan is this file's ATmega328P plan
+    // with the count length set by hand: the shortest period (Rb = seriesR,
+    // NE555 formula) is 1.2 counts, then 2.2 counts.
+    const shortest = period(8.2e3);
+    const withCounts = (countsAtShortest: number) => {
+      const countS = shortest / countsAtShortest;
+      return {
+        ...plan,
+        clockHz: 1 / countS,
+        divider: 1,
+        modeFactor: 1,
+        periodCounts: Math.round(period(10e3) / countS),
+        highCounts: 1,
+      };
+    };
+    const err = expectEngineError(() => buildTrimRange(stage, trimmer, withCounts(1.2)), "invalid-request");
+    expect(err.field).toBe("control");
+    expect(err.message).toBe("The trimmer's shortest period is under two timer counts.");
+    const two = buildTrimRange(stage, trimmer, withCounts(2.2));
+    expect(two.min.periodCounts).toBe(2);
+    expect(two.max.periodCounts).toBe(Math.round(period(12.9e3) / (shortest / 2.2)));
   });
 });

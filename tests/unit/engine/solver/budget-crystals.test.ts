@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { accuracyBudget, planTarget, suggestCrystals } from "@/lib/engine";
+import { expectEngineError } from "../expect-engine-error";
 
 describe("accuracy budget", () => {
   it("internal RC (+-10 % factory, ATmega328P datasheet, from memory) misses 1 %; a crystal meets it", () => {
@@ -28,6 +29,20 @@ describe("accuracy budget", () => {
     expect(b.dominant).toBe("quantization");
     expect(b.meetsTolerance).toBe(false);
     expect(b.totalPpm).toBeCloseTo(50 + b.quantizationPpm, 9);
+  });
+  it("takes a tolerance and a stage spread of 0 and refuses negative ones, naming the field", () => {
+    // A tolerance or a spread is a half-width, so 0 is the least it can be and
+    // a negative one means nothing; the refusal is the product's own message.
+    const p = planTarget({ device: "atmega328p", clockHz: 16e6, periodS: 1e-3, highS: 0.25e-3 });
+    const b = accuracyBudget(p, { toleranceRelative: 0, stageSpreadRelative: 0 });
+    expect(b.requiredPpm).toBe(0);
+    for (const [field, input] of [
+      ["toleranceRelative", { toleranceRelative: -0.01 }],
+      ["stageSpreadRelative", { toleranceRelative: 0.01, stageSpreadRelative: -0.01 }],
+    ] as const) {
+      const err = expectEngineError(() => accuracyBudget(p, input), "invalid-request", field);
+      expect(err.message).toBe(`${field} must be a finite number >= 0.`);
+    }
   });
 });
 

@@ -34,6 +34,16 @@ describe("Schmitt-trigger inverter RC oscillator (first-order RC step response)"
       "vtPlus",
     );
   });
+  it("VT+ equal to the supply: never switches (tH = R C ln((VDD - VT-)/0) is unbounded)", () => {
+    // First-order RC step response: the input approaches VDD only as t -> infinity,
+    // so a VT+ of exactly VDD is never reached; "does not exceed" covers equality.
+    const a = analyzeStage({ kind: "schmitt-rc", supplyV: 2.5, r: 10e3, c: 1e-6, vtPlus: 2.5, vtMinus: 1 });
+    expect(a.oscillates).toBe(false);
+    expect(a.checks[0]).toMatchObject({ level: "error", code: "supply-below-trip", field: "supplyV" });
+    expect(a.checks[0].message).toBe(
+      "The input can rise at most to the supply (2.5 V), which does not exceed VT+ (2.5 V): the gate never switches. Check the supply and the thresholds for that supply.",
+    );
+  });
 });
 
 describe("op-amp relaxation oscillator (Sedra & Smith, astable multivibrator; from memory)", () => {

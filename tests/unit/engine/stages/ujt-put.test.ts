@@ -118,3 +118,37 @@ describe("PUT relaxation oscillator", () => {
     expect(analyzeStage({ ...base, timingR: rMax * 1.05 }).checks[0].code).toBe("load-line-no-fire");
   });
 });
+
+describe("UJT with its peak point below the valley point", () => {
+  it("is explained by the threshold order, not by the load line", () => {
+    // Vp = eta*Vs + VD = 0.5 * 2.5 V + 0.6 V = 1.85 V (2N2646 data sheet, peak-point
+    // voltage), below the 2 V valley default: no negative-resistance region to
+    // switch through. The 100 Ω timing resistor is also under the load line's
+    // (Vs - Vv)/Iv = 0.5 V / 4 mA = 125 Ω (GE SCR Manual, from memory), but the
+    // threshold order is the cause to name (ujt.ts: out-of-order thresholds are
+    // left to the relaxation model, which explains them).
+    const a = analyzeStage({ kind: "ujt", supplyV: 2.5, timingR: 100, timingC: 1e-6, eta: 0.5 });
+    expect(a.oscillates).toBe(false);
+    expect(a.checks).toHaveLength(1);
+    expect(a.checks[0]).toMatchObject({ level: "error", code: "trip-below-release", field: "eta" });
+    expect(a.checks[0].message).toBe(
+      "The trip voltage (1.85 V) is not above the release voltage (2 V): the element never switches off and on in turn. Check the device data.",
+    );
+  });
+
+  it("a peak point equal to the valley point is the same case", () => {
+    // valleyV written as the engine's own Vp = eta*Vs + VD, so the two are the same
+    // number; Vp = Vv leaves no negative-resistance region either (2N2646 data sheet).
+    const a = analyzeStage({
+      kind: "ujt",
+      supplyV: 2.5,
+      timingR: 100,
+      timingC: 1e-6,
+      eta: 0.5,
+      valleyV: 0.5 * 2.5 + 0.6,
+    });
+    expect(a.oscillates).toBe(false);
+    expect(a.checks).toHaveLength(1);
+    expect(a.checks[0]).toMatchObject({ level: "error", code: "trip-below-release", field: "eta" });
+  });
+});
