@@ -20,6 +20,20 @@ describe("ADC clock dividers stay inside each document's range", () => {
   it("STM32G031: 64 MHz PCLK /2 = 32 MHz (CKMODE 01, fADC up to 35 MHz, from memory)", () => {
     expect(adcClock("stm32g031", 64e6)).toMatchObject({ divider: 2, bits: 0b01, adcClockHz: 32e6 });
   });
+  it("names the register field it sets as each document names it", () => {
+    // ATmega328P / ATtiny25/45/85 datasheets, ADCSRA ADPS2:0; PIC12F1840 DS40001441 ADCON1 ADCS<2:0>;
+    // SLAU144 ADC10CTL1 ADC10DIVx; RM0444 ADC_CFGR2 CKMODE; RP2040 datasheet 2.15 Clocks, CLK_ADC_CTRL AUXSRC
+    expect(adcClock("atmega328p", 16e6).field).toBe("ADCSRA.ADPS");
+    expect(adcClock("attiny85", 1e6).field).toBe("ADCSRA.ADPS");
+    expect(adcClock("pic12f1840", 32e6).field).toBe("ADCON1.ADCS");
+    expect(adcClock("msp430g2553", 16e6).field).toBe("ADC10CTL1.ADC10DIVx");
+    expect(adcClock("stm32g031", 64e6).field).toBe("ADC_CFGR2.CKMODE");
+    expect(adcClock("rp2040", 125e6).field).toBe("CLK_ADC_CTRL.AUXSRC");
+  });
+  it("RP2040: clk_adc is 48 MHz whatever clk_sys runs at (RP2040 datasheet 4.9 ADC, from PLL_USB)", () => {
+    expect(adcClock("rp2040", 125e6)).toMatchObject({ divider: 1, adcClockHz: 48e6 });
+    expect(adcClock("rp2040", 12e6)).toMatchObject({ divider: 1, adcClockHz: 48e6 });
+  });
   it("every result lies inside its stated range", () => {
     for (const [d, f] of [
       ["atmega328p", 8e6],

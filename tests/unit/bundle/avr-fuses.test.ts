@@ -102,6 +102,17 @@ describe("AVR fuses against the datasheet tables and avr-libc's headers", () => 
     expect(cksel(avrFuses("attiny85", "crystal", 20e6).low)).toBe(0b1111);
   });
 
+  it("the fuse explanation names each part's own 111 crystal row: ATtiny85 8.0-20 MHz, ATmega328P 8.0-16 MHz", () => {
+    // ATtiny25/45/85 datasheet, Crystal Oscillator Operating Modes: CKSEL3:1 = 111 from 8.0 MHz, the part
+    // runs to 20 MHz; ATmega328P datasheet, Low Power Crystal Oscillator Operating Modes: 111 is 8.0-16 MHz
+    // (both from memory, as avr-fuses.ts states them)
+    expect(avrFuses("attiny85", "crystal", 20e6).why[0]).toBe(
+      "crystal 20 MHz: 8.0-20 MHz (CKSEL3:1 = 111), CKSEL0 = 1, SUT1:0 = 11 (slowly rising power)",
+    );
+    expect(avrFuses("attiny85", "crystal", 12e6).why[0]).toContain(": 8.0-20 MHz (CKSEL3:1 = 111),");
+    expect(avrFuses("atmega328p", "crystal", 12e6).why[0]).toContain(": 8.0-16 MHz (CKSEL3:1 = 111),");
+  });
+
   it("128 kHz oscillator: ATmega328P CKSEL = 0011, ATtiny85 CKSEL = 0100", () => {
     expect(cksel(avrFuses("atmega328p", "rc128k", 128e3).low)).toBe(0b0011);
     expect(cksel(avrFuses("attiny85", "rc128k", 128e3).low)).toBe(0b0100);

@@ -28,6 +28,19 @@ describe("RP2040 kept selector part", () => {
     expect(render(isr)).toThrow("The selector part runs on RP2040 edge-aligned PWM plans.");
   });
 
+  it("refuses another device's PWM table plan, by its message", () => {
+    // built here, not while the file loads: a refusal then fails this test only
+    const avr = buildSelectorTable({
+      stage: { kind: "timer555-astable", supplyV: 5, ra: 1e3, rb: 10e3, c: 100e-9 },
+      control: { kind: "selector", field: "c", values: [100e-9, 220e-9] },
+      device: "atmega328p",
+      clockHz: 16e6,
+      clockSource: "crystal",
+    });
+    expect(avr.plan.mode).toBe("pwm");
+    expect(render(avr)).toThrow("The selector part runs on RP2040 edge-aligned PWM plans.");
+  });
+
   it("refuses an output on one of the switch inputs, naming the GPIO", () => {
     // two positions read GPIO2 and GPIO3
     const onInput = { ...table, plan: { ...table.plan, pin: { ...table.plan.pin, port: "GP3", gpio: 3 } } };
