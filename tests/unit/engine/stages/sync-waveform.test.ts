@@ -31,5 +31,8 @@ describe("stageWaveform of a mains-synchronised UJT stage", () => {
       } else if (t > delay && t < delay + a.highS) expect(p.out).toBe(1);
     }
     expect(w.some((p) => p.out === 1)).toBe(true);
+    // The sketch places a point on each edge: at the firing instant itself the output is already high.
+    const firing = w.find((p) => p.tS === delay);
+    expect(firing?.out).toBe(1);
   });
 });
