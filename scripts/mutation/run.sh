@@ -40,8 +40,9 @@ sampled_tests() {
     lib/capture) echo "tests/unit/capture/*.test.ts" ;;
     lib/engine)
       # budget.ts and crystals.ts are judged by their tests in solver/ (they plan through the solver);
-      # formatPpm (units.ts) by validation/presentation.test.ts
-      echo "tests/unit/engine/stages/**/*.test.ts,tests/unit/engine/tolerance/**/*.test.ts,tests/unit/engine/units/**/*.test.ts,tests/unit/engine/adjust/**/*.test.ts,tests/unit/engine/solver/budget-crystals.test.ts,tests/unit/engine/solver/budget-clock-source.test.ts,tests/unit/engine/solver/gate-drive.test.ts,tests/unit/validation/presentation.test.ts" ;;
+      # formatPpm (units.ts) by validation/presentation.test.ts; crystals.ts and timer-api.ts refusals
+      # by solver/crystals-and-clock-choice-refusals.test.ts
+      echo "tests/unit/engine/stages/**/*.test.ts,tests/unit/engine/tolerance/**/*.test.ts,tests/unit/engine/units/**/*.test.ts,tests/unit/engine/adjust/**/*.test.ts,tests/unit/engine/solver/budget-crystals.test.ts,tests/unit/engine/solver/budget-clock-source.test.ts,tests/unit/engine/solver/gate-drive.test.ts,tests/unit/engine/solver/crystals-and-clock-choice-refusals.test.ts,tests/unit/validation/presentation.test.ts" ;;
     *) echo "unknown folder: $1" >&2; exit 2 ;;
   esac
 }

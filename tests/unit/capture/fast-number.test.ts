@@ -61,4 +61,13 @@ describe("fastNumber", () => {
     expect(read("1234567890.1234567")).toBeNaN(); // 17 significant digits
     expect(read("1e-30")).toBeNaN(); // past the exact powers of ten
   });
+
+  it("leading zeros are not significant digits: a zero-padded field stays on the fast path", () => {
+    // Leading zeros only place the decimal point and are not significant (significant-figure rule,
+    // from memory); the reader's own limit counts significant digits (15, fast-number.ts header).
+    const padded = "0000000000000000012.5"; // 3 significant digits after 17 zeros
+    expect(read(padded)).toBe(12.5);
+    const small = "0.00000000000000000125"; // 1.25e-18: 3 significant digits, 10^-20 is an exact power
+    expect(Object.is(read(small), Number(small))).toBe(true);
+  });
 });
