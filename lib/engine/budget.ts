@@ -9,6 +9,7 @@
 import { EngineError } from "./errors";
 import { findDevice } from "./devices";
 import type { ClockKind, TimerPlan } from "./plan-types";
+import { formatPpm } from "./units";
 
 export type BudgetTerm = "clock" | "quantization" | "jitter";
 
@@ -119,14 +120,14 @@ export function accuracyBudget(plan: TimerPlan, input: BudgetInput): AccuracyBud
   const notes: string[] = [];
   const meets = totalPpm <= required;
   notes.push(
-    `${meets ? "Meets" : "Misses"} the required ${round(required)} ppm${triggered ? " on the delay from the input edge" : ""}: clock ${round(clockPpm)} + quantization ${round(quantizationPpm)} + jitter ${round(jitterPpm)} = ${round(totalPpm)} ppm; ${dominant} dominates.`,
+    `${meets ? "Meets" : "Misses"} the required ${formatPpm(required)}${triggered ? " on the delay from the input edge" : ""}: clock ${formatPpm(clockPpm)} + quantization ${formatPpm(quantizationPpm)} + jitter ${formatPpm(jitterPpm)} = ${formatPpm(totalPpm)}; ${dominant} dominates.`,
   );
   const used = device?.clocks.find((c) => c.id === plan.clockSource);
   if (used)
     notes.push(
       used.accuracyPpm === clockPpm
-        ? `Clock figure ${round(clockPpm)} ppm (${used.label}): ${used.accuracySource}.`
-        : `Clock figure ${round(clockPpm)} ppm as entered; ${used.label} is listed at ${round(used.accuracyPpm)} ppm (${used.accuracySource}).`,
+        ? `Clock figure ${formatPpm(clockPpm)} (${used.label}): ${used.accuracySource}.`
+        : `Clock figure ${formatPpm(clockPpm)} as entered; ${used.label} is listed at ${formatPpm(used.accuracyPpm)} (${used.accuracySource}).`,
     );
   const gate = input.gateDrive ? gateVerdict(plan, input.gateDrive) : undefined;
   if (gate) notes.push(...gate.findings);
@@ -137,8 +138,8 @@ export function accuracyBudget(plan: TimerPlan, input: BudgetInput): AccuracyBud
   if (spread !== null)
     notes.push(
       spread >= totalPpm
-        ? `The old stage's spread (${round(spread)} ppm) is larger than the new budget.`
-        : `The new budget exceeds the old stage's spread (${round(spread)} ppm).`,
+        ? `The old stage's spread (${formatPpm(spread)}) is larger than the new budget.`
+        : `The new budget exceeds the old stage's spread (${formatPpm(spread)}).`,
     );
   return {
     requiredPpm: required,

@@ -12,6 +12,38 @@ describe("the budget's clock note", () => {
     expect(b.clockOptions.find((c) => c.id === "rc8m")!.accuracySource).toBe("datasheet, from memory");
   });
 
+  it("a figure past 1e4 ppm reads in percent, as every ppm figure the product shows", () => {
+    // The product's own rule for ppm figures (formatPpm in lib/engine/units.ts, checked on the
+    // page by tests/browser/numbers-wording.test.ts): from 1e4 ppm on, a percentage.
+    const p = planTarget({
+      device: "attiny85",
+      clockHz: 128e3,
+      periodS: 1,
+      highS: 0.25,
+      clockSource: "rc128k",
+    });
+    const b = accuracyBudget(p, { toleranceRelative: 0.01 });
+    expect(b.notes).toContain("Clock figure 10 % (Internal 128 kHz oscillator): from memory.");
+  });
+
+  it("the verdict and spread notes read in percent past 1e4 ppm too", () => {
+    // 8 MHz RC: 1 ms = 8000 cycles exactly, so quantization and jitter are 0; the clock's
+    // 100000 ppm and a 20 % old-stage spread are shown as 10 % and 20 %.
+    const p = planTarget({
+      device: "atmega328p",
+      clockHz: 8e6,
+      periodS: 1e-3,
+      highS: 0.25e-3,
+      clockSource: "rc8m",
+    });
+    const b = accuracyBudget(p, { toleranceRelative: 0.01, stageSpreadRelative: 0.2 });
+    expect(b.notes[0]).toBe(
+      "Misses the required 1 %: clock 10 % + quantization 0 ppm + jitter 0 ppm = 10 %; clock dominates.",
+    );
+    expect(b.notes).toContain("The old stage's spread (20 %) is larger than the new budget.");
+    for (const n of b.notes) expect(n).not.toMatch(/\d{5,} ppm/);
+  });
+
   it("a figure entered by the user says so and keeps the option's own figure beside it", () => {
     const p = planTarget({
       device: "atmega328p",
@@ -24,7 +56,7 @@ describe("the budget's clock note", () => {
     const b = accuracyBudget(p, { toleranceRelative: 0.01 });
     expect(b.clockPpm).toBe(2000);
     expect(b.notes).toContain(
-      "Clock figure 2000 ppm as entered; Internal RC 8 MHz, user calibrated is listed at 10000 ppm (datasheet, from memory).",
+      "Clock figure 2000 ppm as entered; Internal RC 8 MHz, user calibrated is listed at 1 % (datasheet, from memory).",
     );
   });
 });
