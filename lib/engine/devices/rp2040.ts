@@ -8,7 +8,7 @@ import { RP2040_MAX_SYS_HZ, RP2040_PLL_FREQUENCIES_HZ, RP2040_XOSC_HZ } from "./
 import { pin, type DeviceSpec, type TimerConfig, type TimerSpec } from "./spec";
 
 // DIV_INT 1..255 and DIV_FRAC 0..15: divider = DIV_INT + DIV_FRAC/16.
-const DIVIDERS = Array.from({ length: 255 * 16 - 15 }, (_, i) => (16 + i) / 16);
+const DIVIDERS = Array.from({ length: 255 * 16 }, (_, i) => (16 + i) / 16); // 1.0 .. 255.9375
 const INT_DIVIDERS = Array.from({ length: 255 }, (_, i) => i + 1);
 
 // QFN-56: GPIO0..7 on pins 2..9, GPIO8..15 on pins 11..18 (RP2040 datasheet,

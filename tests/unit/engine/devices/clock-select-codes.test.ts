@@ -12,6 +12,7 @@ import { describe, expect, it } from "vitest";
 import type { BundlePlan } from "@/lib/bundle";
 import { DEVICES as BUNDLE_DEVICES } from "@/lib/bundle/devices";
 import { planTarget, type PlanRequest } from "@/lib/engine";
+import { DEVICES } from "@/lib/engine/devices";
 
 // ATmega328P datasheet (Microchip DS40002061), 8-bit Timer/Counter0, register
 // description TCCR0B, "Clock Select Bit Description" table: CS02:0 = 001 clk/1,
@@ -256,5 +257,26 @@ describe("RP2040 DIV INT.FRAC (RP2040 datasheet, PWM, CHx_DIV)", () => {
     }
     expect(seen.filter((d) => !Number.isInteger(d)).length).toBeGreaterThanOrEqual(3);
     expect(seen.filter((d) => Number.isInteger(d) && d > 1).length).toBeGreaterThanOrEqual(2);
+  });
+
+  it("the slice takes every INT 1..255 with every FRAC 0..15, up to 255 + 15/16", () => {
+    const typed: number[] = [];
+    for (let int = 1; int <= 255; int++) for (let frac = 0; frac <= 15; frac++) typed.push(int + frac / 16);
+    const slice = DEVICES.find((d) => d.id === "rp2040")!.timers.find((t) => t.name === "PWM0")!;
+    expect(slice.dividers.length).toBe(typed.length);
+    expect([...slice.dividers]).toEqual(typed);
+    // The longest phase-correct period, 2 x 65536 x 255.9375 clocks, has one
+    // exact setting: TOP 65535 with DIV 0xFFF.
+    const periodS = (2 * 65536 * 255.9375) / 125e6;
+    const plan = planTarget({
+      device: "rp2040",
+      clockHz: 125e6,
+      periodS,
+      highS: periodS / 2,
+      mode: "pwm",
+    }) as BundlePlan;
+    expect([plan.registers.DIV, plan.registers.TOP, plan.registers.CSR]).toEqual([0xfff, 65535, 0x03]);
+    expect(decode(plan.registers.DIV)).toBe(255.9375);
+    expect(plan.periodErrorPpm).toBe(0);
   });
 });

@@ -132,7 +132,7 @@ export const TIMERS: RefTimer[] = [
     device: "rp2040",
     timer: "PWM0",
     clockHz: 125e6,
-    dividers: Array.from({ length: 255 * 16 - 15 }, (_, i) => (16 + i) / 16),
+    dividers: Array.from({ length: 255 * 16 }, (_, i) => (16 + i) / 16), // INT 1..255 x FRAC 0..15
     pwm: { min: 2, max: 65536, factors: [1, 2] },
     highStep: 1,
     clocksPerCpuCycle: 1,
