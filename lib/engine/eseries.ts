@@ -78,16 +78,19 @@ export function nearestStandardValue(wanted: number, series: ESeriesName = "E24"
   return { value: best, errorRel: (best - wanted) / wanted };
 }
 
-/** Every value of the series from `low` to `high` inclusive. */
+/** Every value of the series from `low` to `high` inclusive, with a relative 1e-12 of slack at both ends for bounds that carry float error. */
 export function standardValuesBetween(series: ESeriesName, low: number, high: number): number[] {
   if (!(low > 0) || !(high >= low) || !Number.isFinite(high)) {
     throw new EngineError("invalid-value", "A value range needs 0 < low <= high.");
   }
   const out: number[] = [];
-  for (let e = Math.floor(Math.log10(low)); e <= Math.floor(Math.log10(high)); e++) {
+  const from = low * (1 - 1e-12);
+  const to = high * (1 + 1e-12);
+  // The decades come from the widened ends: a high bound a few ulps under 1000 still reaches 1000.
+  for (let e = Math.floor(Math.log10(from)); e <= Math.floor(Math.log10(to)); e++) {
     for (const m of E_SERIES[series]) {
       const v = scaled(m, e);
-      if (v >= low * (1 - 1e-12) && v <= high * (1 + 1e-12)) out.push(v);
+      if (v >= from && v <= to) out.push(v);
     }
   }
   return out;

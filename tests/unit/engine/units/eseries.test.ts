@@ -49,6 +49,19 @@ describe("nearest standard value", () => {
     expect(standardValuesBetween("E6", 1e3, 10e3)).toEqual([1e3, 1.5e3, 2.2e3, 3.3e3, 4.7e3, 6.8e3, 10e3]);
   });
 
+  it("bounds carrying float error keep the value they stand for: a relative 1e-12 of slack, ends included", () => {
+    // A bound worked out as 1 kΩ by arithmetic can land a few ulps off 1000; the documented
+    // slack is 1e-12 of the bound, and a value exactly at the slack's end is still inside.
+    const high = 1000 / (1 + 1e-12);
+    const low = 1000 / (1 - 1e-12);
+    expect([high * (1 + 1e-12), low * (1 - 1e-12)]).toEqual([1000, 1000]);
+    expect(standardValuesBetween("E6", 100, high)).toEqual([100, 150, 220, 330, 470, 680, 1000]);
+    expect(standardValuesBetween("E6", low, 1e4)).toEqual([1000, 1500, 2200, 3300, 4700, 6800, 10000]);
+    // Twice the slack is outside.
+    expect(standardValuesBetween("E6", 100, 1000 / (1 + 2e-12))).not.toContain(1000);
+    expect(standardValuesBetween("E6", 1000 / (1 - 2e-12), 1e4)).not.toContain(1000);
+  });
+
   it("refuses non-positive input", () => {
     expectEngineError(() => nearestStandardValue(0), "invalid-value");
     expectEngineError(() => nearestStandardValue(NaN), "invalid-value");
