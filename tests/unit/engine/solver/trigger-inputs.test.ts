@@ -50,3 +50,51 @@ describe("triggered plans: the input pin in the datasheets' pin names", () => {
       }).toEqual(want);
     });
 });
+
+describe("triggered plans: the edge setting in the datasheets' register words", () => {
+  // Typed here from each document's edge-select description, not read from the device files;
+  // the plan carries the text into the generated code's comments, the pin map and the checklist.
+  // ATmega328P DS40002061, EICRA, "Interrupt 0 Sense Control": ISC01:ISC00 = 01 any logical
+  // change, 10 falling edge, 11 rising edge. ATtiny25/45/85 DS40001911, MCUCR, the same ISC01:0
+  // table. RM0444 (STM32G0x1), EXTI_RTSR1 / EXTI_FTSR1: bit n enables the rising / falling
+  // trigger of line n (PA1 is line 1); both set, both edges. RP2040 datasheet, IO_BANK0
+  // PROC0_INTE0..3: per GPIO EDGE_HIGH (rising) and EDGE_LOW (falling) enable bits.
+  // PIC12F1840 DS40001441, interrupt-on-change: IOCAPx enables the positive edge, IOCANx the
+  // negative edge of pin x (RA1). MSP430x2xx family user's guide SLAU144, PxIES: bit = 0 flags a
+  // low-to-high transition, 1 a high-to-low one; one edge at a time, so both edges means
+  // flipping the bit after each.
+  const expected = {
+    atmega328p: {
+      rising: /^EICRA ISC01:0 = 11$/,
+      falling: /^EICRA ISC01:0 = 10$/,
+      both: /^EICRA ISC01:0 = 01\b/,
+    },
+    attiny85: {
+      rising: /^MCUCR ISC01:0 = 11$/,
+      falling: /^MCUCR ISC01:0 = 10$/,
+      both: /^MCUCR ISC01:0 = 01\b/,
+    },
+    stm32g031: {
+      rising: /^EXTI_RTSR1 bit 1$/,
+      falling: /^EXTI_FTSR1 bit 1$/,
+      both: /^EXTI_RTSR1 and EXTI_FTSR1 bit 1$/,
+    },
+    rp2040: {
+      rising: /^PROC0_INTE EDGE_HIGH$/,
+      falling: /^PROC0_INTE EDGE_LOW$/,
+      both: /^PROC0_INTE EDGE_HIGH and EDGE_LOW$/,
+    },
+    pic12f1840: { rising: /^IOCAP1 = 1$/, falling: /^IOCAN1 = 1$/, both: /^IOCAP1 = 1 and IOCAN1 = 1$/ },
+    msp430g2553: {
+      rising: /^P1IES bit 3 = 0$/,
+      falling: /^P1IES bit 3 = 1$/,
+      both: /^P1IES bit 3 flipped\b/,
+    },
+  };
+  for (const [device, want] of Object.entries(expected))
+    it(device, () => {
+      const got = TRIGGER_INPUTS[device as keyof typeof TRIGGER_INPUTS].edgeHow;
+      expect(Object.keys(got).sort()).toEqual(["both", "falling", "rising"]);
+      for (const edge of ["rising", "falling", "both"] as const) expect(got[edge], edge).toMatch(want[edge]);
+    });
+});
