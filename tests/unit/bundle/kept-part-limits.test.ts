@@ -79,6 +79,26 @@ describe("STM32G031 kept parts", () => {
     expect(h).toContain("ADC clock: PCLK/2 = 8000000 Hz (CKMODE = 1), inside 140000..35000000 Hz.");
   });
 
+  it("the rate pot's ADC part refuses a plan that is not edge-aligned PWM, by its message", () => {
+    // the part drives TIM2_CH1 from the table's PWM compare values (lib/bundle/adc-stm32g031.ts)
+    const table = buildAdcTable({
+      stage,
+      control: pot,
+      device: "stm32g031",
+      clockHz: 16e6,
+      adcBits: 12,
+      steps: 64,
+    });
+    expect(() => renderStm32g031Adc({ table, controlText: "rate pot as Rb" })).not.toThrow();
+    for (const over of [{ mode: "isr" as const }, { mode: "toggle" as const }, { modeFactor: 2 as const }])
+      expect(() =>
+        renderStm32g031Adc({
+          table: { ...table, plan: { ...table.plan, ...over } },
+          controlText: "rate pot as Rb",
+        }),
+      ).toThrow("The ADC control part runs on STM32G031 edge-aligned PWM plans.");
+  });
+
   it("the selector part refuses a plan that is not edge-aligned PWM, by its message", () => {
     const table = buildSelectorTable({
       stage,
