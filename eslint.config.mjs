@@ -11,6 +11,7 @@ const config = [
       "node_modules/**",
       ".data/**",
       "tmp/**",
+      ".stryker-tmp*/**",
       "drizzle/**",
       "next-env.d.ts",
     ],
