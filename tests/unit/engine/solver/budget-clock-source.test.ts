@@ -12,6 +12,27 @@ describe("the budget's clock note", () => {
     expect(b.clockOptions.find((c) => c.id === "rc8m")!.accuracySource).toBe("datasheet, from memory");
   });
 
+  it("each clock option's verdict: its figure plus the plan's quantization and jitter, against the requirement", () => {
+    // 16 MHz, 1 ms = 16 000 cycles exactly: quantization and jitter 0, so each option's total is its
+    // own figure. ATmega328P datasheet (DS40002061), calibrated internal RC oscillator accuracy:
+    // factory calibration +-10 %, user calibration +-1 % (from memory); crystal and external clock
+    // 50 ppm (common practice, no source). Against 1 %: the user-calibrated RC sits exactly on the
+    // limit and passes, the factory-calibrated 8 MHz and the 128 kHz oscillator do not.
+    const p = planTarget({ device: "atmega328p", clockHz: 16e6, periodS: 1e-3, highS: 0.25e-3 });
+    const b = accuracyBudget(p, { toleranceRelative: 0.01 });
+    expect(b.clockOptions.map((c) => [c.id, c.totalPpm, c.ok])).toEqual([
+      ["crystal", 50, true],
+      ["rc8m", 100000, false],
+      ["rc8m-cal", 10000, true],
+      ["rc128k", 100000, false],
+      ["external", 50, true],
+    ]);
+    expect(b.internalOscillatorOk).toBe(true);
+    const tight = accuracyBudget(p, { toleranceRelative: 0.005 });
+    expect(tight.clockOptions.filter((c) => c.ok).map((c) => c.id)).toEqual(["crystal", "external"]);
+    expect(tight.internalOscillatorOk).toBe(false);
+  });
+
   it("a figure past 1e4 ppm reads in percent, as every ppm figure the product shows", () => {
     // The product's own rule for ppm figures (formatPpm in lib/engine/units.ts, checked on the
     // page by tests/browser/numbers-wording.test.ts): from 1e4 ppm on, a percentage.
